@@ -1,0 +1,18 @@
+import { DomainError } from '@platesmith/catalogue';
+import { assertSection, grossProps, material, panelsOf, resolveBearing } from './section.js';
+import type { CheckContext, CheckOptions, Section } from './types.js';
+
+/** Everything the check families share, computed once per section. */
+export function prepare(s: Section, o: CheckOptions): CheckContext {
+  assertSection(s);
+  const sup = o.supports;
+  if (sup.length < 2 || sup.some((x, i) => i > 0 && x <= sup[i - 1]!)) {
+    throw new DomainError('BAD_SUPPORTS', 'supports must be at least two ascending positions (mm)', 'give support positions from the left end, e.g. [0, 24000]', 'options.supports');
+  }
+  const m = material(s, o);
+  const g = grossProps(s, m);
+  const L = sup[sup.length - 1]! - sup[0]!;
+  const { panels, stiffenerXs } = panelsOf(sup, s.stiffeners?.a ?? null);
+  const bearing = resolveBearing(s, m.fyStiff);
+  return { s, o, m, g, L, panels, stiffenerXs, bearing };
+}

@@ -1,0 +1,331 @@
+import { DomainError, PLATE_THICKNESSES, STEEL_DENSITY, fu, fy } from '@platesmith/catalogue';
+import type {
+  BearingStiffener,
+  CheckOptions,
+  FlangePlate,
+  GrossProps,
+  Material,
+  Panel,
+  Section,
+} from './types.js';
+
+/**
+ * Cross-section properties of a welded (mono-)symmetric I-section from plate dimensions,
+ * by elementary mechanics (no clause). Units: mm, mm², mm⁴, mm⁶, MPa, N·mm.
+ * z is measured upward from the underside of the bottom flange.
+ */
+
+/** A rectangle of a cross-section stack: from z0 to z1 (mm), width b (mm), yield strength fy (MPa). */
+export interface Rect {
+  z0: number;
+  z1: number;
+  b: number;
+  fy: number;
+}
+
+/** ε = √(235 / fy), EN 1993-1-1 Table 5.2. */
+export function epsilon(fyPlate: number): number {
+  return Math.sqrt(235 / fyPlate);
+}
+
+export function material(s: Section, o: Pick<CheckOptions, 'fySource'>): Material {
+  const src = o.fySource;
+  const fyw = fy(s.grade.web, s.tw, src, 'section.web.thickness');
+  const fyTop = fy(s.grade.top, s.top.t, src, 'section.topFlange.thickness');
+  const fyBot = fy(s.grade.bot, s.bot.t, src, 'section.bottomFlange.thickness');
+  const tStiff = s.stiffeners?.ts ?? s.bearing?.ts ?? s.tw;
+  const fyStiff = fy(s.grade.stiffener, tStiff, src, 'section.stiffeners.thickness');
+  return {
+    fyw,
+    fyTop,
+    fyBot,
+    fyStiff,
+    fuw: fu(s.grade.web, s.tw, src),
+    fuTop: fu(s.grade.top, s.top.t, src),
+    fuBot: fu(s.grade.bot, s.bot.t, src),
+    epsW: epsilon(fyw),
+    epsTop: epsilon(fyTop),
+    epsBot: epsilon(fyBot),
+    epsStiff: epsilon(fyStiff),
+  };
+}
+
+/** The three plates of the section as a stack of rectangles, each at its own fy. */
+export function rects(s: Section, m: Material): Rect[] {
+  const tb = s.bot.t;
+  return [
+    { z0: 0, z1: tb, b: s.bot.b, fy: m.fyBot },
+    { z0: tb, z1: tb + s.hw, b: s.tw, fy: m.fyw },
+    { z0: tb + s.hw, z1: tb + s.hw + s.top.t, b: s.top.b, fy: m.fyTop },
+  ];
+}
+
+/** Area, first moment about z = 0 and second moment about z = 0 of a rectangle stack. */
+function moments(rs: readonly Rect[]): { A: number; S: number; I0: number } {
+  let A = 0;
+  let S = 0;
+  let I0 = 0;
+  for (const r of rs) {
+    const h = r.z1 - r.z0;
+    const a = r.b * h;
+    const zc = (r.z0 + r.z1) / 2;
+    A += a;
+    S += a * zc;
+    I0 += (r.b * h ** 3) / 12 + a * zc * zc;
+  }
+  return { A, S, I0 };
+}
+
+/** Elastic neutral axis and second moment of area of a rectangle stack. */
+export function elastic(rs: readonly Rect[]): { A: number; z: number; I: number } {
+  const { A, S, I0 } = moments(rs);
+  const z = S / A;
+  return { A, z, I: I0 - A * z * z };
+}
+
+/**
+ * Plastic neutral axis (equal force above and below, each rectangle at its own fy) and the
+ * plastic moment Σ fy ∫ |z − zp| dA of a rectangle stack, N·mm.
+ */
+export function plastic(rs: readonly Rect[]): { zp: number; Mp: number } {
+  let total = 0;
+  for (const r of rs) total += r.b * (r.z1 - r.z0) * r.fy;
+  const half = total / 2;
+  // walk up from the bottom until half the force is below
+  const sorted = [...rs].sort((p, q) => p.z0 - q.z0);
+  let below = 0;
+  let zp = sorted[0]?.z0 ?? 0;
+  for (const r of sorted) {
+    const f = r.b * (r.z1 - r.z0) * r.fy;
+    if (below + f >= half) {
+      zp = r.z0 + (half - below) / (r.b * r.fy);
+      break;
+    }
+    below += f;
+    zp = r.z1;
+  }
+  let Mp = 0;
+  for (const r of rs) {
+    if (r.z1 <= zp) Mp += r.b * r.fy * (r.z1 - r.z0) * (zp - (r.z0 + r.z1) / 2);
+    else if (r.z0 >= zp) Mp += r.b * r.fy * (r.z1 - r.z0) * ((r.z0 + r.z1) / 2 - zp);
+    else Mp += (r.b * r.fy * ((zp - r.z0) ** 2 + (r.z1 - zp) ** 2)) / 2;
+  }
+  return { zp, Mp };
+}
+
+/** Moment at first yield of any rectangle at its own fy, N·mm, for the stack's elastic section. */
+export function firstYieldMoment(rs: readonly Rect[], zNa: number, I: number): number {
+  let M = Infinity;
+  for (const r of rs) {
+    const d = Math.max(Math.abs(r.z1 - zNa), Math.abs(r.z0 - zNa));
+    if (d > 0) M = Math.min(M, (r.fy * I) / d);
+  }
+  return M;
+}
+
+export function grossProps(s: Section, m: Material): GrossProps {
+  const rs = rects(s, m);
+  const el = elastic(rs);
+  const pl = plastic(rs);
+  const h = s.hw + s.top.t + s.bot.t;
+  const hs = s.hw + (s.top.t + s.bot.t) / 2;
+  const IzTop = (s.top.t * s.top.b ** 3) / 12;
+  const IzBot = (s.bot.t * s.bot.b ** 3) / 12;
+  const Iz = IzTop + IzBot + (s.hw * s.tw ** 3) / 12;
+  const It = (s.top.b * s.top.t ** 3 + s.bot.b * s.bot.t ** 3 + s.hw * s.tw ** 3) / 3;
+  const Iw = (IzTop * IzBot * hs * hs) / (IzTop + IzBot);
+  const zShear = s.bot.t / 2 + (hs * IzTop) / (IzTop + IzBot);
+  return {
+    h,
+    hs,
+    A: el.A,
+    Aw: s.hw * s.tw,
+    zElastic: el.z,
+    Iy: el.I,
+    Iz,
+    It,
+    Iw,
+    zShear,
+    IzTop,
+    IzBot,
+    zPlastic: pl.zp,
+    Mpl: pl.Mp,
+    Mel: firstYieldMoment(rs, el.z, el.I),
+  };
+}
+
+/**
+ * Compression flange outstand per EN 1993-1-1 Table 5.2 (c measured from the weld toe,
+ * c = (bf − tw)/2 − √2·a with a the fillet throat) and its effective width per EN 1993-1-5
+ * 4.4(2) eq. 4.3 for an outstand in uniform compression (kσ = 0.43, Table 4.2):
+ * λp = (c/t)/(28.4 ε √kσ), ρ = (λp − 0.188)/λp² ≤ 1.
+ * Returns c (mm), ρ, and the effective flange width bEff (mm).
+ */
+export function flangeOutstand(
+  flange: FlangePlate,
+  tw: number,
+  fyFlange: number,
+  throat: number,
+): { c: number; ratio: number; lambdaP: number; rho: number; bEff: number } {
+  const c = Math.max(0, (flange.b - tw) / 2 - Math.SQRT2 * throat);
+  const ratio = c / flange.t;
+  const lambdaP = ratio / (28.4 * epsilon(fyFlange) * Math.sqrt(0.43));
+  const rho = lambdaP > 0.748 ? Math.min(1, (lambdaP - 0.188) / (lambdaP * lambdaP)) : 1;
+  const bEff = flange.b - 2 * (1 - rho) * c;
+  return { c, ratio, lambdaP, rho, bEff };
+}
+
+export type FlangeSide = 'top' | 'bot';
+
+/** The flange in compression for a moment of this sign (positive = sagging → top). */
+export function compressionSide(MEd: number): FlangeSide {
+  return MEd >= 0 ? 'top' : 'bot';
+}
+
+/**
+ * Rectangles of the section with the compression flange at its effective width
+ * (EN 1993-1-5 4.4, outstands), web gross, optionally without the web.
+ */
+export function rectsEffectiveFlanges(
+  s: Section,
+  m: Material,
+  compression: FlangeSide,
+  throat: number,
+  withWeb: boolean,
+): Rect[] {
+  const rs = rects(s, m);
+  const idx = compression === 'top' ? 2 : 0;
+  const flange = compression === 'top' ? s.top : s.bot;
+  const fyF = compression === 'top' ? m.fyTop : m.fyBot;
+  const eff = flangeOutstand(flange, s.tw, fyF, throat);
+  rs[idx] = { ...rs[idx]!, b: eff.bEff };
+  return withWeb ? rs : [rs[0]!, rs[2]!];
+}
+
+/**
+ * EN 1993-1-5 5.4(1) and 7.1(1): Mf,Rd, the plastic moment resistance of the section made of the
+ * effective flanges only, and Mpl,Rd of the effective flanges with the full web (N·mm),
+ * for the compression flange given. Each plate at its own fy; divided by γM0.
+ */
+export function flangeAndPlasticMoments(
+  s: Section,
+  m: Material,
+  compression: FlangeSide,
+  throat: number,
+  gammaM0: number,
+): { MfRd: number; MplRd: number } {
+  const MfRd = plastic(rectsEffectiveFlanges(s, m, compression, throat, false)).Mp / gammaM0;
+  const MplRd = plastic(rectsEffectiveFlanges(s, m, compression, throat, true)).Mp / gammaM0;
+  return { MfRd, MplRd };
+}
+
+/**
+ * Web panels between rigid transverse boundaries: supports and intermediate stiffeners.
+ * Stiffeners stand at x0 + k·a within each span, measured from the span's left support;
+ * a stiffener closer than 1 mm to the next support is omitted.
+ */
+export function panelsOf(supports: readonly number[], a: number | null): { panels: Panel[]; stiffenerXs: number[] } {
+  const panels: Panel[] = [];
+  const stiffenerXs: number[] = [];
+  const first = supports[0]!;
+  const last = supports[supports.length - 1]!;
+  for (let i = 0; i + 1 < supports.length; i++) {
+    const s0 = supports[i]!;
+    const s1 = supports[i + 1]!;
+    const bounds = [s0];
+    if (a !== null && a > 0) {
+      for (let k = 1; s0 + k * a < s1 - 1; k++) bounds.push(s0 + k * a);
+    }
+    bounds.push(s1);
+    for (let j = 0; j + 1 < bounds.length; j++) {
+      const x0 = bounds[j]!;
+      const x1 = bounds[j + 1]!;
+      if (j > 0) stiffenerXs.push(x0);
+      panels.push({
+        x0,
+        x1,
+        a: x1 - x0,
+        atEnd: x0 === first || x1 === last,
+        supportAt0: j === 0,
+        supportAt1: j + 1 === bounds.length - 1,
+      });
+    }
+  }
+  return { panels, stiffenerXs };
+}
+
+/**
+ * Bearing stiffeners at supports. When the section does not give them: the intermediate
+ * stiffener flats if there are any (common practice, no source: one flat size per girder),
+ * otherwise an outstand of 80 % of the narrower flange outstand rounded down to 10 mm, as
+ * thick as the web or the next stock plate that keeps bs/ts ≤ 10ε (Class 2 outstand,
+ * EN 1993-1-1 Table 5.2). A rigid end post's pairs are e = 0.1 hw apart, rounded up to 10 mm
+ * (EN 1993-1-5 9.3.1(3) minimum).
+ */
+export function resolveBearing(s: Section, fyStiff: number): BearingStiffener {
+  const e = Math.max(50, Math.ceil((0.1 * s.hw) / 10) * 10);
+  if (s.bearing) return s.bearing;
+  if (s.stiffeners) return { bs: s.stiffeners.bs, ts: Math.max(s.stiffeners.ts, s.tw), e };
+  const outstand = (Math.min(s.top.b, s.bot.b) - s.tw) / 2;
+  const bs = Math.max(40, Math.floor((0.8 * outstand) / 10) * 10);
+  const tMin = Math.max(s.tw, bs / (10 * epsilon(fyStiff)));
+  const ts = PLATE_THICKNESSES.find((t) => t >= tMin) ?? Math.ceil(tMin);
+  return { bs, ts, e };
+}
+
+export interface MassBreakdown {
+  /** kg */
+  web: number;
+  topFlange: number;
+  bottomFlange: number;
+  stiffeners: number;
+  bearing: number;
+  total: number;
+  /** kg/m of girder length */
+  perMetre: number;
+}
+
+/**
+ * Steel mass of the girder of length L (mm): plates, intermediate stiffeners (full web depth,
+ * one flat per side), bearing stiffeners at every support (double-sided; two pairs at a rigid
+ * end post). Density 7850 kg/m³. Welds and snipes are ignored (common practice, no source).
+ */
+export function girderMass(s: Section, L: number, supports: readonly number[], bearing: BearingStiffener): MassBreakdown {
+  const k = STEEL_DENSITY * 1e-9; // kg per mm³
+  const web = s.hw * s.tw * L * k;
+  const topFlange = s.top.b * s.top.t * L * k;
+  const bottomFlange = s.bot.b * s.bot.t * L * k;
+  const { stiffenerXs } = panelsOf(supports, s.stiffeners?.a ?? null);
+  const stiffeners = s.stiffeners ? stiffenerXs.length * s.stiffeners.sides * s.stiffeners.bs * s.stiffeners.ts * s.hw * k : 0;
+  const ends = 2;
+  const inner = Math.max(0, supports.length - 2);
+  const pairsAtEnd = s.endPost === 'rigid' ? 2 : 1;
+  const bearingMass = (ends * pairsAtEnd + inner) * 2 * bearing.bs * bearing.ts * s.hw * k;
+  const total = web + topFlange + bottomFlange + stiffeners + bearingMass;
+  return { web, topFlange, bottomFlange, stiffeners, bearing: bearingMass, total, perMetre: total / (L / 1000) };
+}
+
+/** Validates the geometry a check can be asked about; throws DomainError naming the field. */
+export function assertSection(s: Section): void {
+  const pos: [string, number][] = [
+    ['section.web.depth', s.hw],
+    ['section.web.thickness', s.tw],
+    ['section.topFlange.width', s.top.b],
+    ['section.topFlange.thickness', s.top.t],
+    ['section.bottomFlange.width', s.bot.b],
+    ['section.bottomFlange.thickness', s.bot.t],
+  ];
+  if (s.stiffeners) {
+    pos.push(['section.stiffeners.spacing', s.stiffeners.a]);
+    pos.push(['section.stiffeners.width', s.stiffeners.bs]);
+    pos.push(['section.stiffeners.thickness', s.stiffeners.ts]);
+  }
+  for (const [field, v] of pos) {
+    if (!Number.isFinite(v) || v <= 0) {
+      throw new DomainError('BAD_DIMENSION', `${field} must be a positive number of mm, got ${v}`, 'give plate dimensions in mm', field, { value: v });
+    }
+  }
+  if (s.top.b <= s.tw || s.bot.b <= s.tw) {
+    throw new DomainError('FLANGE_NARROWER_THAN_WEB', 'a flange is not wider than the web', 'flange width must exceed the web thickness', s.top.b <= s.tw ? 'section.topFlange.width' : 'section.bottomFlange.width');
+  }
+}

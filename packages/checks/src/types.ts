@@ -1,0 +1,244 @@
+import type { FySource, GradeName } from '@platesmith/catalogue';
+
+/**
+ * Internal types of the check library. Units throughout: N, mm, N/mm² (MPa), N·mm.
+ * The public JSON (kN, kNm, …) is converted once, at the schema boundary.
+ */
+
+/** A flange plate: width b and thickness t, mm. */
+export interface FlangePlate {
+  b: number;
+  t: number;
+}
+
+/** Intermediate transverse stiffeners: flats of outstand bs × ts (mm) at spacing a (mm), on one or both faces of the web. */
+export interface StiffenerLayout {
+  a: number;
+  bs: number;
+  ts: number;
+  sides: 1 | 2;
+}
+
+/** Bearing stiffeners over supports: double-sided flats bs × ts (mm). A rigid end post has two pairs, e apart (mm). */
+export interface BearingStiffener {
+  bs: number;
+  ts: number;
+  /** rigid end post only: distance between the two pairs, mm (EN 1993-1-5 9.3.1(3): e >= 0.1 hw) */
+  e: number;
+}
+
+export type EndPost = 'rigid' | 'non-rigid';
+
+export interface SectionGrades {
+  web: GradeName;
+  top: GradeName;
+  bot: GradeName;
+  stiffener: GradeName;
+}
+
+/** A welded I-girder section, uniform along the girder. hw is the clear web depth between flanges. */
+export interface Section {
+  hw: number;
+  tw: number;
+  top: FlangePlate;
+  bot: FlangePlate;
+  stiffeners: StiffenerLayout | null;
+  endPost: EndPost;
+  /** bearing stiffeners at supports; resolved by `resolveBearing` when not given */
+  bearing?: BearingStiffener | undefined;
+  grade: SectionGrades;
+}
+
+/**
+ * Coexisting design effects at a station x (mm from the left end).
+ * MEd in N·mm, positive = sagging (top flange in compression). VEd in N (sign kept, magnitude used).
+ * Several entries may share an x: one per combination that can govern there.
+ */
+export interface Station {
+  x: number;
+  MEd: number;
+  VEd: number;
+}
+
+/** A transverse force F (N, design) entering through the top flange with stiff bearing length ss (mm), no stiffener under it. */
+export interface ConcentratedForce {
+  x: number;
+  F: number;
+  ss: number;
+}
+
+/** Design support reaction R (N) at x (mm); carried by the bearing stiffener there. */
+export interface Reaction {
+  x: number;
+  R: number;
+}
+
+/**
+ * SLS deflection demand for one limit. At each point, the deflection is
+ * bend / (E·Iy) + shear / (G·Av): `bend` in N·mm³, `shear` in N·mm, both from the SLS
+ * combination of this limit (already including self-weight where it belongs).
+ */
+export interface SlsDeflection {
+  name: string;
+  /** limit = L / ratio, where L is the span containing x (or 2 × cantilever length) */
+  ratio: number;
+  points: { x: number; bend: number; shear: number }[];
+}
+
+export interface Effects {
+  stations: Station[];
+  forces: ConcentratedForce[];
+  reactions: Reaction[];
+  sls: SlsDeflection[];
+}
+
+export interface Factors {
+  gammaM0: number;
+  gammaM1: number;
+  gammaM2: number;
+}
+
+export type Restraint = { kind: 'continuous' } | { kind: 'at'; at: number[] };
+export type LoadHeight = 'top-flange' | 'shear-centre' | 'bottom-flange';
+
+export interface CheckOptions {
+  factors: Factors;
+  /** EN 1993-1-5 5.1(2) η; 1.2 up to S460 recommended */
+  eta: number;
+  fySource: FySource;
+  /** EN 1993-1-5 8(1) k: 0.3, 0.4 or 0.55; 'auto' = 0.4 when the plastic moment resistance is used, else 0.55 */
+  kFib: number | 'auto';
+  /** support positions, mm, ascending; the first is 0 and the last the girder length */
+  supports: number[];
+  restraint: Restraint;
+  loadHeight: LoadHeight;
+  /** EN 1993-1-1 6.3.2.2 ('general', default) or 6.3.2.3 ('rolled-equivalent', λLT,0 = 0.4, β = 0.75) */
+  ltbMethod: 'general' | 'rolled-equivalent';
+  /** EN 1993-1-1 6.3.2.3(2) modification factor f (only with 'rolled-equivalent') */
+  ltbModification: boolean;
+  /** fillet throat sizes a (mm) to choose from, ascending */
+  weldThroats: number[];
+  /** MPa */
+  E: number;
+  /** MPa */
+  G: number;
+  /** stiff bearing length at supports, mm (for bearing checks) */
+  supportBearingLength: number;
+  /** corner snipe of stiffeners at the web–flange weld, mm */
+  snipe: number;
+}
+
+export type CheckId =
+  | 'classification'
+  | 'bending'
+  | 'shear'
+  | 'shear-buckling'
+  | 'bending-shear'
+  | 'flange-induced-buckling'
+  | 'patch-loading'
+  | 'patch-bending'
+  | 'stiffener-stiffness'
+  | 'stiffener-strength'
+  | 'stiffener-torsion'
+  | 'end-post'
+  | 'bearing-stiffener'
+  | 'lateral-torsional-buckling'
+  | 'deflection'
+  | 'web-flange-weld';
+
+export type CheckValue = number | string | boolean;
+
+/**
+ * One check's verdict (DESIGN.md). Internal units in `values` (N, mm, N·mm, MPa);
+ * the schema converts to kN, kNm at the boundary. A check that does not apply has
+ * applies: false, a reason, utilisation 0 and passes true.
+ */
+export interface CheckResult {
+  id: CheckId;
+  clause: string;
+  applies: boolean;
+  reason?: string;
+  utilisation: number;
+  passes: boolean;
+  /** x (mm) of the governing station, or null for checks not tied to a station */
+  at: number | null;
+  values: Record<string, CheckValue>;
+}
+
+export interface GirderVerdict {
+  passes: boolean;
+  governing: CheckResult;
+  checks: CheckResult[];
+}
+
+/** Strengths and ε of each plate, from its grade and thickness. */
+export interface Material {
+  fyw: number;
+  fyTop: number;
+  fyBot: number;
+  fyStiff: number;
+  fuw: number;
+  fuTop: number;
+  fuBot: number;
+  epsW: number;
+  epsTop: number;
+  epsBot: number;
+  epsStiff: number;
+}
+
+/**
+ * Gross cross-section properties. z is measured upward from the underside of the bottom flange.
+ */
+export interface GrossProps {
+  /** overall depth h = hw + tf,top + tf,bot, mm */
+  h: number;
+  /** distance between flange centroids, mm */
+  hs: number;
+  A: number;
+  Aw: number;
+  /** elastic neutral axis height, mm */
+  zElastic: number;
+  Iy: number;
+  Iz: number;
+  /** Saint-Venant torsion constant Σ b t³ / 3, mm⁴ */
+  It: number;
+  /** warping constant, mm⁶ */
+  Iw: number;
+  /** shear-centre height above the underside, mm */
+  zShear: number;
+  /** second moments of the flanges about z, mm⁴ */
+  IzTop: number;
+  IzBot: number;
+  /** plastic neutral axis height (per-plate fy), mm */
+  zPlastic: number;
+  /** plastic moment Σ fy·|A·z| with each plate at its own fy, N·mm (no partial factor) */
+  Mpl: number;
+  /** elastic moment at first yield of any plate at its own fy, N·mm, for sagging / hogging (the same gross section; kept per sign for symmetry with effective values) */
+  Mel: number;
+}
+
+/** A web panel between two rigid transverse boundaries (supports or stiffeners). */
+export interface Panel {
+  x0: number;
+  x1: number;
+  a: number;
+  /** next to an end support (the end-post type applies) */
+  atEnd: boolean;
+  /** the boundary at x0 / x1 is a support */
+  supportAt0: boolean;
+  supportAt1: boolean;
+}
+
+/** Everything computed once per section and shared by all check families. */
+export interface CheckContext {
+  s: Section;
+  o: CheckOptions;
+  m: Material;
+  g: GrossProps;
+  /** girder length, mm */
+  L: number;
+  panels: Panel[];
+  /** x (mm) of intermediate stiffeners */
+  stiffenerXs: number[];
+  bearing: BearingStiffener;
+}
