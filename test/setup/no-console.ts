@@ -1,5 +1,5 @@
 import { afterEach, beforeEach, vi } from 'vitest';
-import { fc } from '@fast-check/vitest';
+import fc from 'fast-check';
 
 // Stable property-test names and replayable failures.
 fc.configureGlobal({ seed: 20261201 });
