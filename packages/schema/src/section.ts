@@ -1,0 +1,62 @@
+import { z } from 'zod';
+import { GRADES } from '@platesmith/catalogue';
+
+/** A plate dimension in mm: finite, positive, and plausible for a girder plate. */
+export const mm = (what: string, max = 100_000) =>
+  z
+    .number({ error: `${what} must be a number of mm` })
+    .refine(Number.isFinite, { message: `${what} must be finite` })
+    .refine((v) => v > 0, { message: `${what} must be positive (mm)` })
+    .refine((v) => v <= max, { message: `${what} over ${max} mm is not a girder plate; lengths are in mm` })
+    .meta({ description: `${what}, mm` });
+
+export const Grade = z.enum(GRADES as unknown as [string, ...string[]]).meta({
+  description: 'steel grade (EN 10025-2: S235, S275, S355; EN 10025-4: S420, S460)',
+});
+
+export const Plate = (what: string) =>
+  z.strictObject({
+    width: mm(`${what} width`, 3000),
+    thickness: mm(`${what} thickness`, 150),
+  });
+
+export const Web = z.strictObject({
+  depth: mm('web depth hw (clear, between flanges)', 10_000),
+  thickness: mm('web thickness tw', 150),
+});
+
+export const Stiffeners = z
+  .strictObject({
+    spacing: mm('stiffener spacing a', 100_000),
+    width: mm('stiffener flat outstand bs', 1000),
+    thickness: mm('stiffener flat thickness ts', 150),
+    sides: z.union([z.literal(1), z.literal(2)]).default(2).meta({ description: 'flats on one or both faces of the web' }),
+  })
+  .meta({ description: 'intermediate transverse stiffeners (full web depth)' });
+
+export const Bearing = z
+  .strictObject({
+    width: mm('bearing stiffener outstand', 1000),
+    thickness: mm('bearing stiffener thickness', 150),
+    spacing: mm('distance e between the two pairs of a rigid end post', 5000).optional(),
+  })
+  .meta({ description: 'bearing stiffeners at supports (double-sided); default from the stiffener flats or the flange outstand' });
+
+export const GradeSpec = z.union([
+  Grade,
+  z.strictObject({ web: Grade, flanges: Grade, stiffeners: Grade.optional() }).meta({ description: 'hybrid girder: web and flange grades' }),
+]);
+
+export const SectionJson = z
+  .strictObject({
+    web: Web,
+    topFlange: Plate('top flange'),
+    bottomFlange: Plate('bottom flange'),
+    stiffeners: Stiffeners.nullable().default(null),
+    endPost: z.enum(['rigid', 'non-rigid']).default('rigid').meta({ description: 'EN 1993-1-5 5.3 / 9.3.1 end-post type' }),
+    bearing: Bearing.optional(),
+    grade: GradeSpec.default('S355'),
+  })
+  .meta({ id: 'Section', description: 'welded I-girder section; all dimensions mm' });
+
+export type SectionJson = z.output<typeof SectionJson>;

@@ -1,0 +1,54 @@
+import { CAUTION, SCOPE, type PublishedCheck, type PublishedVerdict } from '@platesmith/schema';
+import { fmt, table } from './table.js';
+
+/** The values a reader wants first for each check (others stay in --json). */
+const KEY_VALUES: Record<string, string[]> = {
+  classification: ['sectionClass', 'flangeClass', 'webClass'],
+  bending: ['McRd', 'sectionClass'],
+  shear: ['VplRd'],
+  'shear-buckling': ['lambdaW', 'chiW', 'VbRd'],
+  'bending-shear': ['eta1', 'eta3'],
+  'flange-induced-buckling': ['ratio', 'limit'],
+  'patch-loading': ['FRd'],
+  'patch-bending': [],
+  'stiffener-stiffness': ['Ist', 'IstMin'],
+  'stiffener-strength': ['NEd', 'NbRd'],
+  'stiffener-torsion': ['ItOverIp', 'limit'],
+  'end-post': ['Ast', 'AstMin'],
+  'bearing-stiffener': ['R', 'NbRd'],
+  'lateral-torsional-buckling': ['Mcr', 'chiLT', 'MbRd'],
+  deflection: ['delta', 'limit'],
+  'web-flange-weld': ['throat'],
+};
+
+function keyValues(c: PublishedCheck): string {
+  if (!c.applies) return c.reason ?? '';
+  return (KEY_VALUES[c.id] ?? [])
+    .filter((k) => c.values[k] !== undefined)
+    .map((k) => {
+      const v = c.values[k]!;
+      return `${k} ${typeof v === 'number' ? fmt(v, 4) : String(v)}`;
+    })
+    .join(', ');
+}
+
+export function renderChecks(v: PublishedVerdict): string {
+  const rows = v.checks.map((c) => [
+    c.id,
+    c.clause,
+    c.applies ? (c.utilisation === null ? 'inf' : c.utilisation.toFixed(3)) : '-',
+    c.applies ? (c.passes ? 'ok' : 'FAILS') : 'n/a',
+    c.at === null ? '' : String(Math.round(c.at)),
+    keyValues(c),
+  ]);
+  const g = v.governing;
+  return [
+    table(['check', 'clause', 'util.', 'result', 'at x (mm)', 'key values (kN, kNm, mm)'], rows, ['l', 'l', 'r', 'l', 'r', 'l']),
+    '',
+    `${v.passes ? 'PASSES' : 'FAILS'} — governing: ${g.id} (${g.clause}), utilisation ${g.utilisation === null ? 'inf' : g.utilisation.toFixed(3)}${g.at === null ? '' : ` at x = ${Math.round(g.at)} mm`}`,
+  ].join('\n');
+}
+
+export function caution(): string {
+  return `Caution: ${CAUTION}\n${SCOPE}`;
+}
