@@ -1,6 +1,6 @@
-import { DomainError } from '@platesmith/catalogue';
+import { DomainError, fy } from '@platesmith/catalogue';
 import { assertSection, grossProps, material, panelsOf, resolveBearing } from './section.js';
-import type { CheckContext, CheckOptions, Section } from './types.js';
+import type { BearingStiffener, CheckContext, CheckOptions, Section } from './types.js';
 
 /** Everything the check families share, computed once per section. */
 export function prepare(s: Section, o: CheckOptions): CheckContext {
@@ -13,6 +13,12 @@ export function prepare(s: Section, o: CheckOptions): CheckContext {
   const g = grossProps(s, m);
   const L = sup[sup.length - 1]! - sup[0]!;
   const { panels, stiffenerXs } = panelsOf(sup, s.stiffeners?.a ?? null);
-  const bearing = resolveBearing(s, m.fyStiff);
-  return { s, o, m, g, L, panels, stiffenerXs, bearing };
+  const ctx: CheckContext = { s, o, m, g, L, panels, stiffenerXs, bearing: resolveBearing(s, m.fyStiff) };
+  return withBearing(ctx, ctx.bearing);
+}
+
+/** The same context with other bearing stiffeners (their fy from their own thickness band). */
+export function withBearing(ctx: CheckContext, bearing: BearingStiffener): CheckContext {
+  const fyBearing = fy(ctx.s.grade.stiffener, bearing.ts, ctx.o.fySource, 'section.bearing.thickness');
+  return { ...ctx, bearing, m: { ...ctx.m, fyBearing } };
 }

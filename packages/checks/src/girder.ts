@@ -1,9 +1,10 @@
-import { prepare } from './context.js';
+import { withBearing, prepare } from './context.js';
+import { sizeBearing } from './bearing-sizing.js';
 import { bendingChecks } from './en1993-1-1/bending-family.js';
 import { shearChecks } from './en1993-1-5/shear-family.js';
 import type { CheckOptions, CheckResult, Effects, GirderVerdict, Section } from './types.js';
 
-/** The order in which checks are reported (DESIGN.md check ids). */
+/** The order in which checks are reported (check ids are a public contract). */
 export const CHECK_ORDER = [
   'classification',
   'bending',
@@ -23,19 +24,23 @@ export const CHECK_ORDER = [
   'web-flange-weld',
 ] as const;
 
+const RANK = new Map<string, number>(CHECK_ORDER.map((id, i) => [id, i]));
+
 /**
  * Every check of the library for one section under the design effects given.
- * `governing` is the applicable check of highest utilisation (the first failing one wins ties).
+ * Bearing stiffeners not given with the section are sized first (see sizeBearing).
+ * `governing` is the applicable check of highest utilisation (the earlier in CHECK_ORDER wins ties).
  */
 export function checkGirder(section: Section, effects: Effects, options: CheckOptions): GirderVerdict {
-  const ctx = prepare(section, options);
+  const ctx0 = prepare(section, options);
+  const sized = section.bearing === undefined;
+  const ctx = sized ? withBearing(ctx0, sizeBearing(ctx0, effects)) : ctx0;
   const all: CheckResult[] = [...bendingChecks(ctx, effects), ...shearChecks(ctx, effects)];
-  const rank = new Map<string, number>(CHECK_ORDER.map((id, i) => [id, i]));
-  all.sort((p, q) => rank.get(p.id)! - rank.get(q.id)!);
+  all.sort((p, q) => RANK.get(p.id)! - RANK.get(q.id)!);
   let governing = all[0]!;
   for (const c of all) {
     if (!c.applies) continue;
     if (!governing.applies || c.utilisation > governing.utilisation) governing = c;
   }
-  return { passes: all.every((c) => c.passes), governing, checks: all };
+  return { passes: all.every((c) => c.passes), governing, checks: all, bearing: ctx.bearing, bearingSized: sized };
 }

@@ -1,6 +1,7 @@
 export type * from './types.js';
 export { checkGirder, CHECK_ORDER } from './girder.js';
-export { prepare } from './context.js';
+export { prepare, withBearing } from './context.js';
+export { sizeBearing, lightestFittingBearing } from './bearing-sizing.js';
 export { defaultOptions, FACTOR_SETS, E_STEEL, G_STEEL } from './options.js';
 export {
   epsilon,
@@ -23,3 +24,48 @@ export {
 } from './section.js';
 export { chi, ALPHA, type BucklingCurve } from './en1993-1-1/buckling-curves.js';
 export { notApplicable, verdict } from './result.js';
+
+// search bounds (each with a property test: a section beyond the bound fails the full check)
+export { minWebAreaForShear, webShearCapacityBound } from './en1993-1-5/shear-bounds.js';
+export { minFlangeForceForBending, minFlangeAreaForBending, maxCompressionFlangeAreaFIB } from './bending-bounds.js';
+
+// EN 1993-1-5 shear family: pure functions beneath the checks
+export {
+  shearChecks,
+  shearCheck,
+  shearBucklingCheck,
+  bendingShearCheck,
+  stiffenerStiffnessCheck,
+  stiffenerStrengthCheck,
+  stiffenerTorsionCheck,
+  endPostCheck,
+  bearingStiffenerCheck,
+} from './en1993-1-5/shear-family.js';
+export {
+  kTau,
+  lambdaW,
+  lambdaWSupportsOnly,
+  chiW,
+  vbwRd,
+  vbRdCap,
+  flangeC,
+  vbfRd,
+  vbRd,
+  shearBucklingLimit,
+  weakerFlange,
+} from './en1993-1-5/shear-buckling.js';
+export { shearArea, vplRd } from './en1993-1-5/shear-plastic.js';
+export { interaction71, rho628 } from './en1993-1-5/interaction.js';
+export { stiffenerSection, stiffenerIstMin, stiffenerAxialForce, strutResistance, flatTorsion } from './en1993-1-5/stiffeners.js';
+export { rigidEndPost, bearingCrushing } from './en1993-1-5/end-post.js';
+
+// EN 1993-1-1 bending family and the clauses beneath it
+export { bendingChecks } from './en1993-1-1/bending-family.js';
+export { classifyOutstand, classifyWebBending, classifyWebBendingCompression, classifyInternalCompression, classifySection } from './en1993-1-1/classification.js';
+export { bendingForSign, envelopeAt, wplDoublySymmetric, iyDoublySymmetric, signsOf } from './en1993-1-1/bending.js';
+export { kSigmaInternal, kSigmaOutstand, lambdaP, rhoInternal, rhoOutstand, internalEffectiveWidths, effectiveSection } from './en1993-1-5/effective-section.js';
+export { kF, patchResistance, patchBendingInteraction, type PatchType, type PatchInput, type PatchResult } from './en1993-1-5/patch-loading.js';
+export { fibLimit, kFibFor } from './en1993-1-5/flange-induced.js';
+export { mcr, chiLT, chiLTGeneral, momentFactors, c1EndMoments, kcEndMoments, ltbCurveWelded } from './en1993-1-1/ltb.js';
+export { fvwd, fwRd, shearFlow, pickThroat } from './en1993-1-8/weld.js';
+export { deflection, unitLoadIntegrals } from './sls/deflection.js';

@@ -1,4 +1,4 @@
-import { WELD_THROATS } from '@platesmith/catalogue';
+import { FLAT_BARS, WELD_THROATS } from '@platesmith/catalogue';
 import type { CheckOptions, Factors } from './types.js';
 
 /**
@@ -33,6 +33,7 @@ export function defaultOptions(L: number, overrides: Partial<CheckOptions> = {})
     G: G_STEEL,
     supportBearingLength: 100,
     snipe: 20,
+    bearingFlats: FLAT_BARS.map((f) => ({ b: f.b, t: f.t })),
     ...overrides,
   };
 }

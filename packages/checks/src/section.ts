@@ -35,11 +35,13 @@ export function material(s: Section, o: Pick<CheckOptions, 'fySource'>): Materia
   const fyBot = fy(s.grade.bot, s.bot.t, src, 'section.bottomFlange.thickness');
   const tStiff = s.stiffeners?.ts ?? s.bearing?.ts ?? s.tw;
   const fyStiff = fy(s.grade.stiffener, tStiff, src, 'section.stiffeners.thickness');
+  const fyBearing = s.bearing ? fy(s.grade.stiffener, s.bearing.ts, src, 'section.bearing.thickness') : fyStiff;
   return {
     fyw,
     fyTop,
     fyBot,
     fyStiff,
+    fyBearing,
     fuw: fu(s.grade.web, s.tw, src),
     fuTop: fu(s.grade.top, s.top.t, src),
     fuBot: fu(s.grade.bot, s.bot.t, src),

@@ -126,6 +126,8 @@ export interface CheckOptions {
   supportBearingLength: number;
   /** corner snipe of stiffeners at the web–flange weld, mm */
   snipe: number;
+  /** flats to size bearing stiffeners from when the section does not give them (double-sided) */
+  bearingFlats: { b: number; t: number }[];
 }
 
 export type CheckId =
@@ -169,6 +171,10 @@ export interface GirderVerdict {
   passes: boolean;
   governing: CheckResult;
   checks: CheckResult[];
+  /** the bearing stiffeners checked: as given, or as sized from options.bearingFlats */
+  bearing: BearingStiffener;
+  /** true when the bearing stiffeners were sized by the library */
+  bearingSized: boolean;
 }
 
 /** Strengths and ε of each plate, from its grade and thickness. */
@@ -177,6 +183,8 @@ export interface Material {
   fyTop: number;
   fyBot: number;
   fyStiff: number;
+  /** bearing-stiffener flats (their own thickness band) */
+  fyBearing: number;
   fuw: number;
   fuTop: number;
   fuBot: number;

@@ -1,5 +1,213 @@
-import type { CheckContext, CheckResult, Effects } from '../types.js';
-// PLACEHOLDER — being written (shear, shear buckling, interaction, stiffeners, end post).
-export function shearChecks(_ctx: CheckContext, _e: Effects): CheckResult[] {
-  return [];
+import { notApplicable, verdict } from '../result.js';
+import type { CheckContext, CheckResult, Effects, Station } from '../types.js';
+import { bearingStiffenerAt, rigidEndPost } from './end-post.js';
+import { stationInteraction628, stationInteraction71, type StationInteraction } from './interaction.js';
+import { panelShear, stationShear, stationsIn, type PanelShear, type StationShear } from './shear-buckling.js';
+import { shearArea, vplRd } from './shear-plastic.js';
+import { flatTorsion, siteSection, siteStrength, stiffenerIstMin, stiffenerSites } from './stiffeners.js';
+
+/**
+ * The EN 1993-1-5 shear family: one result per id, in this order: 'shear', 'shear-buckling',
+ * 'bending-shear', 'stiffener-stiffness', 'stiffener-strength', 'stiffener-torsion', 'end-post',
+ * 'bearing-stiffener'. Each is the worst station / panel / stiffener; `at` its x (mm).
+ */
+export function shearChecks(ctx: CheckContext, e: Effects): CheckResult[] {
+  const panels = panelShear(ctx);
+  return [
+    shearCheck(ctx, e.stations),
+    shearBucklingCheck(ctx, panels, e.stations),
+    bendingShearCheck(ctx, panels, e.stations),
+    stiffenerStiffnessCheck(ctx),
+    stiffenerStrengthCheck(ctx, e.stations),
+    stiffenerTorsionCheck(ctx),
+    endPostCheck(ctx),
+    bearingStiffenerCheck(ctx, e),
+  ];
+}
+
+const NO_STATIONS = 'no design effects given';
+
+/** EN 1993-1-1 6.2.6: |VEd| ≤ Vpl,Rd = η hw tw fyw/(√3 γM0). */
+export function shearCheck(ctx: CheckContext, stations: readonly Station[]): CheckResult {
+  const { s, o, m } = ctx;
+  const clause = 'EN 1993-1-1 6.2.6';
+  const Av = shearArea(s.hw, s.tw, o.eta);
+  const VplRd = vplRd(s.hw, s.tw, m.fyw, o.eta, o.factors.gammaM0);
+  if (stations.length === 0) return notApplicable('shear', clause, NO_STATIONS, { Av, VplRd });
+  let worst = stations[0]!;
+  for (const st of stations) if (Math.abs(st.VEd) > Math.abs(worst.VEd)) worst = st;
+  return verdict('shear', clause, Math.abs(worst.VEd) / VplRd, worst.x, { Av, VplRd, VEd: Math.abs(worst.VEd) });
+}
+
+/** EN 1993-1-5 5.2–5.5: every panel that 5.1(2) requires, at every station in it. */
+export function shearBucklingCheck(ctx: CheckContext, panels: readonly PanelShear[], stations: readonly Station[]): CheckResult {
+  const { s } = ctx;
+  const clause = 'EN 1993-1-5 5.2';
+  const needed = panels.filter((p) => p.needed);
+  const hwOverTw = s.hw / s.tw;
+  if (needed.length === 0) {
+    const limit = Math.min(...panels.map((p) => p.limit));
+    const rule = s.stiffeners ? '31ε√kτ/η' : '72ε/η';
+    return notApplicable('shear-buckling', 'EN 1993-1-5 5.1(2)', `hw/tw = ${hwOverTw.toFixed(1)} ≤ ${rule} = ${limit.toFixed(1)}: no shear buckling check required`, { hwOverTw, limit });
+  }
+  if (stations.length === 0) return notApplicable('shear-buckling', clause, NO_STATIONS);
+  let best: { ps: PanelShear; r: StationShear } | null = null;
+  for (const ps of needed) {
+    for (const st of stationsIn(stations, ps.panel.x0, ps.panel.x1)) {
+      const r = stationShear(ctx, ps, st);
+      if (best === null || r.utilisation > best.r.utilisation) best = { ps, r };
+    }
+  }
+  if (best === null) return notApplicable('shear-buckling', clause, NO_STATIONS);
+  const { ps, r } = best;
+  return verdict('shear-buckling', clause, r.utilisation, r.station.x, {
+    kTau: ps.kTau,
+    lambdaW: ps.lambdaW,
+    chiW: ps.chiW,
+    VbwRd: ps.VbwRd,
+    VbfRd: r.VbfRd,
+    VbRd: r.VbRd,
+    a: ps.panel.a,
+    endPost: ps.endPost,
+    c: r.c,
+    MfRd: r.MfRd,
+    VEd: Math.abs(r.station.VEd),
+    MEd: r.station.MEd,
+    hwOverTw,
+    limit: ps.limit,
+  });
+}
+
+/** EN 1993-1-5 7.1 where the panel needs 5.1(2), else EN 1993-1-1 6.2.8. */
+export function bendingShearCheck(ctx: CheckContext, panels: readonly PanelShear[], stations: readonly Station[]): CheckResult {
+  if (stations.length === 0) return notApplicable('bending-shear', 'EN 1993-1-5 7.1', NO_STATIONS);
+  let worst: StationInteraction | null = null;
+  for (const st of stations) {
+    const own = panels.filter((p) => st.x >= p.panel.x0 - 1e-9 && st.x <= p.panel.x1 + 1e-9);
+    const candidates: StationInteraction[] = [];
+    for (const ps of own.length > 0 ? own : panels) {
+      candidates.push(ps.needed ? stationInteraction71(ctx, ps, st) : stationInteraction628(ctx, st));
+    }
+    for (const c of candidates) {
+      if (!c.required) continue;
+      if (worst === null || c.utilisation > worst.utilisation) worst = c;
+    }
+  }
+  if (worst === null) {
+    const anyNeeded = panels.some((p) => p.needed);
+    return notApplicable(
+      'bending-shear',
+      anyNeeded ? 'EN 1993-1-5 7.1' : 'EN 1993-1-1 6.2.8',
+      anyNeeded
+        ? 'η̄3 ≤ 0.5 or η̄1 < Mf,Rd/Mpl,Rd at every station beyond hw/2 of a support: no interaction (7.1(1), 7.1(5))'
+        : 'VEd ≤ 0.5 Vpl,Rd at every station: no reduction (EN 1993-1-1 6.2.8(2))',
+    );
+  }
+  const values: Record<string, number> = { MfRd: worst.MfRd, MplRd: worst.MplRd, eta1: worst.eta1, eta3: worst.eta3 };
+  if (worst.clause === 'EN 1993-1-1 6.2.8') {
+    values['rho'] = worst.rho;
+    values['MVRd'] = worst.MVRd;
+  }
+  return verdict('bending-shear', worst.clause, worst.utilisation, worst.station.x, values);
+}
+
+/** EN 1993-1-5 9.3.3(3) eq. 9.6 at every intermediate stiffener (a = the shorter adjacent panel). */
+export function stiffenerStiffnessCheck(ctx: CheckContext): CheckResult {
+  const clause = 'EN 1993-1-5 9.3.3(3)';
+  const st = ctx.s.stiffeners;
+  if (!st) return notApplicable('stiffener-stiffness', clause, 'no intermediate transverse stiffeners');
+  const sites = stiffenerSites(ctx);
+  if (sites.length === 0) return notApplicable('stiffener-stiffness', clause, 'stiffener spacing leaves no intermediate stiffener in any span');
+  let best: CheckResult | null = null;
+  for (const site of sites) {
+    const sec = siteSection(ctx, site);
+    const a = Math.min(site.a1, site.a2);
+    const IstMin = stiffenerIstMin(a, ctx.s.hw, ctx.s.tw);
+    const r = verdict('stiffener-stiffness', clause, IstMin / sec.I, site.x, {
+      Ist: sec.I,
+      IstMin,
+      a,
+      axis: st.sides === 2 ? 'web mid-plane' : 'centroid of the effective section',
+    });
+    if (best === null || r.utilisation > best.utilisation) best = r;
+  }
+  return best!;
+}
+
+/** EN 1993-1-5 9.3.3(3) eq. 9.7 with a strut check (EN 1993-1-1 6.3.1, curve c, Lcr = 0.75 hw, 9.4(2)). */
+export function stiffenerStrengthCheck(ctx: CheckContext, stations: readonly Station[]): CheckResult {
+  const clause = 'EN 1993-1-5 9.3.3(3)';
+  if (!ctx.s.stiffeners) return notApplicable('stiffener-strength', clause, 'no intermediate transverse stiffeners');
+  const sites = stiffenerSites(ctx);
+  if (sites.length === 0) return notApplicable('stiffener-strength', clause, 'stiffener spacing leaves no intermediate stiffener in any span');
+  if (stations.length === 0) return notApplicable('stiffener-strength', clause, NO_STATIONS);
+  let best: CheckResult | null = null;
+  for (const site of sites) {
+    const r = siteStrength(ctx, site, stations);
+    const res = verdict('stiffener-strength', clause, r.NEd / r.NbRd, site.x, {
+      NEd: r.NEd,
+      NbRd: r.NbRd,
+      chi: r.chi,
+      lambdaBar: r.lambdaBar,
+      VEd: r.VEd,
+      lambdaWRemoved: r.lambdaWRemoved,
+      A: r.A,
+    });
+    if (best === null || res.utilisation > best.utilisation) best = res;
+  }
+  return best!;
+}
+
+/** EN 1993-1-5 9.2.1(8) eq. 9.3 for the intermediate stiffener flats and the bearing stiffener flats. */
+export function stiffenerTorsionCheck(ctx: CheckContext): CheckResult {
+  const clause = 'EN 1993-1-5 9.2.1(8)';
+  const { s, o, m } = ctx;
+  const cases: { which: string; bs: number; ts: number; at: number | null }[] = [];
+  if (s.stiffeners) cases.push({ which: 'intermediate', bs: s.stiffeners.bs, ts: s.stiffeners.ts, at: ctx.stiffenerXs[0] ?? null });
+  cases.push({ which: 'bearing', bs: ctx.bearing.bs, ts: ctx.bearing.ts, at: o.supports[0] ?? null });
+  let best: CheckResult | null = null;
+  for (const c of cases) {
+    const t = flatTorsion(c.bs, c.ts, c.which === 'bearing' ? m.fyBearing : m.fyStiff, o.E);
+    const r = verdict('stiffener-torsion', clause, t.limit / t.ItOverIp, c.at, { ItOverIp: t.ItOverIp, limit: t.limit, stiffener: c.which });
+    if (best === null || r.utilisation > best.utilisation) best = r;
+  }
+  return best!;
+}
+
+/** EN 1993-1-5 9.3.1: rigid end post geometry and area; a non-rigid end post is the bearing stiffener. */
+export function endPostCheck(ctx: CheckContext): CheckResult {
+  const clause = 'EN 1993-1-5 9.3.1';
+  if (ctx.s.endPost === 'non-rigid') {
+    return notApplicable('end-post', clause, 'non-rigid end post: one bearing stiffener, checked under bearing-stiffener; χw uses the non-rigid column');
+  }
+  const r = rigidEndPost(ctx.s.hw, ctx.s.tw, ctx.bearing);
+  return verdict('end-post', clause, r.utilisation, ctx.o.supports[0] ?? 0, {
+    e: r.e,
+    eMin: r.eMin,
+    Ast: r.Ast,
+    AstMin: r.AstMin,
+    scope: 'e and stiffener area only (9.3.1(3)-(4)); the end post as a short beam resisting the tension-field anchorage force (9.3.1(2)) is not checked',
+  });
+}
+
+/** EN 1993-1-5 9.4 (column, curve c, Lcr = 0.75 hw) and bearing of the sniped flats, at every reaction. */
+export function bearingStiffenerCheck(ctx: CheckContext, e: Effects): CheckResult {
+  const clause = 'EN 1993-1-5 9.4';
+  if (e.reactions.length === 0) return notApplicable('bearing-stiffener', clause, 'no support reactions given');
+  let best: CheckResult | null = null;
+  for (const reaction of e.reactions) {
+    const r = bearingStiffenerAt(ctx, reaction);
+    const res = verdict('bearing-stiffener', clause, r.utilisation, reaction.x, {
+      R: r.R,
+      NbRd: r.NbRd,
+      chi: r.chi,
+      lambdaBar: r.lambdaBar,
+      A: r.A,
+      Abearing: r.Abearing,
+      FbRd: r.FbRd,
+      support: r.endPost,
+    });
+    if (best === null || res.utilisation > best.utilisation) best = res;
+  }
+  return best!;
 }

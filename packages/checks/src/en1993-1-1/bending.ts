@@ -1,0 +1,134 @@
+import type { FlangeSide } from '../section.js';
+import type { CheckContext, CheckResult, CheckValue, Effects, Station } from '../types.js';
+import { verdict } from '../result.js';
+import { effectiveSection, type EffectiveSection } from '../en1993-1-5/effective-section.js';
+import { classifySection, type SectionClassification } from './classification.js';
+
+/**
+ * Bending resistance of the cross-section, EN 1993-1-1:2005 6.2.5 (eqs. 6.12–6.15), with the
+ * effective section of EN 1993-1-5:2006 4.3/4.4 for Class 4. Units: N·mm, mm, MPa.
+ */
+
+/** Plastic section modulus of a doubly symmetric welded I (mm³): Wpl,y = bf tf (hw + tf) + tw hw²/4. */
+export function wplDoublySymmetric(hw: number, tw: number, bf: number, tf: number): number {
+  return bf * tf * (hw + tf) + (tw * hw * hw) / 4;
+}
+
+/** Second moment of area of a doubly symmetric welded I (mm⁴). */
+export function iyDoublySymmetric(hw: number, tw: number, bf: number, tf: number): number {
+  return 2 * ((bf * tf ** 3) / 12 + bf * tf * ((hw + tf) / 2) ** 2) + (tw * hw ** 3) / 12;
+}
+
+/** EN 1993-1-1 6.2.5(2): Mc,Rd = W fy / γM0 with W = Wpl (Class 1, 2), Wel,min (3), Weff,min (4). */
+export function mcRd(W: number, fy: number, gammaM0: number): number {
+  return (W * fy) / gammaM0;
+}
+
+export interface SignBending {
+  side: FlangeSide;
+  cls: SectionClassification;
+  MplRd: number;
+  MelRd: number;
+  McRd: number;
+  /** resistance used is plastic (Class 1 or 2) */
+  plastic: boolean;
+  eff: EffectiveSection | null;
+}
+
+/**
+ * Bending resistance for one sign. Class 1–2: Mpl,Rd (each plate at its own fy, gross plastic
+ * stress blocks); Class 3: Mel,Rd (first yield of any plate at its own fy); Class 4: Meff,Rd, first
+ * yield of any plate of the effective section. The "effective Class 2" web of EN 1993-1-1 6.2.2.4
+ * (Class 3 web, Class 1–2 flanges) is not used: Class 3 takes Mel,Rd, which is conservative.
+ */
+export function bendingForSign(ctx: CheckContext, side: FlangeSide): SignBending {
+  const g0 = ctx.o.factors.gammaM0;
+  const cls = classifySection(ctx, side);
+  const MplRd = ctx.g.Mpl / g0;
+  const MelRd = ctx.g.Mel / g0;
+  if (cls.sectionClass <= 2) return { side, cls, MplRd, MelRd, McRd: MplRd, plastic: true, eff: null };
+  if (cls.sectionClass === 3) return { side, cls, MplRd, MelRd, McRd: MelRd, plastic: false, eff: null };
+  const eff = effectiveSection(ctx.s, ctx.m, side, cls.throat);
+  return { side, cls, MplRd, MelRd, McRd: eff.Meff / g0, plastic: false, eff };
+}
+
+/** Signs of moment that occur among the stations (sagging if none is non-zero). */
+export function signsOf(stations: readonly Station[]): FlangeSide[] {
+  const sides: FlangeSide[] = [];
+  if (stations.some((st) => st.MEd > 0)) sides.push('top');
+  if (stations.some((st) => st.MEd < 0)) sides.push('bot');
+  return sides.length > 0 ? sides : ['top'];
+}
+
+export function sideName(side: FlangeSide): 'sagging' | 'hogging' {
+  return side === 'top' ? 'sagging' : 'hogging';
+}
+
+/** 'bending': utilisation max |MEd| / Mc,Rd over the stations, each sign with its own Mc,Rd. */
+export function bendingCheck(ctx: CheckContext, e: Effects, per: ReadonlyMap<FlangeSide, SignBending>): CheckResult {
+  const clause = 'EN 1993-1-1 6.2.5; EN 1993-1-5 4.3, 4.4';
+  let worst = { u: 0, at: null as number | null, side: 'top' as FlangeSide };
+  for (const st of e.stations) {
+    const side: FlangeSide = st.MEd > 0 ? 'top' : st.MEd < 0 ? 'bot' : [...per.keys()][0]!;
+    const b = per.get(side)!;
+    const u = Math.abs(st.MEd) / b.McRd;
+    if (u > worst.u || worst.at === null) worst = { u, at: st.x, side };
+  }
+  const gov = per.get(worst.side) ?? [...per.values()][0]!;
+  const values: Record<string, CheckValue> = {
+    sectionClass: gov.cls.sectionClass,
+    sign: sideName(gov.side),
+    McRd: gov.McRd,
+    MplRd: gov.MplRd,
+    MelRd: gov.MelRd,
+  };
+  if (gov.eff) {
+    values.MeffRd = gov.McRd;
+    values.Weff = gov.eff.Weff;
+    values.Aeff = gov.eff.Aeff;
+    values.Ieff = gov.eff.Ieff;
+    values.zEff = gov.eff.zEff;
+    values.rhoFlange = gov.eff.rhoFlange;
+    values.psiWeb = gov.eff.psiWeb;
+    values.rhoWeb = gov.eff.web.rho;
+    values.effectiveWebProcedure = 'one step: psi from effective compression flange and gross web (EN 1993-1-5 4.4(3))';
+  }
+  for (const [side, b] of per) {
+    const n = sideName(side);
+    values[`McRd_${n}`] = b.McRd;
+    values[`sectionClass_${n}`] = b.cls.sectionClass;
+  }
+  values.MEdMax = Math.max(0, ...e.stations.map((st) => Math.abs(st.MEd)));
+  return verdict('bending', clause, worst.u, worst.at, values);
+}
+
+/**
+ * Envelope value at x from stations that may repeat an x (one entry per combination):
+ * at each x the entry of largest |value| is kept (sign kept), and the two stations
+ * bracketing x are interpolated linearly. Returns the interpolated value and, for shear-like
+ * quantities that jump, the larger |value| of the bracketing stations.
+ */
+export function envelopeAt(stations: readonly Station[], x: number, pick: (s: Station) => number): { value: number; maxAbsNear: number } {
+  if (stations.length === 0) return { value: 0, maxAbsNear: 0 };
+  const byX = new Map<number, number[]>();
+  for (const st of stations) {
+    const arr = byX.get(st.x);
+    if (arr) arr.push(pick(st));
+    else byX.set(st.x, [pick(st)]);
+  }
+  const xs = [...byX.keys()].sort((p, q) => p - q);
+  const gov = (v: number[]): number => v.reduce((a, b) => (Math.abs(b) > Math.abs(a) ? b : a), 0);
+  const maxAbs = (v: number[]): number => Math.max(...v.map(Math.abs));
+  if (x <= xs[0]!) return { value: gov(byX.get(xs[0]!)!), maxAbsNear: maxAbs(byX.get(xs[0]!)!) };
+  const last = xs[xs.length - 1]!;
+  if (x >= last) return { value: gov(byX.get(last)!), maxAbsNear: maxAbs(byX.get(last)!) };
+  let i = 0;
+  while (xs[i + 1]! < x) i++;
+  const x0 = xs[i]!;
+  const x1 = xs[i + 1]!;
+  const v0 = byX.get(x0)!;
+  const v1 = byX.get(x1)!;
+  if (x1 === x) return { value: gov(v1), maxAbsNear: maxAbs(v1) };
+  const t = (x - x0) / (x1 - x0);
+  return { value: gov(v0) + t * (gov(v1) - gov(v0)), maxAbsNear: Math.max(maxAbs(v0), maxAbs(v1)) };
+}

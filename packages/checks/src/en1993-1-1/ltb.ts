@@ -1,0 +1,292 @@
+import { chi, type BucklingCurve, ALPHA } from './buckling-curves.js';
+import type { FlangeSide } from '../section.js';
+import type { CheckContext, CheckResult, CheckValue, Effects, Station } from '../types.js';
+import { notApplicable, verdict } from '../result.js';
+import { envelopeAt, type SignBending } from './bending.js';
+
+/**
+ * Lateral-torsional buckling of a welded (mono-)symmetric I-beam, EN 1993-1-1:2005 6.3.2.
+ * Units: mm, mm⁴, mm⁶, MPa, N·mm.
+ */
+
+export interface McrInput {
+  E: number;
+  G: number;
+  /** second moment about the weak axis, mm⁴ */
+  Iz: number;
+  /** St Venant torsion constant, mm⁴ */
+  It: number;
+  /** warping constant, mm⁶ */
+  Iw: number;
+  /** length between lateral restraints, mm */
+  L: number;
+  C1: number;
+  C2?: number;
+  C3?: number;
+  /** load point above the shear centre, mm, positive when destabilising */
+  zg?: number;
+  /** mono-symmetry parameter, mm, positive when the larger flange is in compression */
+  zj?: number;
+  k?: number;
+  kw?: number;
+}
+
+/**
+ * Elastic critical moment by the three-factor formula (ENV 1993-1-1 Annex F eq. F.2; Access Steel
+ * NCCI SN003 eq. (1) for zj = 0):
+ * Mcr = C1 π²EIz/(kL)² {√[(k/kw)² Iw/Iz + (kL)² G It/(π² E Iz) + (C2 zg − C3 zj)²] − (C2 zg − C3 zj)}.
+ */
+export function mcr(p: McrInput): number {
+  const k = p.k ?? 1;
+  const kw = p.kw ?? 1;
+  const kL = k * p.L;
+  const a = (p.C2 ?? 0) * (p.zg ?? 0) - (p.C3 ?? 0) * (p.zj ?? 0);
+  const base = (p.C1 * Math.PI ** 2 * p.E * p.Iz) / (kL * kL);
+  const root = Math.sqrt((k / kw) ** 2 * (p.Iw / p.Iz) + (kL * kL * p.G * p.It) / (Math.PI ** 2 * p.E * p.Iz) + a * a);
+  return base * (root - a);
+}
+
+/** EN 1993-1-1 6.3.2.2(1) eq. 6.56 (general case): χLT from the column curves, λ̄LT,0 = 0.2 plateau. */
+export function chiLTGeneral(lambdaLT: number, curve: BucklingCurve): { chiLT: number; phiLT: number } {
+  const r = chi(lambdaLT, curve);
+  return { chiLT: r.chi, phiLT: r.phi };
+}
+
+/**
+ * EN 1993-1-1 6.3.2.3(1) eq. 6.57: ΦLT = 0.5[1 + αLT(λ̄LT − λ̄LT,0) + β λ̄LT²],
+ * χLT = 1/(ΦLT + √(ΦLT² − β λ̄LT²)) ≤ 1 and ≤ 1/λ̄LT². Recommended λ̄LT,0 = 0.4, β = 0.75 (NA choices).
+ * 6.3.2.3(2) eq. 6.58: with kc (Table 6.6), f = 1 − 0.5(1 − kc)[1 − 2(λ̄LT − 0.8)²] ≤ 1,
+ * χLT,mod = χLT/f ≤ 1 (and ≤ 1/λ̄LT²).
+ */
+export function chiLT(p: { lambdaLT: number; alphaLT: number; lambdaLT0?: number; beta?: number; kc?: number }): { chiLT: number; phiLT: number; f: number } {
+  const l0 = p.lambdaLT0 ?? 0.4;
+  const beta = p.beta ?? 0.75;
+  const l = p.lambdaLT;
+  const phiLT = 0.5 * (1 + p.alphaLT * (l - l0) + beta * l * l);
+  let c = 1 / (phiLT + Math.sqrt(phiLT * phiLT - beta * l * l));
+  const cap = l > 0 ? Math.min(1, 1 / (l * l)) : 1;
+  c = Math.min(c, cap);
+  let f = 1;
+  if (p.kc !== undefined) {
+    f = Math.min(1, 1 - 0.5 * (1 - p.kc) * (1 - 2 * (l - 0.8) ** 2));
+    c = Math.min(c / f, cap);
+  }
+  return { chiLT: c, phiLT, f };
+}
+
+/**
+ * C1 for a linear moment diagram with end-moment ratio ψ (−1 ≤ ψ ≤ 1), k = 1, from the Access Steel
+ * NCCI SN003 end-moment table (values transcribed from memory: 1.00, 1.14, 1.31, 1.52, 1.77, 2.05,
+ * 2.33, 2.57, 2.55 at ψ = 1, 0.75, …, −1), linearly interpolated between the tabulated ψ.
+ */
+const C1_END: readonly number[] = [2.55, 2.57, 2.33, 2.05, 1.77, 1.52, 1.31, 1.14, 1.0]; // ψ = −1 … +1 step 0.25
+/** C3 for end moments, k = 1, ENV 1993-1-1 Table F.1.1 (from memory), same ψ grid. */
+const C3_END: readonly number[] = [0.0, 0.366, 0.676, 0.855, 0.939, 0.977, 0.992, 0.998, 1.0];
+
+function interpPsi(table: readonly number[], psi: number): number {
+  const p = Math.max(-1, Math.min(1, psi));
+  const u = (p + 1) / 0.25;
+  const i = Math.min(7, Math.floor(u));
+  const t = u - i;
+  return table[i]! + t * (table[i + 1]! - table[i]!);
+}
+
+export function c1EndMoments(psi: number): number {
+  return interpPsi(C1_END, psi);
+}
+export function c3EndMoments(psi: number): number {
+  return interpPsi(C3_END, psi);
+}
+
+/** EN 1993-1-1 Table 6.6 correction factor kc for a linear diagram: 1/(1.33 − 0.33ψ). */
+export function kcEndMoments(psi: number): number {
+  return 1 / (1.33 - 0.33 * Math.max(-1, Math.min(1, psi)));
+}
+
+export type MomentShape = 'end-moments' | 'udl-simply-supported' | 'point-load-simply-supported' | 'transverse-with-end-moments';
+
+export interface MomentFactors {
+  shape: MomentShape;
+  psi: number;
+  C1: number;
+  C2: number;
+  C3: number;
+  kc: number;
+}
+
+/**
+ * Moment factors for a segment from its moment diagram (stations, N·mm):
+ * - linear diagram (no point further than 1 % of max|M| from the chord): end moments, ψ = Mend,small/Mend,large,
+ *   C1 SN003 table, C2 = 0, C3 ENV Table F.1.1, kc Table 6.6.
+ * - transverse load with end moments ≤ 5 % of max|M|: "fullness" mean|M|/max|M| ≥ 0.58 →
+ *   uniform load C1 = 1.127, C2 = 0.454 (SN003, as used by the SBE example), C3 = 0.525 (ENV Table F.1.2,
+ *   from memory), kc = 0.94 (Table 6.6, from memory); otherwise central point load C1 = 1.348,
+ *   C2 = 0.630, C3 = 1.730 (SN003 / ENV, from memory), kc = 0.86 (from memory).
+ * - transverse load with end moments: C1 = 1.0 (conservative: uniform moment), C2 = 0.630 (the larger
+ *   simply-supported C2), C3 = 1.0, kc = 1.0 — a conservative choice, common practice, no source.
+ */
+export function momentFactors(pts: readonly { x: number; M: number }[]): MomentFactors {
+  const n = pts.length;
+  const M0 = pts[0]!.M;
+  const M1 = pts[n - 1]!.M;
+  const x0 = pts[0]!.x;
+  const x1 = pts[n - 1]!.x;
+  const Mmax = Math.max(...pts.map((p) => Math.abs(p.M)));
+  if (Mmax === 0) return { shape: 'end-moments', psi: 1, C1: 1, C2: 0, C3: 1, kc: 1 };
+  let dev = 0;
+  for (const p of pts) {
+    const lin = x1 > x0 ? M0 + ((M1 - M0) * (p.x - x0)) / (x1 - x0) : M0;
+    dev = Math.max(dev, Math.abs(p.M - lin));
+  }
+  if (dev <= 0.01 * Mmax) {
+    const big = Math.abs(M0) >= Math.abs(M1) ? M0 : M1;
+    const small = big === M0 ? M1 : M0;
+    const psi = big === 0 ? 1 : small / big;
+    return { shape: 'end-moments', psi, C1: c1EndMoments(psi), C2: 0, C3: c3EndMoments(psi), kc: kcEndMoments(psi) };
+  }
+  if (Math.abs(M0) <= 0.05 * Mmax && Math.abs(M1) <= 0.05 * Mmax) {
+    let area = 0;
+    for (let i = 0; i + 1 < n; i++) area += ((Math.abs(pts[i]!.M) + Math.abs(pts[i + 1]!.M)) / 2) * (pts[i + 1]!.x - pts[i]!.x);
+    const fullness = area / (Mmax * (x1 - x0));
+    if (fullness >= 0.58) return { shape: 'udl-simply-supported', psi: 0, C1: 1.127, C2: 0.454, C3: 0.525, kc: 0.94 };
+    return { shape: 'point-load-simply-supported', psi: 0, C1: 1.348, C2: 0.63, C3: 1.73, kc: 0.86 };
+  }
+  return { shape: 'transverse-with-end-moments', psi: 0, C1: 1.0, C2: 0.63, C3: 1.0, kc: 1.0 };
+}
+
+/**
+ * Wagner (mono-symmetry) parameter zj = zs − ∫(y² + z²) z dA / (2 Iy) of a plate stack (exact for
+ * rectangles), z from the centroid, positive towards the compression flange (ENV 1993-1-1 F.1.4
+ * definition). Positive when the larger flange is in compression.
+ */
+export function wagnerZj(ctx: CheckContext, side: FlangeSide): number {
+  const { s, g } = ctx;
+  const sgn = side === 'top' ? 1 : -1;
+  const zc = g.zElastic;
+  const plates = [
+    { z0: 0, z1: s.bot.t, b: s.bot.b },
+    { z0: s.bot.t, z1: s.bot.t + s.hw, b: s.tw },
+    { z0: s.bot.t + s.hw, z1: g.h, b: s.top.b },
+  ];
+  let integral = 0;
+  for (const p of plates) {
+    const a = sgn * (p.z0 - zc);
+    const b = sgn * (p.z1 - zc);
+    const lo = Math.min(a, b);
+    const hi = Math.max(a, b);
+    const t = hi - lo;
+    const zm = (lo + hi) / 2;
+    integral += ((p.b ** 3) / 12) * t * zm + (p.b * (hi ** 4 - lo ** 4)) / 4;
+  }
+  const zs = sgn * (g.zShear - zc);
+  return zs - integral / (2 * g.Iy);
+}
+
+/** Load height above the shear centre (mm), positive destabilising, for downward (gravity) loads. */
+export function loadHeightZg(ctx: CheckContext): number {
+  const { o, g } = ctx;
+  if (o.loadHeight === 'top-flange') return g.h - g.zShear;
+  if (o.loadHeight === 'bottom-flange') return -g.zShear;
+  return 0;
+}
+
+/** EN 1993-1-1 Table 6.4 (general case) and Table 6.5 (rolled or equivalent welded), welded I: h/b ≤ 2 → c, > 2 → d. */
+export function ltbCurveWelded(h: number, b: number): BucklingCurve {
+  return h / b <= 2 ? 'c' : 'd';
+}
+
+function segmentPoints(stations: readonly Station[], x0: number, x1: number): { x: number; M: number }[] {
+  const xs = new Set<number>([x0, x1]);
+  for (const st of stations) if (st.x > x0 && st.x < x1) xs.add(st.x);
+  return [...xs].sort((a, b) => a - b).map((x) => ({ x, M: envelopeAt(stations, x, (s) => s.MEd).value }));
+}
+
+/**
+ * 'lateral-torsional-buckling', EN 1993-1-1 6.3.2. Continuous restraint of the compression flange:
+ * not applicable. Otherwise the girder is split at the restraint positions and at the supports
+ * (supports are taken as lateral and torsional restraints, fork conditions, k = kw = 1). In each
+ * segment: the moment diagram (largest |MEd| at each station x) gives C1, C2, C3; the compression
+ * flange follows the sign of the largest |MEd|; Wy fy = Mpl (Class 1–2), Mel (3), Meff (4) at each
+ * plate's own fy; χLT by 6.3.2.2 (λ̄LT,0 = 0.2) or 6.3.2.3 (λ̄LT,0 = 0.4, β = 0.75, recommended
+ * values), Mb,Rd = χLT Wy fy / γM1. No reduction when λ̄LT ≤ λ̄LT,0 or MEd/Mcr ≤ λ̄LT,0² (6.3.2.2(4)).
+ * The imperfection curve uses h over the narrower flange width (conservative for mono-symmetric I).
+ */
+export function ltbCheck(ctx: CheckContext, e: Effects, per: ReadonlyMap<FlangeSide, SignBending>, bendingFor: (side: FlangeSide) => SignBending): CheckResult {
+  const clause = 'EN 1993-1-1 6.3.2';
+  const { o, g, s } = ctx;
+  if (o.restraint.kind === 'continuous') return notApplicable('lateral-torsional-buckling', clause, 'compression flange restrained continuously against lateral movement');
+  if (e.stations.length === 0) return notApplicable('lateral-torsional-buckling', clause, 'no design moments given');
+  const sup = o.supports;
+  const xStart = sup[0]!;
+  const xEnd = sup[sup.length - 1]!;
+  const cuts = [...new Set([...sup, ...o.restraint.at.filter((x) => x > xStart && x < xEnd)])].sort((a, b) => a - b);
+  const rolled = o.ltbMethod === 'rolled-equivalent';
+  const lambda0 = rolled ? 0.4 : 0.2;
+  const curve = ltbCurveWelded(g.h, Math.min(s.top.b, s.bot.b));
+  const zg = loadHeightZg(ctx);
+  let best: { u: number; at: number; values: Record<string, CheckValue> } | null = null;
+  for (let i = 0; i + 1 < cuts.length; i++) {
+    const x0 = cuts[i]!;
+    const x1 = cuts[i + 1]!;
+    const pts = segmentPoints(e.stations, x0, x1);
+    let gov = pts[0]!;
+    for (const p of pts) if (Math.abs(p.M) > Math.abs(gov.M)) gov = p;
+    const MEd = Math.abs(gov.M);
+    const side: FlangeSide = gov.M >= 0 ? 'top' : 'bot';
+    const b = per.get(side) ?? bendingFor(side);
+    const mf = momentFactors(pts);
+    const zj = wagnerZj(ctx, side);
+    const Mcr = mcr({ E: o.E, G: o.G, Iz: g.Iz, It: g.It, Iw: g.Iw, L: x1 - x0, C1: mf.C1, C2: mf.C2, C3: mf.C3, zg, zj });
+    const Mk = b.McRd * o.factors.gammaM0;
+    const lambdaLT = Math.sqrt(Mk / Mcr);
+    let chiV = 1;
+    let phiLT = Number.NaN;
+    let f = 1;
+    const ignore = lambdaLT <= lambda0 || MEd / Mcr <= lambda0 * lambda0;
+    if (!ignore) {
+      if (rolled) {
+        const r = chiLT({ lambdaLT, alphaLT: ALPHA[curve], lambdaLT0: 0.4, beta: 0.75, ...(o.ltbModification ? { kc: mf.kc } : {}) });
+        chiV = r.chiLT;
+        phiLT = r.phiLT;
+        f = r.f;
+      } else {
+        const r = chiLTGeneral(lambdaLT, curve);
+        chiV = r.chiLT;
+        phiLT = r.phiLT;
+      }
+    }
+    const MbRd = (chiV * Mk) / o.factors.gammaM1;
+    const u = MEd / MbRd;
+    if (!best || u > best.u) {
+      best = {
+        u,
+        at: gov.x,
+        values: {
+          x0,
+          x1,
+          Lseg: x1 - x0,
+          momentShape: mf.shape,
+          psi: mf.psi,
+          C1: mf.C1,
+          C2: mf.C2,
+          C3: mf.C3,
+          zg,
+          zj,
+          Mcr,
+          lambdaLT,
+          lambdaLT0: lambda0,
+          curve,
+          phiLT,
+          f,
+          chiLT: chiV,
+          MbRd,
+          MEd,
+          sign: side === 'top' ? 'sagging' : 'hogging',
+          method: rolled ? '6.3.2.3 rolled or equivalent welded' : '6.3.2.2 general case',
+          reductionIgnored: ignore,
+        },
+      };
+    }
+  }
+  return verdict('lateral-torsional-buckling', clause, best!.u, best!.at, best!.values);
+}

@@ -1,0 +1,148 @@
+import type { CheckContext, CheckResult, CheckValue, Effects } from '../types.js';
+import { notApplicable, verdict } from '../result.js';
+
+/**
+ * Resistance to transverse forces, EN 1993-1-5:2006 (+AC:2009) section 6, eqs. 6.1–6.13.
+ * Units: lengths mm, strengths and E MPa, forces N.
+ *
+ * Load types (Figure 6.1): (a) force through one flange resisted by shear in the web, between
+ * stiffeners a apart; (b) force through one flange and directly to the other (both flanges);
+ * (c) force through one flange near an unstiffened end, c from the end to the bearing.
+ */
+export type PatchType = 'a' | 'b' | 'c';
+
+export interface PatchInput {
+  type: PatchType;
+  hw: number;
+  tw: number;
+  /** loaded flange: width and thickness, mm */
+  bf: number;
+  tf: number;
+  fyw: number;
+  fyf: number;
+  /** stiff bearing length, mm (6.3) */
+  ss: number;
+  /** distance between transverse stiffeners (or the span when unstiffened), mm */
+  a: number;
+  /** type (c): distance from the unstiffened end to the bearing, mm */
+  c?: number;
+  E: number;
+  gammaM1: number;
+}
+
+export interface PatchResult {
+  kF: number;
+  Fcr: number;
+  m1: number;
+  m2: number;
+  /** λ̄F > 0.5 was assumed and held (m2 kept), or m2 was set to 0 (iteration on λ̄F) */
+  m2Branch: 'lambdaF>0.5' | 'lambdaF<=0.5';
+  le: number | null;
+  ly: number;
+  lambdaF: number;
+  chiF: number;
+  Leff: number;
+  FRd: number;
+}
+
+/** EN 1993-1-5 6.4(1) Figure 6.1: buckling coefficient kF. */
+export function kF(type: PatchType, hw: number, a: number, ss = 0, c = 0): number {
+  if (type === 'a') return 6 + 2 * (hw / a) ** 2;
+  if (type === 'b') return 3.5 + 2 * (hw / a) ** 2;
+  return Math.min(6, 2 + (6 * (ss + c)) / hw);
+}
+
+/**
+ * FRd = fyw Leff tw / γM1 (6.1, 6.2), Leff = χF ℓy, χF = 0.5/λ̄F ≤ 1 (6.3), λ̄F = √(ℓy tw fyw/Fcr)
+ * (6.4), Fcr = 0.9 kF E tw³/hw (6.5), m1 = fyf bf/(fyw tw) (6.8), m2 = 0.02 (hw/tf)² if λ̄F > 0.5
+ * else 0 (6.9). ℓy: types (a), (b) eq. 6.10, ℓy = ss + 2tf(1 + √(m1 + m2)) ≤ a; type (c) the least
+ * of eqs. 6.10, 6.11 ℓe + tf √(m1/2 + (ℓe/tf)² + m2) and 6.12 ℓe + tf √(m1 + m2), with
+ * ℓe = kF E tw²/(2 fyw hw) ≤ ss + c (6.13). The 2006 text of 6.5(3) cites the wrong equation
+ * numbers; the least of the three is taken. m2 depends on λ̄F, which depends on ℓy: λ̄F > 0.5 is
+ * assumed first and, if that fails, ℓy is recomputed with m2 = 0.
+ */
+export function patchResistance(p: PatchInput): PatchResult {
+  const c = p.c ?? 0;
+  const k = kF(p.type, p.hw, p.a, p.ss, c);
+  const Fcr = (0.9 * k * p.E * p.tw ** 3) / p.hw;
+  const m1 = (p.fyf * p.bf) / (p.fyw * p.tw);
+  const le = p.type === 'c' ? Math.min((k * p.E * p.tw ** 2) / (2 * p.fyw * p.hw), p.ss + c) : null;
+  const lyOf = (m2: number): number => {
+    const l610 = Math.min(p.ss + 2 * p.tf * (1 + Math.sqrt(m1 + m2)), p.a);
+    if (le === null) return l610;
+    const l611 = le + p.tf * Math.sqrt(m1 / 2 + (le / p.tf) ** 2 + m2);
+    const l612 = le + p.tf * Math.sqrt(m1 + m2);
+    return Math.min(l610, l611, l612);
+  };
+  const lam = (ly: number): number => Math.sqrt((ly * p.tw * p.fyw) / Fcr);
+  let m2 = 0.02 * (p.hw / p.tf) ** 2;
+  let ly = lyOf(m2);
+  let lambdaF = lam(ly);
+  let m2Branch: PatchResult['m2Branch'] = 'lambdaF>0.5';
+  if (lambdaF <= 0.5) {
+    m2 = 0;
+    ly = lyOf(0);
+    lambdaF = lam(ly);
+    m2Branch = 'lambdaF<=0.5';
+  }
+  const chiF = Math.min(1, 0.5 / lambdaF);
+  const Leff = chiF * ly;
+  const FRd = (p.fyw * Leff * p.tw) / p.gammaM1;
+  return { kF: k, Fcr, m1, m2, m2Branch, le, ly, lambdaF, chiF, Leff, FRd };
+}
+
+/** The web panel (between supports and stiffeners) containing x; its length a. */
+export function panelLengthAt(ctx: CheckContext, x: number): number {
+  const p = ctx.panels.find((q) => x >= q.x0 && x <= q.x1) ?? ctx.panels[ctx.panels.length - 1]!;
+  return p.a;
+}
+
+/** Girder-level patch resistance of a force at x through the top flange: load type (a). */
+export function patchForForce(ctx: CheckContext, x: number, ss: number): PatchResult {
+  const { s, m, o } = ctx;
+  return patchResistance({
+    type: 'a',
+    hw: s.hw,
+    tw: s.tw,
+    bf: s.top.b,
+    tf: s.top.t,
+    fyw: m.fyw,
+    fyf: m.fyTop,
+    ss,
+    a: panelLengthAt(ctx, x),
+    E: o.E,
+    gammaM1: o.factors.gammaM1,
+  });
+}
+
+/**
+ * 'patch-loading': each concentrated force F (N) entering through the top flange with no stiffener
+ * under it, load type (a) with a the length of the panel containing it (the span when the web is
+ * unstiffened). utilisation η2 = F/FRd (EN 1993-1-5 6.6), the worst force governs.
+ */
+export function patchLoadingCheck(ctx: CheckContext, e: Effects): CheckResult {
+  const clause = 'EN 1993-1-5 6';
+  if (e.forces.length === 0) return notApplicable('patch-loading', clause, 'no concentrated forces enter through a flange without a stiffener');
+  let best: { u: number; at: number; values: Record<string, CheckValue> } | null = null;
+  for (const f of e.forces) {
+    const r = patchForForce(ctx, f.x, f.ss);
+    const u = Math.abs(f.F) / r.FRd;
+    if (!best || u > best.u) {
+      best = {
+        u,
+        at: f.x,
+        values: { loadType: 'a', a: panelLengthAt(ctx, f.x), kF: r.kF, Fcr: r.Fcr, m1: r.m1, m2: r.m2, m2Branch: r.m2Branch, ly: r.ly, lambdaF: r.lambdaF, chiF: r.chiF, Leff: r.Leff, FRd: r.FRd, F: Math.abs(f.F) },
+      };
+    }
+  }
+  return verdict('patch-loading', clause, best!.u, best!.at, best!.values);
+}
+
+/**
+ * EN 1993-1-5 7.2(1) eq. 7.2: η2 + 0.8 η1 ≤ 1.4, η2 = FEd/FRd, η1 = MEd/(fy Weff/γM0)
+ * (no axial force). Returns the interaction value and its utilisation (value / 1.4).
+ */
+export function patchBendingInteraction(eta1: number, eta2: number): { value: number; utilisation: number } {
+  const value = eta2 + 0.8 * eta1;
+  return { value, utilisation: value / 1.4 };
+}

@@ -1,0 +1,94 @@
+import type { CheckContext, CheckResult, CheckValue, Effects } from '../types.js';
+import { notApplicable, verdict } from '../result.js';
+
+/**
+ * Vertical deflection, EN 1990:2002 A1.4.3 and EN 1993-1-1:2005 7.2.1 (limits to be agreed with the
+ * client; span/250 and span/360 are common practice, no source). Units: mm, N, N·mm, MPa.
+ */
+
+/**
+ * δ = bend/(E Iy) + shear/(G Av): bend (N·mm³) = ∫ M m dx and shear (N·mm) = ∫ V v dx, with m and v
+ * the moment and shear of a unit load at the point (virtual work).
+ */
+export function deflection(p: { bend: number; shear: number; E: number; Iy: number; G: number; Av: number }): number {
+  return p.bend / (p.E * p.Iy) + p.shear / (p.G * p.Av);
+}
+
+/**
+ * Virtual-work integrals for a point x of a simply supported span [x0, x1] from a piecewise-linear
+ * moment and shear diagram given at points (N·mm, N): bend = ∫ M m dξ, shear = ∫ V v dξ, with
+ * m(ξ) = (ξ − x0)(x1 − x)/L for ξ ≤ x, (x − x0)(x1 − ξ)/L for ξ ≥ x and v = (x1 − x)/L left of x,
+ * −(x − x0)/L right of x. Each interval is integrated by Simpson's rule (exact for the product of
+ * two linear functions).
+ */
+export function unitLoadIntegrals(pts: readonly { x: number; M: number; V: number }[], x0: number, x1: number, x: number): { bend: number; shear: number } {
+  const L = x1 - x0;
+  const sorted = [...pts].sort((a, b) => a.x - b.x);
+  const at = (xi: number, key: 'M' | 'V', fromLeft: boolean): number => {
+    // linear interpolation; at a repeated x take the left/right value
+    for (let i = 0; i + 1 < sorted.length; i++) {
+      const a = sorted[i]!;
+      const b = sorted[i + 1]!;
+      if (b.x <= a.x) continue;
+      const inside = fromLeft ? xi > a.x && xi <= b.x : xi >= a.x && xi < b.x;
+      if (inside) return a[key] + ((b[key] - a[key]) * (xi - a.x)) / (b.x - a.x);
+    }
+    return xi <= sorted[0]!.x ? sorted[0]![key] : sorted[sorted.length - 1]![key];
+  };
+  const m = (xi: number): number => (xi <= x ? ((xi - x0) * (x1 - x)) / L : ((x - x0) * (x1 - xi)) / L);
+  const v = (xi: number): number => (xi < x ? (x1 - x) / L : -(x - x0) / L);
+  const nodes = [...new Set([x0, x1, x, ...sorted.map((p) => p.x).filter((q) => q > x0 && q < x1)])].sort((a, b) => a - b);
+  let bend = 0;
+  let shear = 0;
+  for (let i = 0; i + 1 < nodes.length; i++) {
+    const a = nodes[i]!;
+    const b = nodes[i + 1]!;
+    const c = (a + b) / 2;
+    const h = b - a;
+    const Ma = at(a, 'M', false);
+    const Mb = at(b, 'M', true);
+    const Mc = at(c, 'M', true);
+    bend += (h / 6) * (Ma * m(a) + 4 * Mc * m(c) + Mb * m(b));
+    const Va = at(a, 'V', false);
+    const Vb = at(b, 'V', true);
+    const Vc = at(c, 'V', true);
+    const vm = v(c);
+    shear += (h / 6) * (Va + 4 * Vc + Vb) * vm;
+  }
+  return { bend, shear };
+}
+
+/** Span (between consecutive supports) containing x. */
+export function spanAt(supports: readonly number[], x: number): { x0: number; x1: number; L: number } {
+  for (let i = 0; i + 1 < supports.length; i++) {
+    const x0 = supports[i]!;
+    const x1 = supports[i + 1]!;
+    if (x >= x0 && x <= x1) return { x0, x1, L: x1 - x0 };
+  }
+  const x0 = supports[0]!;
+  const x1 = supports[supports.length - 1]!;
+  return { x0, x1, L: x1 - x0 };
+}
+
+/**
+ * 'deflection': for each SLS limit and point, δ = bend/(E Iy) + shear/(G Av) with Av = hw tw (the web
+ * carries the shear, common practice, no source); limit = Lspan/ratio for the span containing x;
+ * the worst δ/limit governs.
+ */
+export function deflectionCheck(ctx: CheckContext, e: Effects): CheckResult {
+  const clause = 'EN 1990 A1.4.3; EN 1993-1-1 7.2.1';
+  if (e.sls.length === 0) return notApplicable('deflection', clause, 'no serviceability deflection limits given');
+  const Av = ctx.s.hw * ctx.s.tw;
+  let best: { u: number; at: number; values: Record<string, CheckValue> } | null = null;
+  for (const lim of e.sls) {
+    for (const p of lim.points) {
+      const delta = deflection({ bend: p.bend, shear: p.shear, E: ctx.o.E, Iy: ctx.g.Iy, G: ctx.o.G, Av });
+      const span = spanAt(ctx.o.supports, p.x);
+      const limit = span.L / lim.ratio;
+      const u = Math.abs(delta) / limit;
+      if (!best || u > best.u) best = { u, at: p.x, values: { delta, limit, name: lim.name, ratio: lim.ratio, span: span.L, Iy: ctx.g.Iy, Av } };
+    }
+  }
+  if (!best) return notApplicable('deflection', clause, 'no deflection points given');
+  return verdict('deflection', clause, best.u, best.at, best.values);
+}
