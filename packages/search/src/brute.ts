@@ -1,0 +1,39 @@
+import { checkGirder } from '@platesmith/checks';
+import { G_ACC, prepareSearch, price, settle, type BearingFlat, type Evaluated, type SearchProblem } from './core.js';
+import { paretoFront } from './pareto.js';
+import { buildSection, webParts } from './objective.js';
+
+/**
+ * Exhaustive enumeration of the same space with the same check library and the same objective:
+ * the ground truth the search is tested against. Only for small spaces.
+ */
+export function bruteForce(p: SearchProblem): { front: Evaluated[]; evaluations: number; feasible: number } {
+  const prep = prepareSearch(p);
+  const { webs, flanges, L, Lmax, supports } = prep;
+  const sp = p.space;
+  const minThroat = p.options.weldThroats[0]!;
+  const feasible: Evaluated[] = [];
+  let evaluations = 0;
+  webs.forEach((w, wi) => {
+    const parts = webParts(w, L, supports, Lmax);
+    const cache = new Map<number, BearingFlat>();
+    for (let ti = 0; ti < flanges.length; ti++) {
+      for (let bi = 0; bi < flanges.length; bi++) {
+        if (sp.symmetric && bi !== ti) continue;
+        const T = flanges[ti]!;
+        const B = flanges[bi]!;
+        const d = w.hw + T.t + B.t;
+        if (d < sp.minDepth || d > sp.maxDepth) continue;
+        if (sp.rules.tfMaxOverTw !== undefined && (T.t > sp.rules.tfMaxOverTw * w.tw || B.t > sp.rules.tfMaxOverTw * w.tw)) continue;
+        const section = buildSection(w, parts, T, B);
+        const { plates } = price(prep, w, parts, T, B, cache, minThroat);
+        const verdict = checkGirder(section, p.load.effects((plates * G_ACC) / L), p.options);
+        evaluations++;
+        if (!verdict.passes) continue;
+        const { mass, value } = settle(prep, w, parts, T, B, plates, verdict, minThroat);
+        feasible.push({ key: [wi, ti, bi], section: { ...section, bearing: verdict.bearing }, depth: d, mass, value, verdict });
+      }
+    }
+  });
+  return { front: paretoFront(feasible), evaluations, feasible: feasible.length };
+}

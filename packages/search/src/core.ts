@@ -1,0 +1,380 @@
+import type { FySource } from '@platesmith/catalogue';
+import {
+  checkGirder,
+  flangeOutstand,
+  lightestFittingBearing,
+  maxCompressionFlangeAreaFIB,
+  minFlangeForceForBending,
+  resolveBearing,
+  webShearCapacityBound,
+  type CheckOptions,
+  type GirderVerdict,
+  type Section,
+} from '@platesmith/checks';
+import { fy } from '@platesmith/catalogue';
+import type { LoadModel } from './load.js';
+import { bearingPairs, buildSection, costOf, flangeMass, webParts, type CostModel, type WebParts } from './objective.js';
+
+const KG_PER_MM3 = 7850e-9;
+import { flangeGroups, webConfigs, type FlangeGroup, type FlangeOption, type SpaceSpec, type WebConfig } from './space.js';
+
+/** Gravity, N per kg. */
+export const G_ACC = 9.80665;
+
+export type Objective = 'mass' | 'cost';
+
+export interface SearchProblem {
+  space: SpaceSpec;
+  options: CheckOptions;
+  load: LoadModel;
+  objective: Objective;
+  cost: CostModel;
+}
+
+/** Indices of a candidate: web configuration, top and bottom flange options (global option indices). */
+export type CandidateKey = readonly [number, number, number];
+
+export interface Evaluated {
+  key: CandidateKey;
+  section: Section;
+  /** h = hw + tf,top + tf,bot, mm */
+  depth: number;
+  /** kg */
+  mass: number;
+  /** the objective's value (kg or €) */
+  value: number;
+  verdict: GirderVerdict;
+}
+
+export interface PruneStats {
+  depth: number;
+  rules: number;
+  shear: number;
+  bending: number;
+  flangeInducedBuckling: number;
+  webOnly: number;
+  incumbent: number;
+}
+
+export interface SliceResult {
+  front: Evaluated[];
+  /** failed candidates closest to passing (lowest governing utilisation) */
+  nearMisses: Evaluated[];
+  spaceSize: number;
+  fullEvaluations: number;
+  pruned: PruneStats;
+}
+
+/** Total order on (value, key): the tie-break that makes the answer unique and equal to brute force. */
+export function better(v1: number, k1: CandidateKey, v2: number, k2: CandidateKey): boolean {
+  if (v1 !== v2) return v1 < v2;
+  if (k1[0] !== k2[0]) return k1[0] < k2[0];
+  if (k1[1] !== k2[1]) return k1[1] < k2[1];
+  return k1[2] < k2[2];
+}
+
+/**
+ * A failed check whose inputs are the web and its intermediate stiffeners only fails every flange
+ * on that web: stiffener stiffness (EN 1993-1-5 9.3.3(3): a, hw, tw, the flats and 15εtw of web)
+ * and the torsional requirement of the intermediate flats (9.2.1(8)). The torsion of the bearing
+ * flats is not web-only: they are sized to fit the flanges.
+ */
+function failsWebOnly(v: GirderVerdict): boolean {
+  return v.checks.some((c) => !c.passes && (c.id === 'stiffener-stiffness' || (c.id === 'stiffener-torsion' && c.values['stiffener'] === 'intermediate')));
+}
+
+/**
+ * Everything the search derives from a problem before it looks at any candidate. Built identically
+ * in every worker (plain data in, deterministic), so global indices agree across threads.
+ */
+export interface Prepared {
+  p: SearchProblem;
+  webs: WebConfig[];
+  groups: FlangeGroup[];
+  /** all flange options, group by group; global index = position here */
+  flanges: FlangeOption[];
+  /** first global index of each group */
+  groupStart: number[];
+  L: number;
+  Lmax: number;
+  supports: number[];
+  fySource: FySource;
+}
+
+export function prepareSearch(p: SearchProblem): Prepared {
+  const fySource = p.options.fySource;
+  const webs = webConfigs(p.space, fySource);
+  const groups = flangeGroups(p.space, fySource);
+  const flanges: FlangeOption[] = [];
+  const groupStart: number[] = [];
+  for (const g of groups) {
+    groupStart.push(flanges.length);
+    flanges.push(...g.options);
+  }
+  const supports = p.options.supports;
+  const L = supports[supports.length - 1]! - supports[0]!;
+  let Lmax = 0;
+  for (let i = 1; i < supports.length; i++) Lmax = Math.max(Lmax, supports[i]! - supports[i - 1]!);
+  return { p, webs, groups, flanges, groupStart, L, Lmax, supports, fySource };
+}
+
+/** The value of a candidate's objective before its checks are known: exact for mass, a lower bound for cost. */
+interface Pricing {
+  /** kg of web, flanges and intermediate stiffeners */
+  plates: number;
+  /** lower bound on the objective */
+  lb: number;
+}
+
+/**
+ * Exact search over the web configurations `webIdx` (a slice of prep.webs): the Pareto set of
+ * overall depth against the objective, for that slice. See DEVELOPERS.md "How the search is exact".
+ */
+export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: { aborted: boolean }): SliceResult {
+  const { p, webs, groups, flanges, groupStart, L, Lmax, supports, fySource } = prep;
+  const o = p.options;
+  const sp = p.space;
+  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, webOnly: 0, incumbent: 0 };
+  let fullEvaluations = 0;
+  let spaceSize = 0;
+  const minThroat = o.weldThroats[0]!;
+
+  // staircase of feasible points found so far: depth ascending, value strictly descending
+  const stairs: Evaluated[] = [];
+  /** the least value among found points with depth ≤ d (and whether one lies strictly shallower with that value) */
+  const prunes = (d: number, lb: number): boolean => {
+    for (const s of stairs) {
+      if (s.depth > d) break;
+      if (s.value < lb) return true;
+      if (s.value === lb && s.depth < d) return true;
+    }
+    return false;
+  };
+  const admit = (e: Evaluated): void => {
+    // drop points the new one dominates, insert, keep the staircase strictly descending
+    for (let i = stairs.length - 1; i >= 0; i--) {
+      const s = stairs[i]!;
+      const dominated = s.depth >= e.depth && (e.value < s.value || (e.value === s.value && (e.depth < s.depth || better(e.value, e.key, s.value, s.key))));
+      if (dominated) stairs.splice(i, 1);
+    }
+    for (const s of stairs) {
+      if (s.depth <= e.depth && (s.value < e.value || (s.value === e.value && (s.depth < e.depth || better(s.value, s.key, e.value, e.key))))) return;
+    }
+    let i = 0;
+    while (i < stairs.length && stairs[i]!.depth < e.depth) i++;
+    stairs.splice(i, 0, e);
+  };
+  const misses: Evaluated[] = [];
+  const keepMiss = (e: Evaluated): void => {
+    misses.push(e);
+    misses.sort((a, b) => a.verdict.governing.utilisation - b.verdict.governing.utilisation);
+    if (misses.length > 5) misses.pop();
+  };
+
+  const tfMin = Math.min(...sp.tf);
+  const tfMaxAll = Math.max(...sp.tf);
+  const gMax = (maxMassPerLength(prep) * G_ACC) / 1;
+  const nFlange = flanges.length;
+  const pairsPerWeb = sp.symmetric ? nFlange : nFlange * nFlange;
+  const kFibMax = o.kFib === 'auto' ? 0.55 : o.kFib;
+
+  for (const wi of webIdx) {
+    if (signal?.aborted) break;
+    const w = webs[wi]!;
+    spaceSize += pairsPerWeb;
+    if (w.hw + 2 * tfMin > sp.maxDepth) {
+      pruned.depth += pairsPerWeb;
+      continue;
+    }
+    const parts = webParts(w, L, supports, Lmax);
+    // lightest possible self-weight of any candidate on this web: web + stiffeners + the two lightest flanges
+    const gLo = ((parts.webMass + parts.stiffMass + 2 * minFlangeMass(prep)) * G_ACC) / L;
+    const dem = p.load.demandLowerBound(gLo, gMax);
+    if (webShearCapacityBound(w.hw, w.tw, w.fyw, o.eta, o.factors.gammaM0, o.factors.gammaM1) < dem.V) {
+      pruned.shear += pairsPerWeb;
+      continue;
+    }
+    const fibTop = dem.sagAlways ? maxCompressionFlangeAreaFIB({ hw: w.hw, tw: w.tw, fyfMin: 1, k: kFibMax, E: o.E }) : Infinity;
+    const fibBot = dem.hogAlways ? maxCompressionFlangeAreaFIB({ hw: w.hw, tw: w.tw, fyfMin: 1, k: kFibMax, E: o.E }) : Infinity;
+    const Mneed = Math.max(dem.Msag, dem.Mhog);
+    let webDead = false;
+    const bearingCache = new Map<number, BearingFlat>();
+
+    const groupPairs = sp.symmetric ? groups.map((_, i) => [i, i] as const) : groups.flatMap((_, i) => groups.map((__, j) => [i, j] as const));
+    for (const [gt, gb] of groupPairs) {
+      if (webDead || signal?.aborted) {
+        pruned.webOnly += sp.symmetric ? groups[gt]!.options.length : groups[gt]!.options.length * groups[gb]!.options.length;
+        continue;
+      }
+      const GT = groups[gt]!;
+      const GB = groups[gb]!;
+      const nPairs = sp.symmetric ? GT.options.length : GT.options.length * GB.options.length;
+      const d = w.hw + GT.t + GB.t;
+      if (d < sp.minDepth || d > sp.maxDepth) {
+        pruned.depth += nPairs;
+        continue;
+      }
+      const r = sp.rules;
+      if (r.tfMaxOverTw !== undefined && (GT.t > r.tfMaxOverTw * w.tw || GB.t > r.tfMaxOverTw * w.tw)) {
+        pruned.rules += nPairs;
+        continue;
+      }
+      const Freq = minFlangeForceForBending({
+        hw: w.hw,
+        tw: w.tw,
+        fyw: w.fyw,
+        MEd: Mneed,
+        gammaM0: o.factors.gammaM0,
+        hMax: d,
+        symmetric: sp.symmetric,
+        tfMax: Math.max(GT.t, GB.t),
+        fyfMax: Math.max(GT.fy, GB.fy),
+      });
+      // FIB bounds on gross areas: only where the compression flange's outstand is fully effective
+      const fibT = fibTop === Infinity ? Infinity : fibTop / (GT.fy * GT.fy);
+      const fibB = fibBot === Infinity ? Infinity : fibBot / (GB.fy * GB.fy);
+      const fibOk = (f: FlangeOption, lim: number) => lim === Infinity || f.A <= lim || flangeOutstand({ b: f.b, t: f.t }, w.tw, f.fy, minThroat).rho < 1;
+
+      // admissible pairs, priced, ascending
+      const cands: { ti: number; bi: number; price: Pricing }[] = [];
+      let nBend = 0;
+      let nFib = 0;
+      const consider = (ti: number, bi: number) => {
+        const T = flanges[ti]!;
+        const B = flanges[bi]!;
+        if (T.A * T.fy + B.A * B.fy < Freq) {
+          nBend++;
+          return;
+        }
+        if (!fibOk(T, fibT) || !fibOk(B, fibB)) {
+          nFib++;
+          return;
+        }
+        cands.push({ ti, bi, price: price(prep, w, parts, T, B, bearingCache, minThroat) });
+      };
+      const t0 = groupStart[gt]!;
+      const b0 = groupStart[gb]!;
+      if (sp.symmetric) for (let i = 0; i < GT.options.length; i++) consider(t0 + i, t0 + i);
+      else for (let i = 0; i < GT.options.length; i++) for (let j = 0; j < GB.options.length; j++) consider(t0 + i, b0 + j);
+      pruned.bending += nBend;
+      pruned.flangeInducedBuckling += nFib;
+      cands.sort((a, b) => a.price.lb - b.price.lb || a.ti - b.ti || a.bi - b.bi);
+
+      let stopAt = cands.length;
+      for (let k = 0; k < cands.length; k++) {
+        const c = cands[k]!;
+        if (prunes(d, c.price.lb)) {
+          stopAt = k;
+          break;
+        }
+        const T = flanges[c.ti]!;
+        const B = flanges[c.bi]!;
+        const section = buildSection(w, parts, T, B);
+        const g = (c.price.plates * G_ACC) / L;
+        const verdict = checkGirder(section, p.load.effects(g), o);
+        fullEvaluations++;
+        const key: CandidateKey = [wi, c.ti, c.bi];
+        const { mass, value } = settle(prep, w, parts, T, B, c.price.plates, verdict, minThroat);
+        const e: Evaluated = { key, section: { ...section, bearing: verdict.bearing }, depth: d, mass, value, verdict };
+        if (verdict.passes) {
+          admit(e);
+          continue;
+        }
+        keepMiss(e);
+        if (failsWebOnly(verdict)) {
+          webDead = true;
+          stopAt = k + 1;
+          break;
+        }
+      }
+      pruned.incumbent += cands.length - stopAt;
+    }
+  }
+  return { front: [...stairs], nearMisses: misses, spaceSize, fullEvaluations, pruned };
+}
+
+export function throatOf(v: GirderVerdict, fallback: number): number {
+  const w = v.checks.find((c) => c.id === 'web-flange-weld');
+  const t = w?.values['throat'];
+  return typeof t === 'number' ? t : fallback;
+}
+
+/** Bearing-stiffener flats count (double-sided pairs × 2). */
+function bearingFlatCount(w: WebConfig, supports: readonly number[]): number {
+  return bearingPairs(w.endPost, supports) * 2;
+}
+
+/**
+ * The least bearing-stiffener flat the library's sizing can return for this candidate (it fits
+ * within the narrower flange outstand), or the default it falls back to when none fits.
+ */
+function bearingFloor(prep: Prepared, w: WebConfig, parts: WebParts, T: FlangeOption, B: FlangeOption, cache: Map<number, BearingFlat>): BearingFlat {
+  const minB = Math.min(T.b, B.b);
+  let hit = cache.get(minB);
+  if (!hit) {
+    const f = lightestFittingBearing(prep.p.options.bearingFlats, minB, w.tw);
+    if (f) hit = { bs: f.b, ts: f.t };
+    else {
+      const s = buildSection(w, parts, T, B);
+      const d = resolveBearing(s, fy(s.grade.stiffener, s.stiffeners?.ts ?? s.tw, prep.fySource));
+      hit = { bs: d.bs, ts: d.ts };
+    }
+    cache.set(minB, hit);
+  }
+  return hit;
+}
+
+export interface BearingFlat {
+  bs: number;
+  ts: number;
+}
+
+function bearingKg(prep: Prepared, w: WebConfig, b: BearingFlat): number {
+  return bearingFlatCount(w, prep.supports) * b.bs * b.ts * w.hw * KG_PER_MM3;
+}
+
+/**
+ * Before the checks: the plates' mass (web, flanges, intermediate stiffeners: the self-weight
+ * the girder carries; bearing stiffeners stand over the supports) and a lower bound on the
+ * objective (with the lightest bearing flats the sizing could choose).
+ */
+export function price(prep: Prepared, w: WebConfig, parts: WebParts, T: FlangeOption, B: FlangeOption, cache: Map<number, BearingFlat>, minThroat: number): Pricing {
+  // flanges added together first, so that swapping top and bottom gives the identical float
+  const plates = parts.webMass + parts.stiffMass + (flangeMass(T, prep.L) + flangeMass(B, prep.L));
+  const floor = bearingFloor(prep, w, parts, T, B, cache);
+  if (prep.p.objective === 'mass') return { plates, lb: plates + bearingKg(prep, w, floor) };
+  return { plates, lb: priceCost(prep, w, parts, T, B, floor, minThroat) };
+}
+
+/** After the checks: the objective's value with the bearing flats and weld throat the checks settled on. */
+export function settle(prep: Prepared, w: WebConfig, parts: WebParts, T: FlangeOption, B: FlangeOption, plates: number, v: GirderVerdict, minThroat: number): { mass: number; value: number } {
+  const b = { bs: v.bearing.bs, ts: v.bearing.ts };
+  const mass = plates + bearingKg(prep, w, b);
+  if (prep.p.objective === 'mass') return { mass, value: mass };
+  return { mass, value: priceCost(prep, w, parts, T, B, b, throatOf(v, minThroat)) };
+}
+
+export function priceCost(prep: Prepared, w: WebConfig, parts: WebParts, T: FlangeOption, B: FlangeOption, b: BearingFlat, throat: number): number {
+  return costOf(prep.p.cost, w, parts, T, B, bearingKg(prep, w, b), bearingFlatCount(w, prep.supports), b.bs, prep.L, throat).cost;
+}
+
+function minFlangeMass(prep: Prepared): number {
+  let m = Infinity;
+  for (const f of prep.flanges) m = Math.min(m, flangeMass(f, prep.L));
+  return m;
+}
+
+/** An upper bound on the self-weight per length of any candidate, kg/mm (for the demand range). */
+function maxMassPerLength(prep: Prepared): number {
+  const sp = prep.p.space;
+  const k = 7850e-9;
+  const hw = Math.max(...sp.hw);
+  const tw = Math.max(...sp.tw);
+  const Af = Math.max(...sp.bf) * Math.max(...sp.tf);
+  const flat = sp.flats.reduce((m, f) => Math.max(m, f.b * f.t), 0);
+  const minA = Math.min(...sp.panels.filter((n) => n > 0).map((n) => prep.Lmax / n), Infinity);
+  const stiffPerMm = minA === Infinity ? 0 : (2 * flat * hw) / minA;
+  // bearing stiffeners: at most 2 pairs per end, one per inner support, flats no larger than the flange outstand × 100 mm
+  const bearing = ((bearingPairs('rigid', prep.supports) * 2 * Math.max(flat, (Math.max(...sp.bf) / 2) * 150) * hw) / prep.L) * 1.5;
+  return k * (hw * tw + 2 * Af + stiffPerMm + bearing);
+}

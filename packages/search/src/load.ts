@@ -1,0 +1,84 @@
+import type { Effects } from '@platesmith/checks';
+
+/**
+ * What the search needs of the actions: design effects for a candidate's own self-weight g
+ * (N/mm, characteristic permanent UDL), and rigorous lower bounds on the demand over a range of
+ * self-weights so that bounds can prune before a candidate's own effects are computed.
+ */
+export interface LoadModel {
+  effects(g: number): Effects;
+  /**
+   * For every g in [gLo, gHi]: max sagging MEd ≥ Msag, max hogging −MEd ≥ Mhog, max |VEd| ≥ V
+   * (N·mm, N). sagAlways/hogAlways: some station has MEd > 0 (< 0) for every g in the range.
+   */
+  demandLowerBound(gLo: number, gHi: number): DemandBound;
+}
+
+export interface DemandBound {
+  Msag: number;
+  Mhog: number;
+  V: number;
+  sagAlways: boolean;
+  hogAlways: boolean;
+}
+
+/** Effects that do not depend on the candidate (an envelope from the user's own analysis). */
+export function fixedLoadModel(e: Effects): LoadModel {
+  let Msag = 0;
+  let Mhog = 0;
+  let V = 0;
+  for (const s of e.stations) {
+    Msag = Math.max(Msag, s.MEd);
+    Mhog = Math.max(Mhog, -s.MEd);
+    V = Math.max(V, Math.abs(s.VEd));
+  }
+  const bound: DemandBound = { Msag, Mhog, V, sagAlways: Msag > 0, hogAlways: Mhog > 0 };
+  return { effects: () => e, demandLowerBound: () => bound };
+}
+
+/**
+ * A load model linear in g per combination: at station i of combination c,
+ * MEd = M[c][i] + g·Mg[c][i], VEd = V[c][i] + g·Vg[c][i]. The lower bounds use the fact that an
+ * affine function's extremes over an interval are at its ends.
+ */
+export interface AffineDemand {
+  M: Float64Array[];
+  Mg: Float64Array[];
+  V: Float64Array[];
+  Vg: Float64Array[];
+}
+
+export function affineDemandBound(d: AffineDemand, gLo: number, gHi: number): DemandBound {
+  let Msag = 0;
+  let Mhog = 0;
+  let V = 0;
+  let sagAlways = false;
+  let hogAlways = false;
+  for (let c = 0; c < d.M.length; c++) {
+    const M = d.M[c]!;
+    const Mg = d.Mg[c]!;
+    const Vv = d.V[c]!;
+    const Vg = d.Vg[c]!;
+    for (let i = 0; i < M.length; i++) {
+      const m0 = M[i]! + gLo * Mg[i]!;
+      const m1 = M[i]! + gHi * Mg[i]!;
+      // the least, over g, of this combination's sagging moment here is min(m0, m1)
+      const mMin = Math.min(m0, m1);
+      const mMax = Math.max(m0, m1);
+      if (mMin > 0) {
+        sagAlways = true;
+        Msag = Math.max(Msag, mMin);
+      }
+      if (mMax < 0) {
+        hogAlways = true;
+        Mhog = Math.max(Mhog, -mMax);
+      }
+      const v0 = Vv[i]! + gLo * Vg[i]!;
+      const v1 = Vv[i]! + gHi * Vg[i]!;
+      // |affine| over an interval: zero if it changes sign, else the smaller end
+      const vMin = v0 * v1 <= 0 ? 0 : Math.min(Math.abs(v0), Math.abs(v1));
+      V = Math.max(V, vMin);
+    }
+  }
+  return { Msag, Mhog, V, sagAlways, hogAlways };
+}

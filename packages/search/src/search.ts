@@ -1,0 +1,47 @@
+import { assertSpace, spaceSize } from './space.js';
+import { prepareSearch, searchSlice, type Evaluated, type PruneStats, type SearchProblem, type SliceResult } from './core.js';
+import { paretoFront } from './pareto.js';
+
+export interface SearchResult {
+  /** Pareto set, depth ascending (so objective descending) */
+  pareto: Evaluated[];
+  /** the lightest (or cheapest) feasible candidate, or null */
+  lightest: Evaluated | null;
+  /** failed candidates closest to passing, when nothing is feasible (and otherwise for information) */
+  nearMisses: Evaluated[];
+  stats: {
+    spaceSize: number;
+    fullEvaluations: number;
+    pruned: PruneStats;
+    wallMs: number;
+    workers: number;
+    webConfigurations: number;
+  };
+}
+
+/** Merges slice results into one answer (exact: the front of a union is the front of the slices' fronts). */
+export function mergeSlices(slices: SliceResult[], wallMs: number, workers: number, webConfigurations: number, size: number): SearchResult {
+  const pareto = paretoFront(slices.flatMap((s) => s.front));
+  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, webOnly: 0, incumbent: 0 };
+  for (const s of slices) for (const k of Object.keys(pruned) as (keyof PruneStats)[]) pruned[k] += s.pruned[k];
+  const nearMisses = slices
+    .flatMap((s) => s.nearMisses)
+    .sort((a, b) => a.verdict.governing.utilisation - b.verdict.governing.utilisation)
+    .slice(0, 5);
+  return {
+    pareto,
+    lightest: pareto.length > 0 ? pareto[pareto.length - 1]! : null,
+    nearMisses,
+    stats: { spaceSize: size, fullEvaluations: slices.reduce((n, s) => n + s.fullEvaluations, 0), pruned, wallMs, workers, webConfigurations },
+  };
+}
+
+/** Single-threaded exact search (the worker pool runs the same slices in parallel). */
+export function search(p: SearchProblem, signal?: { aborted: boolean }): SearchResult {
+  const t0 = performance.now();
+  assertSpace(p.space);
+  const prep = prepareSearch(p);
+  const all = prep.webs.map((_, i) => i);
+  const r = searchSlice(prep, all, signal);
+  return mergeSlices([r], performance.now() - t0, 1, prep.webs.length, spaceSize(p.space));
+}

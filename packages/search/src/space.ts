@@ -1,0 +1,151 @@
+import { DomainError, FLAT_BARS, fy, type FlatBar, type FySource, type GradeName } from '@platesmith/catalogue';
+import type { EndPost } from '@platesmith/checks';
+
+/**
+ * The discrete design space (internal, mm). Every list is what can actually be bought or is
+ * allowed; the search is exact over the Cartesian product, less the candidates the user's
+ * fabrication rules exclude.
+ */
+export interface SpaceSpec {
+  hw: number[];
+  tw: number[];
+  bf: number[];
+  tf: number[];
+  /** top and bottom flange equal (grade, thickness, width) */
+  symmetric: boolean;
+  /** numbers of equal panels in the longest span; 0 = no intermediate stiffeners */
+  panels: number[];
+  flats: FlatBar[];
+  sides: (1 | 2)[];
+  endPosts: EndPost[];
+  webGrades: GradeName[];
+  flangeGrades: GradeName[];
+  /** overall depth h = hw + tf,top + tf,bot limits, mm */
+  minDepth: number;
+  maxDepth: number;
+  rules: FabricationRules;
+}
+
+/** Fabrication rules the user switches on (common practice, no source). */
+export interface FabricationRules {
+  /** tf ≤ k · tw */
+  tfMaxOverTw?: number | undefined;
+  /** bf/tf range */
+  bfOverTfMin?: number | undefined;
+  bfOverTfMax?: number | undefined;
+  /** stiffener flats at least as thick as the web */
+  stiffenerAtLeastWeb?: boolean | undefined;
+}
+
+/** One web configuration: everything but the flanges. */
+export interface WebConfig {
+  hw: number;
+  tw: number;
+  grade: GradeName;
+  fyw: number;
+  /** 0 = no intermediate stiffeners */
+  panels: number;
+  flat: FlatBar | null;
+  sides: 1 | 2;
+  endPost: EndPost;
+}
+
+/** One flange option: grade, thickness, width, and the fy that goes with the thickness. */
+export interface FlangeOption {
+  grade: GradeName;
+  t: number;
+  b: number;
+  fy: number;
+  /** area, mm² */
+  A: number;
+}
+
+export function defaultSpace(): SpaceSpec {
+  const range = (a: number, b: number, s: number) => Array.from({ length: Math.floor((b - a) / s) + 1 }, (_, i) => a + i * s);
+  return {
+    hw: range(800, 2400, 50),
+    tw: [8, 10, 12, 15, 20],
+    bf: range(250, 700, 25),
+    tf: [15, 20, 25, 30, 35, 40, 50],
+    symmetric: true,
+    panels: [0, ...range(2, 16, 1)],
+    flats: [...FLAT_BARS],
+    sides: [2],
+    endPosts: ['rigid', 'non-rigid'],
+    webGrades: ['S355'],
+    flangeGrades: ['S355'],
+    minDepth: 0,
+    maxDepth: Number.POSITIVE_INFINITY,
+    rules: {},
+  };
+}
+
+export function webConfigs(sp: SpaceSpec, fySource: FySource): WebConfig[] {
+  const out: WebConfig[] = [];
+  for (const grade of sp.webGrades)
+    for (const hw of sp.hw)
+      for (const tw of sp.tw) {
+        const fyw = fy(grade, tw, fySource, 'space.webThickness');
+        for (const endPost of sp.endPosts)
+          for (const panels of sp.panels) {
+            if (panels === 0) {
+              out.push({ hw, tw, grade, fyw, panels: 0, flat: null, sides: 2, endPost });
+              continue;
+            }
+            for (const flat of sp.flats) {
+              if (sp.rules.stiffenerAtLeastWeb && flat.t < tw) continue;
+              for (const sides of sp.sides) out.push({ hw, tw, grade, fyw, panels, flat, sides, endPost });
+            }
+          }
+      }
+  return out;
+}
+
+/** Flange options grouped by (grade, thickness), widths ascending. */
+export interface FlangeGroup {
+  grade: GradeName;
+  t: number;
+  fy: number;
+  options: FlangeOption[];
+}
+
+export function flangeGroups(sp: SpaceSpec, fySource: FySource): FlangeGroup[] {
+  const out: FlangeGroup[] = [];
+  const bfs = [...sp.bf].sort((a, b) => a - b);
+  for (const grade of sp.flangeGrades)
+    for (const t of [...sp.tf].sort((a, b) => a - b)) {
+      const f = fy(grade, t, fySource, 'space.flangeThickness');
+      const options = bfs
+        .filter((b) => (sp.rules.bfOverTfMin === undefined || b / t >= sp.rules.bfOverTfMin) && (sp.rules.bfOverTfMax === undefined || b / t <= sp.rules.bfOverTfMax))
+        .map((b) => ({ grade, t, b, fy: f, A: b * t }));
+      if (options.length > 0) out.push({ grade, t, fy: f, options });
+    }
+  return out;
+}
+
+/** Number of candidates in the space before rules and bounds (the figure a user is shown). */
+export function spaceSize(sp: SpaceSpec): number {
+  const stiffLayouts = sp.panels.reduce((n, p) => n + (p === 0 ? 1 : sp.flats.length * sp.sides.length), 0);
+  const webs = sp.webGrades.length * sp.hw.length * sp.tw.length * sp.endPosts.length * stiffLayouts;
+  const flanges = sp.flangeGrades.length * sp.tf.length * sp.bf.length;
+  return webs * (sp.symmetric ? flanges : flanges * flanges);
+}
+
+export function assertSpace(sp: SpaceSpec): void {
+  const lists: [string, unknown[]][] = [
+    ['space.webDepth', sp.hw],
+    ['space.webThickness', sp.tw],
+    ['space.flangeWidth', sp.bf],
+    ['space.flangeThickness', sp.tf],
+    ['space.panels', sp.panels],
+    ['space.endPost', sp.endPosts],
+    ['space.grade', sp.webGrades],
+    ['space.flangeGrade', sp.flangeGrades],
+  ];
+  for (const [field, l] of lists) {
+    if (l.length === 0) throw new DomainError('EMPTY_SPACE', `${field} is empty`, 'give at least one value', field);
+  }
+  if (sp.panels.some((p) => p > 0) && sp.flats.length === 0) {
+    throw new DomainError('EMPTY_SPACE', 'stiffened layouts are asked for but the flat-bar stock is empty', 'give flats or set panels to 0', 'space.flats');
+  }
+}

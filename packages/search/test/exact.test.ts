@@ -1,0 +1,67 @@
+import { describe, expect } from 'vitest';
+import { fc, test } from '@fast-check/vitest';
+import { FLAT_BARS, type GradeName } from '@platesmith/catalogue';
+import { defaultOptions } from '@platesmith/checks';
+import { bruteForce, DEFAULT_COST, search, type Evaluated, type SpaceSpec } from '../src/index.js';
+import { simpleSpanModel } from './fixtures.js';
+
+/**
+ * Exactness: on randomly drawn small spaces the search returns the same Pareto set (depth, value,
+ * section) as exhaustive enumeration with the same check library and objective. This is the
+ * property the product stands on; no tolerance.
+ */
+const pick = <T,>(xs: readonly T[]) => fc.subarray([...xs], { minLength: 1, maxLength: Math.min(3, xs.length) });
+
+const spaceArb = fc.record({
+  hw: pick([500, 700, 900, 1100, 1300, 1500]),
+  tw: pick([6, 8, 10, 12, 15]),
+  bf: pick([150, 200, 250, 300, 400, 500]),
+  tf: pick([10, 12, 15, 20, 25, 30, 45]),
+  symmetric: fc.boolean(),
+  panels: pick([0, 2, 3, 5]),
+  flats: fc.subarray([...FLAT_BARS].slice(0, 6), { minLength: 1, maxLength: 2 }),
+  endPosts: fc.subarray(['rigid', 'non-rigid'] as const, { minLength: 1 }),
+  flangeGrades: fc.subarray(['S275', 'S355'] as GradeName[], { minLength: 1 }),
+  maxDepth: fc.constantFrom(Infinity, 1200, 1400),
+});
+
+const problemArb = fc.record({
+  space: spaceArb,
+  L: fc.constantFrom(8000, 12000, 16000),
+  q: fc.double({ min: 10, max: 80, noNaN: true }),
+  P: fc.constantFrom(0, 150e3, 400e3),
+  objective: fc.constantFrom('mass', 'mass', 'cost') as fc.Arbitrary<'mass' | 'cost'>,
+  restrained: fc.boolean(),
+});
+
+function frontKey(f: Evaluated[]) {
+  return f.map((e) => ({ depth: e.depth, value: e.value, key: e.key }));
+}
+
+describe('search = brute force', () => {
+  test.prop([problemArb], { numRuns: 200 })('Pareto set and optimum equal exhaustive enumeration', ({ space, L, q, P, objective, restrained }) => {
+    const sp: SpaceSpec = {
+      hw: space.hw,
+      tw: space.tw,
+      bf: space.bf,
+      tf: space.tf,
+      symmetric: space.symmetric,
+      panels: space.panels,
+      flats: space.flats,
+      sides: [2],
+      endPosts: [...space.endPosts],
+      webGrades: ['S355'],
+      flangeGrades: space.flangeGrades,
+      minDepth: 0,
+      maxDepth: space.maxDepth,
+      rules: {},
+    };
+    const options = defaultOptions(L, restrained ? {} : { restraint: { kind: 'at', at: [0, L / 2, L] } });
+    const problem = { space: sp, options, load: simpleSpanModel(L, q, P, q / 1.4), objective, cost: DEFAULT_COST };
+    const fast = search(problem);
+    const brute = bruteForce(problem);
+    expect(frontKey(fast.pareto)).toEqual(frontKey(brute.front));
+    expect(fast.lightest?.value ?? null).toEqual(brute.front.at(-1)?.value ?? null);
+    expect(fast.stats.fullEvaluations).toBeLessThanOrEqual(brute.evaluations);
+  });
+});
