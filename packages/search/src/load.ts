@@ -1,4 +1,5 @@
 import type { Effects } from '@platesmith/checks';
+import { designEffects, type Analysis } from '@platesmith/actions';
 
 /**
  * What the search needs of the actions: design effects for a candidate's own self-weight g
@@ -32,7 +33,7 @@ export function fixedLoadModel(e: Effects): LoadModel {
     Mhog = Math.max(Mhog, -s.MEd);
     V = Math.max(V, Math.abs(s.VEd));
   }
-  const bound: DemandBound = { Msag, Mhog, V, sagAlways: Msag > 0, hogAlways: Mhog > 0 };
+  const bound = signed(Msag, Mhog, V, Msag > 0, Mhog > 0, Math.max(Msag, Mhog));
   return { effects: () => e, demandLowerBound: () => bound };
 }
 
@@ -54,6 +55,7 @@ export function affineDemandBound(d: AffineDemand, gLo: number, gHi: number): De
   let V = 0;
   let sagAlways = false;
   let hogAlways = false;
+  let mAbs = 0;
   for (let c = 0; c < d.M.length; c++) {
     const M = d.M[c]!;
     const Mg = d.Mg[c]!;
@@ -65,6 +67,7 @@ export function affineDemandBound(d: AffineDemand, gLo: number, gHi: number): De
       // the least, over g, of this combination's sagging moment here is min(m0, m1)
       const mMin = Math.min(m0, m1);
       const mMax = Math.max(m0, m1);
+      mAbs = Math.max(mAbs, Math.abs(m0), Math.abs(m1));
       if (mMin > 0) {
         sagAlways = true;
         Msag = Math.max(Msag, mMin);
@@ -80,5 +83,60 @@ export function affineDemandBound(d: AffineDemand, gLo: number, gHi: number): De
       V = Math.max(V, vMin);
     }
   }
-  return { Msag, Mhog, V, sagAlways, hogAlways };
+  return signed(Msag, Mhog, V, sagAlways, hogAlways, mAbs);
+}
+
+/** Lower bounds straight from an analysis' stored A + g·B form (no per-call allocation of effects). */
+export function analysisDemandBound(a: Analysis, gLo: number, gHi: number): DemandBound {
+  const nK = a.stationX.length;
+  const nC = a.combinations.length;
+  let Msag = 0;
+  let Mhog = 0;
+  let V = 0;
+  let sagAlways = false;
+  let hogAlways = false;
+  let mAbs = 0;
+  for (let c = 0; c < nC; c++) {
+    const gG = a.gammaG[c]!;
+    for (let k = 0; k < nK; k++) {
+      const mg = gG * a.Mg[k]!;
+      const vg = gG * a.Vg[k]!;
+      for (let t = 0; t < 4; t++) {
+        const base = (c * nK + k) * 8 + 2 * t;
+        const M = a.A[base]!;
+        const Vv = a.A[base + 1]!;
+        const m0 = M + gLo * mg;
+        const m1 = M + gHi * mg;
+        const mMin = Math.min(m0, m1);
+        const mMax = Math.max(m0, m1);
+        mAbs = Math.max(mAbs, Math.abs(m0), Math.abs(m1));
+        if (mMin > 0) {
+          sagAlways = true;
+          Msag = Math.max(Msag, mMin);
+        }
+        if (mMax < 0) {
+          hogAlways = true;
+          Mhog = Math.max(Mhog, -mMax);
+        }
+        const v0 = Vv + gLo * vg;
+        const v1 = Vv + gHi * vg;
+        V = Math.max(V, v0 * v1 <= 0 ? 0 : Math.min(Math.abs(v0), Math.abs(v1)));
+      }
+    }
+  }
+  return signed(Msag, Mhog, V, sagAlways, hogAlways, mAbs);
+}
+
+/** The load model of a beam or envelope analysis from @platesmith/actions. */
+export function analysisLoadModel(a: Analysis): LoadModel {
+  return { effects: (g) => designEffects(a, g), demandLowerBound: (gLo, gHi) => analysisDemandBound(a, gLo, gHi) };
+}
+
+/**
+ * The check library ignores moments below max(1 N·mm, 1e-9 × the largest |MEd|) when it decides
+ * which flange is ever in compression; a sign is "always present" only above that, at any g.
+ */
+function signed(Msag: number, Mhog: number, V: number, sag: boolean, hog: boolean, mAbsUpper: number): DemandBound {
+  const tiny = Math.max(1, 1e-9 * mAbsUpper);
+  return { Msag, Mhog, V, sagAlways: sag && Msag > tiny, hogAlways: hog && Mhog > tiny };
 }

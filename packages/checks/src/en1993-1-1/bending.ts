@@ -54,9 +54,13 @@ export function bendingForSign(ctx: CheckContext, side: FlangeSide): SignBending
 
 /** Signs of moment that occur among the stations (sagging if none is non-zero). */
 export function signsOf(stations: readonly Station[]): FlangeSide[] {
+  // a moment below 1e-9 of the largest (and below 1 N·mm) is round-off of the analysis, not a sign
+  let max = 0;
+  for (const st of stations) max = Math.max(max, Math.abs(st.MEd));
+  const tiny = Math.max(1, 1e-9 * max);
   const sides: FlangeSide[] = [];
-  if (stations.some((st) => st.MEd > 0)) sides.push('top');
-  if (stations.some((st) => st.MEd < 0)) sides.push('bot');
+  if (stations.some((st) => st.MEd > tiny)) sides.push('top');
+  if (stations.some((st) => st.MEd < -tiny)) sides.push('bot');
   return sides.length > 0 ? sides : ['top'];
 }
 
@@ -69,7 +73,9 @@ export function bendingCheck(ctx: CheckContext, e: Effects, per: ReadonlyMap<Fla
   const clause = 'EN 1993-1-1 6.2.5; EN 1993-1-5 4.3, 4.4';
   let worst = { u: 0, at: null as number | null, side: 'top' as FlangeSide };
   for (const st of e.stations) {
-    const side: FlangeSide = st.MEd > 0 ? 'top' : st.MEd < 0 ? 'bot' : [...per.keys()][0]!;
+    const want: FlangeSide = st.MEd > 0 ? 'top' : 'bot';
+    // a station of round-off moment may have a sign signsOf ignored: its |MEd| is negligible anyway
+    const side: FlangeSide = per.has(want) ? want : [...per.keys()][0]!;
     const b = per.get(side)!;
     const u = Math.abs(st.MEd) / b.McRd;
     if (u > worst.u || worst.at === null) worst = { u, at: st.x, side };
