@@ -6,3 +6,20 @@ export { parseWith, formatIssues, pathString, type FieldIssue, type Parsed } fro
 export { VALUE_UNITS, publishCheck, publishVerdict, type PublishedCheck, type PublishedVerdict } from './output.js';
 export { kN, kNm, toN, toNmm, fromN, fromNmm, convertValue, type ValueUnit } from './units.js';
 export { CAUTION, SCOPE } from './caution.js';
+export { ActionJson, DeflectionLimitJson, EnvelopeJson, ProblemJson, ProblemFields, BeamProblemFields } from './problem.js';
+export { GridJson, SpaceJson, CostJson } from './space.js';
+export {
+  CheckProblemInput,
+  SearchInput,
+  supportsOf,
+  toAnalysis,
+  selfWeight,
+  toCheckProblem,
+  runCheckJob,
+  toSpace,
+  toCost,
+  toSearchTask,
+  DEFAULT_SPACE_CAP,
+  type CheckJob,
+} from './problem-convert.js';
+export { publishSearch, publishPoint, type PublishedSearch, type PublishedPoint, type PublishedMiss } from './search-output.js';

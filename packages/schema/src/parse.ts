@@ -7,7 +7,14 @@ export interface FieldIssue {
   pointer: string;
   message: string;
   code: string;
+  /**
+   * 'shape': the JSON is not of the schema's form (wrong type, unknown or missing field) → 400;
+   * 'value': well-formed but meaningless (a refinement or range failed) → 422.
+   */
+  kind: 'shape' | 'value';
 }
+
+const VALUE_CODES = new Set(['custom', 'too_small', 'too_big', 'not_multiple_of']);
 
 export type Parsed<T> = { ok: true; value: T } | { ok: false; issues: FieldIssue[] };
 
@@ -35,6 +42,7 @@ export function parseWith<S extends z.ZodType>(schema: S, data: unknown): Parsed
       pointer: pointer(i.path),
       message: i.message,
       code: i.code,
+      kind: VALUE_CODES.has(i.code) ? 'value' : 'shape',
     })),
   };
 }

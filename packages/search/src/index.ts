@@ -4,4 +4,5 @@ export { fixedLoadModel, affineDemandBound, analysisLoadModel, analysisDemandBou
 export { prepareSearch, searchSlice, better, type SearchProblem, type Objective, type Evaluated, type CandidateKey, type SliceResult, type PruneStats, type Prepared } from './core.js';
 export { paretoFront } from './pareto.js';
 export { bruteForce } from './brute.js';
-export { search, type SearchResult } from './search.js';
+export { search, mergeSlices, type SearchResult } from './search.js';
+export { problemOf, stiffenerStations, type SearchTask } from './task.js';

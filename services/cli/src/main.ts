@@ -2,16 +2,23 @@
 import { isDomainError } from '@platesmith/catalogue';
 import { EXIT, InputError, readJson, stdio, type Out } from './io.js';
 import { runCheck } from './commands/check.js';
+import { runEffects } from './commands/effects.js';
+import { runSearch } from './commands/search.js';
+import { runDemo } from './commands/demo.js';
 
-const USAGE = `platesmith — lightest welded plate girders to Eurocode 3
+const USAGE = `platesmith — the lightest welded plate girders that pass Eurocode 3
 
 usage:
-  platesmith check FILE.json [--json]    check a section under given effects or a problem
+  platesmith check FILE.json [--json]    check a section: under given effects, or for a problem (self-weight added)
+  platesmith effects FILE.json [--json]  the analysis of a problem: reactions, MEd and VEd envelopes
+  platesmith search FILE.json [--json]   exact search of the plate space: Pareto set of depth against mass or cost
+  platesmith demo [--json]               search the bundled (invented) demo project
   platesmith help                        this text
 
+FILE may be - for standard input. Units: mm, kN, kN/m, kNm, MPa, kg.
 exit codes: 0 ok, 1 a check fails or no feasible section, 2 bad input`;
 
-export function main(argv: string[], io: Out = stdio): number {
+export async function main(argv: string[], io: Out = stdio): Promise<number> {
   const args = argv.filter((a) => !a.startsWith('--'));
   const flags = new Set(argv.filter((a) => a.startsWith('--')));
   const json = flags.has('--json');
@@ -20,6 +27,12 @@ export function main(argv: string[], io: Out = stdio): number {
     switch (cmd) {
       case 'check':
         return runCheck(readJson(file), json, io);
+      case 'effects':
+        return runEffects(readJson(file), json, io);
+      case 'search':
+        return await runSearch(readJson(file), json, io);
+      case 'demo':
+        return await runDemo(json, io);
       case undefined:
       case 'help':
         io.out(USAGE);
@@ -42,4 +55,8 @@ export function main(argv: string[], io: Out = stdio): number {
 }
 
 const isEntry = process.argv[1] !== undefined && import.meta.url === new URL(`file://${process.argv[1]}`).href;
-if (isEntry) process.exitCode = main(process.argv.slice(2));
+if (isEntry) {
+  main(process.argv.slice(2)).then((code) => {
+    process.exitCode = code;
+  });
+}

@@ -1,14 +1,39 @@
 import { checkGirder } from '@platesmith/checks';
-import { CheckEffectsInput, formatIssues, parseWith, publishVerdict, toCheckEffects } from '@platesmith/schema';
+import {
+  CheckEffectsInput,
+  CheckProblemInput,
+  formatIssues,
+  fromN,
+  parseWith,
+  publishVerdict,
+  runCheckJob,
+  toCheckEffects,
+  toCheckProblem,
+} from '@platesmith/schema';
 import { EXIT, InputError, type Out } from '../io.js';
 import { caution, renderChecks } from '../render.js';
 
+/** `check`: a section under raw effects ({ effects: [...] }) or for a problem (spans and actions, or an envelope). */
 export function runCheck(input: unknown, json: boolean, io: Out): number {
-  const parsed = parseWith(CheckEffectsInput, input);
-  if (!parsed.ok) throw new InputError(formatIssues(parsed.issues));
-  const { section, effects, options } = toCheckEffects(parsed.value);
-  const v = publishVerdict(checkGirder(section, effects, options));
-  if (json) io.out(JSON.stringify(v, null, 2));
-  else io.out(`${renderChecks(v)}\n\n${caution()}`);
-  return v.passes ? EXIT.ok : EXIT.fails;
+  const raw = typeof input === 'object' && input !== null && 'effects' in input;
+  let verdict;
+  let selfWeight: number | null = null;
+  if (raw) {
+    const parsed = parseWith(CheckEffectsInput, input);
+    if (!parsed.ok) throw new InputError(formatIssues(parsed.issues));
+    const { section, effects, options } = toCheckEffects(parsed.value);
+    verdict = publishVerdict(checkGirder(section, effects, options));
+  } else {
+    const parsed = parseWith(CheckProblemInput, input);
+    if (!parsed.ok) throw new InputError(formatIssues(parsed.issues));
+    const job = toCheckProblem(parsed.value);
+    selfWeight = job.g;
+    verdict = publishVerdict(runCheckJob(job));
+  }
+  if (json) io.out(JSON.stringify(selfWeight === null ? verdict : { ...verdict, selfWeight: Math.round(fromN(selfWeight) * 1e6) / 1e3 }, null, 2));
+  else {
+    const sw = selfWeight === null ? '' : `self-weight added: ${(selfWeight).toFixed(3)} kN/m (web, flanges, stiffeners)\n\n`;
+    io.out(`${sw}${renderChecks(verdict)}\n\n${caution()}`);
+  }
+  return verdict.passes ? EXIT.ok : EXIT.fails;
 }

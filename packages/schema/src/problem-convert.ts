@@ -1,0 +1,203 @@
+import { analyse, analyseEnvelope, type ActionSpec, type Analysis } from '@platesmith/actions';
+import { DomainError, FLAT_BARS, type GradeName } from '@platesmith/catalogue';
+import { checkGirder, girderMass, type CheckOptions, type Effects, type GirderVerdict, type Section } from '@platesmith/checks';
+import { DEFAULT_COST, defaultSpace, spaceSize, stiffenerStations, type CostModel, type SearchTask, type SpaceSpec } from '@platesmith/search';
+import { designEffects } from '@platesmith/actions';
+import { z } from 'zod';
+import { assertStockThickness, toCheckOptions, toSection } from './convert.js';
+import { ProblemFields, problemShape, type ProblemJson } from './problem.js';
+import { SectionJson } from './section.js';
+import { CostJson, SpaceJson, type SpaceJson as SpaceJsonT } from './space.js';
+import { toN, toNmm } from './units.js';
+
+/** Gravity, N per kg. */
+const G_ACC = 9.80665;
+
+export const CheckProblemInput = z
+  .strictObject({ ...ProblemFields, section: SectionJson })
+  .superRefine((p, ctx) => problemShape(p, ctx))
+  .meta({ id: 'CheckProblemInput', description: 'a section checked for a problem; its own self-weight is added' });
+export type CheckProblemInput = z.output<typeof CheckProblemInput>;
+
+export const SearchInput = z
+  .strictObject({
+    ...ProblemFields,
+    space: SpaceJson.default(SpaceJson.parse({})),
+    objective: z.enum(['mass', 'cost']).default('mass'),
+    cost: CostJson.optional(),
+  })
+  .superRefine((p, ctx) => problemShape(p, ctx))
+  .meta({ id: 'SearchInput', description: 'a problem and the space of plates to search' });
+export type SearchInput = z.output<typeof SearchInput>;
+
+/** Support positions of a problem, mm. */
+export function supportsOf(p: Pick<ProblemJson, 'spans' | 'envelope'>): number[] {
+  if (p.envelope) return p.envelope.supports ? [...p.envelope.supports] : [0, p.envelope.length];
+  const xs = [0];
+  for (const L of p.spans ?? []) xs.push(xs[xs.length - 1]! + L);
+  return xs;
+}
+
+/** Public problem → analysis (kN → N, kNm → N·mm; kN/m is N/mm). Domain errors name the field. */
+export function toAnalysis(p: ProblemJson, extraStations: number[] = []): Analysis {
+  if (p.envelope) {
+    const e = p.envelope;
+    return analyseEnvelope({
+      envelope: e.stations.map((s) => ({ x: s.x, MEd: toNmm(s.M), VEd: toN(s.V) })),
+      length: e.length,
+      ...(e.supports ? { supports: e.supports } : {}),
+      ...(e.reactions ? { reactions: e.reactions.map((r) => ({ x: r.x, R: toN(r.R) })) } : {}),
+      ...(e.forces ? { forces: e.forces.map((f) => ({ x: f.x, F: toN(f.F), ss: f.ss })) } : {}),
+    });
+  }
+  const actions: ActionSpec[] = (p.actions ?? []).map((a) => {
+    const out: ActionSpec = { kind: a.kind, load: a.load, value: a.load === 'point' ? toN(a.value) : a.value };
+    for (const k of ['at', 'from', 'to', 'ss', 'psi0', 'psi1', 'psi2', 'category', 'name'] as const) {
+      if (a[k] !== undefined) (out as unknown as Record<string, unknown>)[k] = a[k];
+    }
+    return out;
+  });
+  const L = (p.spans ?? []).reduce((s, x) => s + x, 0);
+  const inside = extraStations.filter((x) => x > 0 && x < L);
+  return analyse({
+    spans: p.spans ?? [],
+    actions,
+    combination: p.combination,
+    ...(p.factors ? { factors: p.factors } : {}),
+    ...(p.deflection ? { deflection: p.deflection } : {}),
+    ...(p.gridDivisions ? { gridDivisions: p.gridDivisions } : {}),
+    ...(inside.length ? { extraStations: inside } : {}),
+  });
+}
+
+/** Self-weight the girder carries, N/mm: web, flanges and intermediate stiffeners (bearing stiffeners stand over the supports). */
+export function selfWeight(s: Section, supports: readonly number[]): number {
+  const L = supports[supports.length - 1]! - supports[0]!;
+  const m = girderMass(s, L, supports, { bs: 0, ts: 0, e: 0 });
+  return ((m.web + m.topFlange + m.bottomFlange + m.stiffeners) * G_ACC) / L;
+}
+
+export interface CheckJob {
+  section: Section;
+  effects: Effects;
+  options: CheckOptions;
+  analysis: Analysis;
+  /** self-weight added, N/mm */
+  g: number;
+}
+
+function restraintStations(o: CheckOptions): number[] {
+  return o.restraint.kind === 'at' ? o.restraint.at : [];
+}
+
+/** A section checked for a problem, its own self-weight added as a permanent action. */
+export function toCheckProblem(j: CheckProblemInput): CheckJob {
+  const section = toSection(j.section);
+  assertStockThickness(section.top.t, 'section.topFlange.thickness');
+  assertStockThickness(section.bot.t, 'section.bottomFlange.thickness');
+  const supports = supportsOf(j);
+  const options = toCheckOptions(j.options, supports);
+  const analysis = toAnalysis(j, [...(section.stiffeners ? exactStiffenerXs(supports, section.stiffeners.a) : []), ...restraintStations(options)]);
+  const g = analysis.kind === 'envelope' ? 0 : selfWeight(section, supports);
+  return { section, effects: designEffects(analysis, g), options, analysis, g };
+}
+
+export function runCheckJob(job: CheckJob): GirderVerdict {
+  return checkGirder(job.section, job.effects, job.options);
+}
+
+function spansOf(supports: readonly number[]): number[] {
+  return supports.slice(1).map((x, i) => x - supports[i]!);
+}
+
+function exactStiffenerXs(supports: readonly number[], a: number): number[] {
+  const xs: number[] = [];
+  for (let i = 0; i + 1 < supports.length; i++) for (let k = 1; supports[i]! + k * a < supports[i + 1]! - 1; k++) xs.push(supports[i]! + k * a);
+  return xs;
+}
+
+function grid(v: number[] | { min: number; max: number; step: number } | undefined, fallback: number[], field: string, tMax?: number): number[] {
+  let xs: number[];
+  if (v === undefined) xs = fallback;
+  else if (Array.isArray(v)) xs = [...new Set(v)].sort((a, b) => a - b);
+  else {
+    xs = [];
+    for (let i = 0; v.min + i * v.step <= v.max + 1e-9; i++) xs.push(Math.round((v.min + i * v.step) * 1e6) / 1e6);
+  }
+  for (const x of xs) {
+    if (!(x > 0)) throw new DomainError('BAD_DIMENSION', `${field} holds ${x}: plate dimensions must be positive (mm)`, 'give positive values in mm', field, { value: x });
+    if (tMax !== undefined && x > tMax) throw new DomainError('BAD_DIMENSION', `${field} holds ${x} mm, over ${tMax} mm`, 'lengths are in mm', field, { value: x });
+  }
+  return xs;
+}
+
+const list = (g: GradeName | GradeName[]): GradeName[] => (Array.isArray(g) ? [...new Set(g)] : [g]);
+
+/** Public space → internal SpaceSpec with the catalogue's defaults. */
+export function toSpace(j: SpaceJsonT): SpaceSpec {
+  const d = defaultSpace();
+  const panels = j.panels === undefined ? d.panels : Array.isArray(j.panels) ? [...new Set(j.panels)] : Array.from({ length: Math.max(0, j.panels.max - j.panels.min + 1) }, (_, i) => j.panels && !Array.isArray(j.panels) ? j.panels.min + i : 0);
+  // one panel in the longest span is the same girder as none: keep the one form
+  const panelsNorm = [...new Set(panels.map((n) => (n === 1 ? 0 : n)))].sort((a, b) => a - b);
+  const g = j.grade;
+  const grades = typeof g === 'string' || Array.isArray(g) ? { web: list(g as GradeName | GradeName[]), flanges: list(g as GradeName | GradeName[]) } : { web: list(g.web as GradeName | GradeName[]), flanges: list(g.flanges as GradeName | GradeName[]) };
+  const tf = grid(j.flangeThickness, d.tf, 'space.flangeThickness', 150);
+  for (const t of tf) assertStockThickness(t, 'space.flangeThickness');
+  const flats = (j.flats ?? FLAT_BARS.map((f) => ({ width: f.b, thickness: f.t }))).map((f, i) => {
+    if (!(f.width > 0 && f.thickness > 0)) throw new DomainError('BAD_DIMENSION', `space.flats[${i}] must have a positive width and thickness (mm)`, 'give flats in mm', `space.flats[${i}]`);
+    return { b: f.width, t: f.thickness };
+  });
+  if (panelsNorm.some((n) => n > 0) && flats.length === 0) throw new DomainError('EMPTY_SPACE', 'stiffened layouts are asked for but space.flats is empty', 'give flats, or panels [0]', 'space.flats');
+  return {
+    hw: grid(j.webDepth, d.hw, 'space.webDepth', 10_000),
+    tw: grid(j.webThickness, d.tw, 'space.webThickness', 150),
+    bf: grid(j.flangeWidth, d.bf, 'space.flangeWidth', 3000),
+    tf,
+    symmetric: j.symmetric,
+    panels: panelsNorm,
+    flats,
+    sides: j.stiffenerSides === 'both' ? [1, 2] : [j.stiffenerSides],
+    endPosts: j.endPost === 'both' ? ['rigid', 'non-rigid'] : [j.endPost],
+    webGrades: grades.web,
+    flangeGrades: grades.flanges,
+    minDepth: j.minDepth ?? 0,
+    maxDepth: j.maxDepth ?? Number.POSITIVE_INFINITY,
+    rules: {
+      tfMaxOverTw: j.rules.tfMaxOverTw,
+      bfOverTfMin: j.rules.bfOverTfMin,
+      bfOverTfMax: j.rules.bfOverTfMax,
+      stiffenerAtLeastWeb: j.rules.stiffenerAtLeastWeb,
+    },
+  };
+}
+
+export function toCost(j: z.output<typeof CostJson> | undefined): CostModel {
+  if (!j) return DEFAULT_COST;
+  return {
+    ...DEFAULT_COST,
+    ...(j.km !== undefined ? { km: j.km } : {}),
+    ...(j.kfOverKm !== undefined ? { kfOverKm: j.kfOverKm } : {}),
+    ...(j.gradeFactor ? { gradeFactor: { ...DEFAULT_COST.gradeFactor, ...j.gradeFactor } } : {}),
+    ...(j.thetaD !== undefined ? { thetaD: j.thetaD } : {}),
+    ...(j.flangeWeld ? { flangeWeld: j.flangeWeld } : {}),
+    ...(j.stiffenerWeld ? { stiffenerWeld: j.stiffenerWeld } : {}),
+    ...(j.painted !== undefined ? { painted: j.painted } : {}),
+  };
+}
+
+/** Default cap on the number of candidates a request may ask the search to consider. */
+export const DEFAULT_SPACE_CAP = 1e12;
+
+/** Public search input → plain task for the workers. The space's size is checked against the cap first. */
+export function toSearchTask(j: SearchInput, cap = DEFAULT_SPACE_CAP): SearchTask {
+  const space = toSpace(j.space);
+  const size = spaceSize(space);
+  if (size > cap) {
+    throw new DomainError('SPACE_TOO_LARGE', `the space holds ${size.toExponential(3)} candidates, over the cap of ${cap.toExponential(0)}`, 'narrow the grids (fewer widths, thicknesses or panel counts) or ask the operator to raise the cap', 'space', { size, cap });
+  }
+  const supports = supportsOf(j);
+  const options = toCheckOptions(j.options, supports);
+  const spans = spansOf(supports);
+  const analysis = toAnalysis(j, [...stiffenerStations(spans, space.panels), ...restraintStations(options)]);
+  return { space, options, analysis, objective: j.objective, cost: toCost(j.cost) };
+}

@@ -1,0 +1,93 @@
+import { z } from 'zod';
+import { CheckOptionsJson } from './options.js';
+
+const num = (what: string, unit: string) =>
+  z.number({ error: `${what} must be a number (${unit})` }).refine(Number.isFinite, { message: `${what} must be finite` }).meta({ description: `${what}, ${unit}` });
+
+export const ActionJson = z
+  .strictObject({
+    kind: z.enum(['permanent', 'variable']),
+    load: z.enum(['udl', 'partial-udl', 'point']),
+    value: num('value', 'kN/m for udl and partial-udl, kN for point; downward positive'),
+    at: num('at', 'mm from the left end (point loads)').optional(),
+    from: num('from', 'mm from the left end (partial-udl)').optional(),
+    to: num('to', 'mm from the left end (partial-udl)').optional(),
+    ss: num('ss', 'mm, stiff bearing length of a point load (default 100)').optional(),
+    psi0: num('psi0', '-').optional(),
+    psi1: num('psi1', '-').optional(),
+    psi2: num('psi2', '-').optional(),
+    category: z
+      .enum(['A', 'B', 'C', 'D', 'E', 'F', 'G', 'H', 'snow', 'snow-high-altitude', 'wind', 'temperature'])
+      .optional()
+      .meta({ description: 'EN 1990 Table A1.1 category giving ψ0, ψ1, ψ2' }),
+    name: z.string().max(80).optional(),
+  })
+  .meta({ id: 'Action', description: 'a characteristic action on the girder' });
+
+export const DeflectionLimitJson = z.strictObject({
+  name: z.string().min(1).max(60),
+  ratio: num('ratio', 'limit = span / ratio'),
+  combination: z.enum(['characteristic', 'frequent', 'quasi-permanent']).default('characteristic'),
+  include: z.enum(['all', 'variable']).default('all').meta({ description: "'variable': variable actions only" }),
+});
+
+export const FactorsGJson = z
+  .strictObject({
+    gammaGsup: num('gammaGsup', '-').optional(),
+    gammaGinf: num('gammaGinf', '-').optional(),
+    gammaQ: num('gammaQ', '-').optional(),
+    xi: num('xi', '-').optional(),
+  })
+  .meta({ description: 'EN 1990 Table A1.2(B) factors (recommended 1.35, 1.00, 1.50, ξ 0.85)' });
+
+/** A beam problem: spans (mm, simply supported ends, continuous over inner supports) and actions. */
+export const BeamProblemFields = {
+  spans: z.array(num('span', 'mm')).min(1, { message: 'give at least one span' }).max(20).meta({ description: 'span lengths, mm (24000 for 24 m)' }),
+  actions: z.array(ActionJson).max(500),
+  combination: z.enum(['6.10', '6.10ab']).default('6.10').meta({ description: 'EN 1990 eq. 6.10, or the worse of 6.10a and 6.10b' }),
+  factors: FactorsGJson.optional(),
+  deflection: z.array(DeflectionLimitJson).max(10).optional().meta({ description: 'default: total span/250 and variable span/360, characteristic' }),
+  gridDivisions: z.number().int().min(4).max(400).optional().meta({ description: 'analysis stations per span (default 40)' }),
+};
+
+/** Design effects from the user's own global analysis (bridges, frames). */
+export const EnvelopeJson = z
+  .strictObject({
+    length: num('length', 'mm'),
+    supports: z.array(num('support', 'mm')).min(2).max(21).optional().meta({ description: 'support positions, mm; default both ends' }),
+    stations: z
+      .array(z.strictObject({ x: num('x', 'mm'), M: num('M', 'kNm, sagging positive'), V: num('V', 'kN') }))
+      .min(1)
+      .max(20_000),
+    reactions: z.array(z.strictObject({ x: num('x', 'mm'), R: num('R', 'kN') })).max(21).optional(),
+    forces: z.array(z.strictObject({ x: num('x', 'mm'), F: num('F', 'kN'), ss: num('ss', 'mm') })).max(500).optional(),
+  })
+  .meta({ id: 'Envelope' });
+
+export const ProblemFields = {
+  spans: BeamProblemFields.spans.optional(),
+  actions: BeamProblemFields.actions.optional(),
+  combination: BeamProblemFields.combination,
+  factors: BeamProblemFields.factors,
+  deflection: BeamProblemFields.deflection,
+  gridDivisions: BeamProblemFields.gridDivisions,
+  envelope: EnvelopeJson.optional(),
+  options: CheckOptionsJson.default(CheckOptionsJson.parse({})),
+  note: z.string().max(2000).optional().meta({ description: 'free text carried along (e.g. the girder mark)' }),
+};
+
+export const ProblemJson = z
+  .strictObject(ProblemFields)
+  .superRefine((p, ctx) => problemShape(p, ctx))
+  .meta({ id: 'Problem', description: 'spans and actions (analysed here), or an envelope of design effects' });
+
+export function problemShape(p: { spans?: unknown; actions?: unknown; envelope?: unknown }, ctx: z.RefinementCtx): void {
+  if (p.envelope !== undefined && (p.spans !== undefined || p.actions !== undefined)) {
+    ctx.addIssue({ code: 'invalid_type', expected: 'object', path: ['envelope'], message: 'give either spans and actions or an envelope, not both' } as never);
+  }
+  if (p.envelope === undefined && (p.spans === undefined || p.actions === undefined)) {
+    ctx.addIssue({ code: 'invalid_type', expected: 'array', path: [p.spans === undefined ? 'spans' : 'actions'], message: 'a problem needs spans and actions (or an envelope)' } as never);
+  }
+}
+
+export type ProblemJson = z.output<typeof ProblemJson>;

@@ -1,0 +1,77 @@
+import { createSearchPool, searchOnPool } from '@platesmith/search/pool';
+import { formatIssues, parseWith, publishSearch, SearchInput, toSearchTask, type PublishedSearch } from '@platesmith/schema';
+import { EXIT, InputError, type Out } from '../io.js';
+import { caution } from '../render.js';
+import { fmt, table } from '../table.js';
+
+export async function solve(input: unknown, threads?: number): Promise<PublishedSearch> {
+  const parsed = parseWith(SearchInput, input);
+  if (!parsed.ok) throw new InputError(formatIssues(parsed.issues));
+  const task = toSearchTask(parsed.value);
+  const pool = createSearchPool(threads !== undefined ? { threads } : {});
+  try {
+    const r = await searchOnPool(pool, task);
+    return publishSearch(r, task.objective, task.analysis.length);
+  } finally {
+    await pool.close();
+  }
+}
+
+export function renderSearch(r: PublishedSearch, title?: string): string {
+  const lines: string[] = [];
+  if (title) lines.push(title, '');
+  if (r.pareto.length === 0) {
+    lines.push('No section in the space passes every check.');
+    if (r.nearMisses.length) {
+      lines.push('', 'Nearest misses:');
+      lines.push(
+        table(
+          ['depth (mm)', 'mass (kg)', 'section', 'governing', 'util.', 'failing'],
+          r.nearMisses.map((m) => [m.depth, fmt(m.mass, 5), describe(m.section), m.governing.id, m.governing.utilisation?.toFixed(3) ?? 'inf', m.failing.join(', ')]),
+          ['r', 'r', 'l', 'l', 'r', 'l'],
+        ),
+      );
+    }
+  } else {
+    const unit = r.objective === 'mass' ? 'kg' : 'cost';
+    lines.push(`Pareto set: overall depth against ${r.objective} (each row: nothing shallower or as shallow is lighter)`);
+    lines.push(
+      table(
+        ['depth (mm)', 'mass (kg)', 'kg/m', ...(r.objective === 'cost' ? [unit] : []), 'section', 'governing check', 'clause', 'util.'],
+        r.pareto.map((p) => [
+          p.depth,
+          fmt(p.mass, 5),
+          fmt(p.massPerMetre, 4),
+          ...(r.objective === 'cost' ? [fmt(p.value, 5)] : []),
+          describe(p.section),
+          p.governing.id,
+          p.governing.clause,
+          p.governing.utilisation?.toFixed(3) ?? 'inf',
+        ]),
+        ['r', 'r', 'r', ...(r.objective === 'cost' ? ['r' as const] : []), 'l', 'l', 'l', 'r'],
+      ),
+    );
+    const l = r.lightest!;
+    lines.push('', `Lightest${r.objective === 'cost' ? ' (cheapest)' : ''}: ${describe(l.section)} — ${fmt(l.mass, 5)} kg, depth ${l.depth} mm, governed by ${l.governing.id} (${l.governing.clause}) at ${l.governing.utilisation?.toFixed(3)}`);
+  }
+  const s = r.stats;
+  lines.push('', `Searched ${s.spaceSize.toExponential(2)} candidates exactly: ${s.fullEvaluations} judged in full (${((s.fullEvaluations / Math.max(1, s.spaceSize)) * 100).toPrecision(2)} %), the rest pruned by bounds (depth ${s.pruned.depth}, shear ${s.pruned.shear}, bending ${s.pruned.bending}, flange-induced buckling ${s.pruned.flangeInducedBuckling}, web-only ${s.pruned.webOnly}, incumbent ${s.pruned.incumbent}, rules ${s.pruned.rules}); ${s.wallMs.toFixed(0)} ms on ${s.workers} workers.`);
+  return lines.join('\n');
+}
+
+/** Short plate description: web hw×tw, flanges b×t, stiffeners, end post, grade. */
+export function describe(s: PublishedSearch['pareto'][number]['section']): string {
+  const fl = (f: { width: number; thickness: number }) => `${f.width}×${f.thickness}`;
+  const same = s.topFlange.width === s.bottomFlange.width && s.topFlange.thickness === s.bottomFlange.thickness;
+  const flanges = same ? `2 fl ${fl(s.topFlange)}` : `top ${fl(s.topFlange)} / bot ${fl(s.bottomFlange)}`;
+  const st = s.stiffeners ? `stiff ${s.stiffeners.width}×${s.stiffeners.thickness} @${Math.round(s.stiffeners.spacing)}${s.stiffeners.sides === 1 ? ' 1-side' : ''}` : 'no stiff';
+  const grade = typeof s.grade === 'string' ? s.grade : `${s.grade.web}/${s.grade.flanges}`;
+  return `web ${s.web.depth}×${s.web.thickness}, ${flanges}, ${st}, ${s.endPost} end post, ${grade}`;
+}
+
+export async function runSearch(input: unknown, json: boolean, io: Out): Promise<number> {
+  const r = await solve(input);
+  if (json) io.out(JSON.stringify(r, null, 2));
+  else io.out(`${renderSearch(r)}\n\n${caution()}`);
+  return r.pareto.length > 0 ? EXIT.ok : EXIT.fails;
+}
