@@ -331,3 +331,19 @@ export function assertSection(s: Section): void {
     throw new DomainError('FLANGE_NARROWER_THAN_WEB', 'a flange is not wider than the web', 'flange width must exceed the web thickness', s.top.b <= s.tw ? 'section.topFlange.width' : 'section.bottomFlange.width');
   }
 }
+
+/**
+ * Gross Iy (mm⁴) of a welded I from its plates, closed form about the elastic neutral axis
+ * (elementary mechanics). Equal to grossProps().Iy up to round-off; the search uses it in bounds.
+ */
+export function iyOfPlates(hw: number, tw: number, bt: number, tt: number, bb: number, tb: number): number {
+  const At = bt * tt;
+  const Ab = bb * tb;
+  const Aw = hw * tw;
+  const zt = tb + hw + tt / 2;
+  const zw = tb + hw / 2;
+  const zb = tb / 2;
+  const A = At + Aw + Ab;
+  const z = (At * zt + Aw * zw + Ab * zb) / A;
+  return (bt * tt ** 3 + tw * hw ** 3 + bb * tb ** 3) / 12 + At * (zt - z) ** 2 + Aw * (zw - z) ** 2 + Ab * (zb - z) ** 2;
+}

@@ -2,7 +2,9 @@ import type { FySource } from '@platesmith/catalogue';
 import {
   checkGirder,
   flangeOutstand,
+  iyOfPlates,
   lightestFittingBearing,
+  minIyForDeflection,
   maxCompressionFlangeAreaFIB,
   minFlangeForceForBending,
   resolveBearing,
@@ -12,7 +14,7 @@ import {
   type Section,
 } from '@platesmith/checks';
 import { fy } from '@platesmith/catalogue';
-import type { LoadModel } from './load.js';
+import type { DemandBound, LoadModel } from './load.js';
 import { bearingPairs, buildSection, costOf, flangeMass, webParts, type CostModel, type WebParts } from './objective.js';
 
 const KG_PER_MM3 = 7850e-9;
@@ -52,6 +54,7 @@ export interface PruneStats {
   shear: number;
   bending: number;
   flangeInducedBuckling: number;
+  deflection: number;
   webOnly: number;
   incumbent: number;
 }
@@ -63,6 +66,8 @@ export interface SliceResult {
   spaceSize: number;
   fullEvaluations: number;
   pruned: PruneStats;
+  /** candidates judged in full that failed, by their governing check */
+  failedBy: Record<string, number>;
 }
 
 /** Total order on (value, key): the tie-break that makes the answer unique and equal to brute force. */
@@ -128,20 +133,27 @@ interface Pricing {
 
 /**
  * Exact search over the web configurations `webIdx` (a slice of prep.webs): the Pareto set of
- * overall depth against the objective, for that slice. See DEVELOPERS.md "How the search is exact".
+ * overall depth against the objective, for that slice.
+ *
+ * A candidate is judged in full only when no bound excludes it: bounds from the check library
+ * (shear, bending, flange-induced buckling, deflection) that every passing section satisfies, and
+ * the staircase of feasible points found so far (a candidate whose objective cannot beat what is
+ * already feasible at its depth or shallower is not on the Pareto set). Webs are visited in
+ * ascending order of a lower bound on their lightest candidate, and a web's flange groups in
+ * ascending order of theirs, so that light feasible points are found early and prune the rest.
  */
 export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: { aborted: boolean }): SliceResult {
-  const { p, webs, groups, flanges, groupStart, L, Lmax, supports, fySource } = prep;
+  const { p, webs, groups, flanges, groupStart, L, Lmax, supports } = prep;
   const o = p.options;
   const sp = p.space;
-  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, webOnly: 0, incumbent: 0 };
+  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, webOnly: 0, incumbent: 0 };
   let fullEvaluations = 0;
   let spaceSize = 0;
   const minThroat = o.weldThroats[0]!;
+  const failedBy: Record<string, number> = {};
 
   // staircase of feasible points found so far: depth ascending, value strictly descending
   const stairs: Evaluated[] = [];
-  /** the least value among found points with depth ≤ d (and whether one lies strictly shallower with that value) */
   const prunes = (d: number, lb: number): boolean => {
     for (const s of stairs) {
       if (s.depth > d) break;
@@ -151,7 +163,6 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
     return false;
   };
   const admit = (e: Evaluated): void => {
-    // drop points the new one dominates, insert, keep the staircase strictly descending
     for (let i = stairs.length - 1; i >= 0; i--) {
       const s = stairs[i]!;
       const dominated = s.depth >= e.depth && (e.value < s.value || (e.value === s.value && (e.depth < s.depth || better(e.value, e.key, s.value, s.key))));
@@ -167,45 +178,95 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
   const misses: Evaluated[] = [];
   const keepMiss = (e: Evaluated): void => {
     misses.push(e);
-    misses.sort((a, b) => a.verdict.governing.utilisation - b.verdict.governing.utilisation);
+    misses.sort((x, y) => x.verdict.governing.utilisation - y.verdict.governing.utilisation);
     if (misses.length > 5) misses.pop();
   };
 
-  const tfMin = Math.min(...sp.tf);
-  const tfMaxAll = Math.max(...sp.tf);
-  const gMax = (maxMassPerLength(prep) * G_ACC) / 1;
+  const tfSorted = [...new Set(groups.map((g) => g.t))].sort((x, y) => x - y);
+  const tfMin = tfSorted[0] ?? 0;
+  const gMax = maxMassPerLength(prep) * G_ACC;
   const nFlange = flanges.length;
   const pairsPerWeb = sp.symmetric ? nFlange : nFlange * nFlange;
   const kFibMax = o.kFib === 'auto' ? 0.55 : o.kFib;
+  const lightestFlange = minFlangeMass(prep);
+  const fyfMax = Math.max(...groups.map((g) => g.fy));
+  const lightestBearingKg = (w: WebConfig) => {
+    let a = Infinity;
+    for (const f of o.bearingFlats) a = Math.min(a, f.b * f.t);
+    return a === Infinity ? 0 : bearingFlatCount(w, supports) * a * w.hw * KG_PER_MM3;
+  };
+  const groupPairs = sp.symmetric ? groups.map((_, i) => [i, i] as const) : groups.flatMap((_, i) => groups.map((__, j) => [i, j] as const));
 
+  // web-level pass: cheap bounds, and the order of visit
+  interface WebPlan {
+    wi: number;
+    parts: WebParts;
+    lb: number;
+    dMin: number;
+    Freq: number;
+    Mneed: number;
+    dem: DemandBound;
+    IyReq: number;
+  }
+  const plans: WebPlan[] = [];
   for (const wi of webIdx) {
-    if (signal?.aborted) break;
     const w = webs[wi]!;
     spaceSize += pairsPerWeb;
-    if (w.hw + 2 * tfMin > sp.maxDepth) {
+    const dMin = w.hw + 2 * tfMin;
+    if (dMin > sp.maxDepth) {
       pruned.depth += pairsPerWeb;
       continue;
     }
     const parts = webParts(w, L, supports, Lmax);
-    // lightest possible self-weight of any candidate on this web: web + stiffeners + the two lightest flanges
-    const gLo = ((parts.webMass + parts.stiffMass + 2 * minFlangeMass(prep)) * G_ACC) / L;
+    // lightest possible self-weight of any candidate on this web: web, stiffeners, the two lightest flanges
+    const gLo = ((parts.webMass + parts.stiffMass + 2 * lightestFlange) * G_ACC) / L;
     const dem = p.load.demandLowerBound(gLo, gMax);
     if (webShearCapacityBound(w.hw, w.tw, w.fyw, o.eta, o.factors.gammaM0, o.factors.gammaM1) < dem.V) {
       pruned.shear += pairsPerWeb;
       continue;
     }
+    const IyReq = minIyForDeflection(p.load.deflectionFloor(gLo, gMax), w.hw * w.tw, o.E, o.G);
+    if (IyReq === Infinity) {
+      pruned.deflection += pairsPerWeb;
+      continue;
+    }
+    const Mneed = Math.max(dem.Msag, dem.Mhog);
+    const Freq = minFlangeForceForBending({
+      hw: w.hw,
+      tw: w.tw,
+      fyw: w.fyw,
+      MEd: Mneed,
+      gammaM0: o.factors.gammaM0,
+      hMax: Math.min(sp.maxDepth, w.hw + 2 * (tfSorted[tfSorted.length - 1] ?? 0)),
+      symmetric: sp.symmetric,
+      tfMax: tfSorted[tfSorted.length - 1] ?? 0,
+      fyfMax,
+    });
+    const flangeKgFloor = Math.max(2 * lightestFlange, (Freq / fyfMax) * L * KG_PER_MM3);
+    const lb = parts.webMass + parts.stiffMass + flangeKgFloor + lightestBearingKg(w);
+    plans.push({ wi, parts, lb, dMin, Freq, Mneed, dem, IyReq });
+  }
+  plans.sort((x, y) => x.lb - y.lb || x.wi - y.wi);
+
+  for (const plan of plans) {
+    if (signal?.aborted) break;
+    const { wi, parts, dem, Mneed, IyReq } = plan;
+    const w = webs[wi]!;
+    if (p.objective === 'mass' && prunes(plan.dMin, plan.lb)) {
+      pruned.incumbent += pairsPerWeb;
+      continue;
+    }
     const fibTop = dem.sagAlways ? maxCompressionFlangeAreaFIB({ hw: w.hw, tw: w.tw, fyfMin: 1, k: kFibMax, E: o.E }) : Infinity;
     const fibBot = dem.hogAlways ? maxCompressionFlangeAreaFIB({ hw: w.hw, tw: w.tw, fyfMin: 1, k: kFibMax, E: o.E }) : Infinity;
-    const Mneed = Math.max(dem.Msag, dem.Mhog);
-    let webDead = false;
     const bearingCache = new Map<number, BearingFlat>();
 
-    const groupPairs = sp.symmetric ? groups.map((_, i) => [i, i] as const) : groups.flatMap((_, i) => groups.map((__, j) => [i, j] as const));
+    // group pass: admissible candidates of each (top, bottom) flange group, priced
+    interface GroupPlan {
+      d: number;
+      cands: { ti: number; bi: number; price: Pricing }[];
+    }
+    const gplans: GroupPlan[] = [];
     for (const [gt, gb] of groupPairs) {
-      if (webDead || signal?.aborted) {
-        pruned.webOnly += sp.symmetric ? groups[gt]!.options.length : groups[gt]!.options.length * groups[gb]!.options.length;
-        continue;
-      }
       const GT = groups[gt]!;
       const GB = groups[gb]!;
       const nPairs = sp.symmetric ? GT.options.length : GT.options.length * GB.options.length;
@@ -230,24 +291,24 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
         tfMax: Math.max(GT.t, GB.t),
         fyfMax: Math.max(GT.fy, GB.fy),
       });
-      // FIB bounds on gross areas: only where the compression flange's outstand is fully effective
+      // FIB bounds apply to gross areas only where the compression flange's outstand is fully effective
       const fibT = fibTop === Infinity ? Infinity : fibTop / (GT.fy * GT.fy);
       const fibB = fibBot === Infinity ? Infinity : fibBot / (GB.fy * GB.fy);
       const fibOk = (f: FlangeOption, lim: number) => lim === Infinity || f.A <= lim || flangeOutstand({ b: f.b, t: f.t }, w.tw, f.fy, minThroat).rho < 1;
-
-      // admissible pairs, priced, ascending
-      const cands: { ti: number; bi: number; price: Pricing }[] = [];
-      let nBend = 0;
-      let nFib = 0;
+      const cands: GroupPlan['cands'] = [];
       const consider = (ti: number, bi: number) => {
         const T = flanges[ti]!;
         const B = flanges[bi]!;
         if (T.A * T.fy + B.A * B.fy < Freq) {
-          nBend++;
+          pruned.bending++;
           return;
         }
         if (!fibOk(T, fibT) || !fibOk(B, fibB)) {
-          nFib++;
+          pruned.flangeInducedBuckling++;
+          return;
+        }
+        if (IyReq > 0 && iyOfPlates(w.hw, w.tw, T.b, T.t, B.b, B.t) * (1 + 1e-9) < IyReq) {
+          pruned.deflection++;
           return;
         }
         cands.push({ ti, bi, price: price(prep, w, parts, T, B, bearingCache, minThroat) });
@@ -256,10 +317,19 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       const b0 = groupStart[gb]!;
       if (sp.symmetric) for (let i = 0; i < GT.options.length; i++) consider(t0 + i, t0 + i);
       else for (let i = 0; i < GT.options.length; i++) for (let j = 0; j < GB.options.length; j++) consider(t0 + i, b0 + j);
-      pruned.bending += nBend;
-      pruned.flangeInducedBuckling += nFib;
-      cands.sort((a, b) => a.price.lb - b.price.lb || a.ti - b.ti || a.bi - b.bi);
+      if (cands.length === 0) continue;
+      cands.sort((x, y) => x.price.lb - y.price.lb || x.ti - y.ti || x.bi - y.bi);
+      gplans.push({ d, cands });
+    }
+    gplans.sort((x, y) => x.cands[0]!.price.lb - y.cands[0]!.price.lb || x.d - y.d);
 
+    let webDead = false;
+    for (const gp of gplans) {
+      if (webDead || signal?.aborted) {
+        pruned.webOnly += gp.cands.length;
+        continue;
+      }
+      const { d, cands } = gp;
       let stopAt = cands.length;
       for (let k = 0; k < cands.length; k++) {
         const c = cands[k]!;
@@ -281,6 +351,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
           continue;
         }
         keepMiss(e);
+        failedBy[verdict.governing.id] = (failedBy[verdict.governing.id] ?? 0) + 1;
         if (failsWebOnly(verdict)) {
           webDead = true;
           stopAt = k + 1;
@@ -290,7 +361,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       pruned.incumbent += cands.length - stopAt;
     }
   }
-  return { front: [...stairs], nearMisses: misses, spaceSize, fullEvaluations, pruned };
+  return { front: [...stairs], nearMisses: misses, spaceSize, fullEvaluations, pruned, failedBy };
 }
 
 export function throatOf(v: GirderVerdict, fallback: number): number {

@@ -1,4 +1,5 @@
 import type { Effects } from '@platesmith/checks';
+import { spanAt } from '@platesmith/checks';
 import { designEffects, type Analysis } from '@platesmith/actions';
 
 /**
@@ -13,6 +14,8 @@ export interface LoadModel {
    * (N·mm, N). sagAlways/hogAlways: some station has MEd > 0 (< 0) for every g in the range.
    */
   demandLowerBound(gLo: number, gHi: number): DemandBound;
+  /** lower bounds of the SLS deflection terms for g in [gLo, gHi] (empty when there is no SLS demand) */
+  deflectionFloor(gLo: number, gHi: number): DeflectionFloor[];
 }
 
 export interface DemandBound {
@@ -34,7 +37,7 @@ export function fixedLoadModel(e: Effects): LoadModel {
     V = Math.max(V, Math.abs(s.VEd));
   }
   const bound = signed(Msag, Mhog, V, Msag > 0, Mhog > 0, Math.max(Msag, Mhog));
-  return { effects: () => e, demandLowerBound: () => bound };
+  return { effects: () => e, demandLowerBound: () => bound, deflectionFloor: () => [] };
 }
 
 /**
@@ -129,7 +132,7 @@ export function analysisDemandBound(a: Analysis, gLo: number, gHi: number): Dema
 
 /** The load model of a beam or envelope analysis from @platesmith/actions. */
 export function analysisLoadModel(a: Analysis): LoadModel {
-  return { effects: (g) => designEffects(a, g), demandLowerBound: (gLo, gHi) => analysisDemandBound(a, gLo, gHi) };
+  return { effects: (g) => designEffects(a, g), demandLowerBound: (gLo, gHi) => analysisDemandBound(a, gLo, gHi), deflectionFloor: (gLo, gHi) => analysisDeflectionFloor(a, gLo, gHi) };
 }
 
 /**
@@ -139,4 +142,27 @@ export function analysisLoadModel(a: Analysis): LoadModel {
 function signed(Msag: number, Mhog: number, V: number, sag: boolean, hog: boolean, mAbsUpper: number): DemandBound {
   const tiny = Math.max(1, 1e-9 * mAbsUpper);
   return { Msag, Mhog, V, sagAlways: sag && Msag > tiny, hogAlways: hog && Mhog > tiny };
+}
+
+/** A deflection point with lower bounds of its terms over a self-weight range, and its limit (mm). */
+export interface DeflectionFloor {
+  bend: number;
+  shear: number;
+  limit: number;
+}
+
+/** Lower bounds of the downward SLS deflection terms for any g in [gLo, gHi] (affine in g: extremes at the ends). */
+export function analysisDeflectionFloor(a: Analysis, gLo: number, gHi: number): DeflectionFloor[] {
+  const out: DeflectionFloor[] = [];
+  for (const d of a.sls) {
+    const np = d.x.length;
+    for (let i = 0; i < np; i++) {
+      const o = i * 4;
+      const bend = Math.min(d.down[o]! + gLo * d.down[o + 2]!, d.down[o]! + gHi * d.down[o + 2]!);
+      const shear = Math.min(d.down[o + 1]! + gLo * d.down[o + 3]!, d.down[o + 1]! + gHi * d.down[o + 3]!);
+      const x = d.x[i]!;
+      out.push({ bend, shear, limit: spanAt(a.supports, x).L / d.ratio });
+    }
+  }
+  return out;
 }

@@ -13,6 +13,8 @@ export interface SearchResult {
     spaceSize: number;
     fullEvaluations: number;
     pruned: PruneStats;
+    /** judged in full and failed, by governing check */
+    failedBy: Record<string, number>;
     wallMs: number;
     workers: number;
     webConfigurations: number;
@@ -22,8 +24,10 @@ export interface SearchResult {
 /** Merges slice results into one answer (exact: the front of a union is the front of the slices' fronts). */
 export function mergeSlices(slices: SliceResult[], wallMs: number, workers: number, webConfigurations: number, size: number): SearchResult {
   const pareto = paretoFront(slices.flatMap((s) => s.front));
-  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, webOnly: 0, incumbent: 0 };
+  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, webOnly: 0, incumbent: 0 };
   for (const s of slices) for (const k of Object.keys(pruned) as (keyof PruneStats)[]) pruned[k] += s.pruned[k];
+  const failedBy: Record<string, number> = {};
+  for (const s of slices) for (const [k, v] of Object.entries(s.failedBy)) failedBy[k] = (failedBy[k] ?? 0) + v;
   const nearMisses = slices
     .flatMap((s) => s.nearMisses)
     .sort((a, b) => a.verdict.governing.utilisation - b.verdict.governing.utilisation)
@@ -32,7 +36,7 @@ export function mergeSlices(slices: SliceResult[], wallMs: number, workers: numb
     pareto,
     lightest: pareto.length > 0 ? pareto[pareto.length - 1]! : null,
     nearMisses,
-    stats: { spaceSize: size, fullEvaluations: slices.reduce((n, s) => n + s.fullEvaluations, 0), pruned, wallMs, workers, webConfigurations },
+    stats: { spaceSize: size, fullEvaluations: slices.reduce((n, s) => n + s.fullEvaluations, 0), pruned, failedBy, wallMs, workers, webConfigurations },
   };
 }
 

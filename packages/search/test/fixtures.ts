@@ -37,5 +37,7 @@ export function simpleSpanModel(L: number, q: number, P: number, qk: number, gam
       };
     },
     demandLowerBound: (gLo, gHi) => affineDemandBound(demand, gLo, gHi),
+    deflectionFloor: (gLo) =>
+      xs.map((x) => ({ bend: ((qk + gLo) * x * (L ** 3 - 2 * L * x * x + x ** 3)) / 24, shear: ((qk + gLo) * x * (L - x)) / 2, limit: L / 250 })),
   };
 }

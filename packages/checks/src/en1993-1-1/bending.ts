@@ -116,25 +116,64 @@ export function bendingCheck(ctx: CheckContext, e: Effects, per: ReadonlyMap<Fla
  */
 export function envelopeAt(stations: readonly Station[], x: number, pick: (s: Station) => number): { value: number; maxAbsNear: number } {
   if (stations.length === 0) return { value: 0, maxAbsNear: 0 };
-  const byX = new Map<number, number[]>();
-  for (const st of stations) {
-    const arr = byX.get(st.x);
-    if (arr) arr.push(pick(st));
-    else byX.set(st.x, [pick(st)]);
+  const env = envelopeOf(stations, pick);
+  const { xs, gov, maxAbs } = env;
+  const n = xs.length;
+  if (x <= xs[0]!) return { value: gov[0]!, maxAbsNear: maxAbs[0]! };
+  if (x >= xs[n - 1]!) return { value: gov[n - 1]!, maxAbsNear: maxAbs[n - 1]! };
+  // binary search: xs[i] < x <= xs[i + 1]
+  let lo = 0;
+  let hi = n - 1;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (xs[mid]! < x) lo = mid;
+    else hi = mid;
   }
-  const xs = [...byX.keys()].sort((p, q) => p - q);
-  const gov = (v: number[]): number => v.reduce((a, b) => (Math.abs(b) > Math.abs(a) ? b : a), 0);
-  const maxAbs = (v: number[]): number => Math.max(...v.map(Math.abs));
-  if (x <= xs[0]!) return { value: gov(byX.get(xs[0]!)!), maxAbsNear: maxAbs(byX.get(xs[0]!)!) };
-  const last = xs[xs.length - 1]!;
-  if (x >= last) return { value: gov(byX.get(last)!), maxAbsNear: maxAbs(byX.get(last)!) };
-  let i = 0;
-  while (xs[i + 1]! < x) i++;
-  const x0 = xs[i]!;
-  const x1 = xs[i + 1]!;
-  const v0 = byX.get(x0)!;
-  const v1 = byX.get(x1)!;
-  if (x1 === x) return { value: gov(v1), maxAbsNear: maxAbs(v1) };
-  const t = (x - x0) / (x1 - x0);
-  return { value: gov(v0) + t * (gov(v1) - gov(v0)), maxAbsNear: Math.max(maxAbs(v0), maxAbs(v1)) };
+  if (xs[hi] === x) return { value: gov[hi]!, maxAbsNear: maxAbs[hi]! };
+  const t = (x - xs[lo]!) / (xs[hi]! - xs[lo]!);
+  return { value: gov[lo]! + t * (gov[hi]! - gov[lo]!), maxAbsNear: Math.max(maxAbs[lo]!, maxAbs[hi]!) };
+}
+
+interface Envelope {
+  xs: Float64Array;
+  /** per x: the value of largest magnitude (sign kept) */
+  gov: Float64Array;
+  maxAbs: Float64Array;
+}
+
+/** Per distinct x, the governing value and the largest magnitude; computed once per stations array and pick. */
+const ENVELOPES = new WeakMap<readonly Station[], Map<(s: Station) => number, Envelope>>();
+const PICK_KEYS = new Map<string, (s: Station) => number>();
+
+function envelopeOf(stations: readonly Station[], pick: (s: Station) => number): Envelope {
+  // picks are usually fresh closures: key them by their source text so the cache hits
+  const key = PICK_KEYS.get(pick.toString()) ?? (PICK_KEYS.set(pick.toString(), pick), pick);
+  let perStations = ENVELOPES.get(stations);
+  if (!perStations) {
+    perStations = new Map();
+    ENVELOPES.set(stations, perStations);
+  }
+  const hit = perStations.get(key);
+  if (hit) return hit;
+  const order = stations.map((_, i) => i).sort((p, q) => stations[p]!.x - stations[q]!.x);
+  const xs: number[] = [];
+  const gov: number[] = [];
+  const maxAbs: number[] = [];
+  for (const i of order) {
+    const st = stations[i]!;
+    const v = pick(st);
+    const last = xs.length - 1;
+    if (last >= 0 && xs[last] === st.x) {
+      if (Math.abs(v) > Math.abs(gov[last]!)) gov[last] = v;
+      maxAbs[last] = Math.max(maxAbs[last]!, Math.abs(v));
+    } else {
+      xs.push(st.x);
+      // the first value at an x starts from 0 like the reduce it replaces
+      gov.push(Math.abs(v) > 0 ? v : 0);
+      maxAbs.push(Math.abs(v));
+    }
+  }
+  const env = { xs: Float64Array.from(xs), gov: Float64Array.from(gov), maxAbs: Float64Array.from(maxAbs) };
+  perStations.set(key, env);
+  return env;
 }

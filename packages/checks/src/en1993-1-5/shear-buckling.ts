@@ -173,13 +173,21 @@ export function classificationThroat(weldThroats: readonly number[]): number {
  * flange is in compression, the smaller of the two sides (conservative, and symmetric under a flip).
  */
 export function momentsAt(ctx: CheckContext, MEd: number): { MfRd: number; MplRd: number } {
-  const { s, o, m } = ctx;
-  const throat = classificationThroat(o.weldThroats);
-  if (MEd !== 0) return flangeAndPlasticMoments(s, m, compressionSide(MEd), throat, o.factors.gammaM0);
-  const t = flangeAndPlasticMoments(s, m, 'top', throat, o.factors.gammaM0);
-  const b = flangeAndPlasticMoments(s, m, 'bot', throat, o.factors.gammaM0);
-  return { MfRd: Math.min(t.MfRd, b.MfRd), MplRd: Math.min(t.MplRd, b.MplRd) };
+  let hit = MOMENTS.get(ctx);
+  if (!hit) {
+    const { s, o, m } = ctx;
+    const throat = classificationThroat(o.weldThroats);
+    const top = flangeAndPlasticMoments(s, m, 'top', throat, o.factors.gammaM0);
+    const bot = flangeAndPlasticMoments(s, m, 'bot', throat, o.factors.gammaM0);
+    hit = { top, bot, zero: { MfRd: Math.min(top.MfRd, bot.MfRd), MplRd: Math.min(top.MplRd, bot.MplRd) } };
+    MOMENTS.set(ctx, hit);
+  }
+  if (MEd === 0) return hit.zero;
+  return compressionSide(MEd) === 'top' ? hit.top : hit.bot;
 }
+
+/** Mf,Rd and Mpl,Rd depend only on the section and the compression side: once per context. */
+const MOMENTS = new WeakMap<CheckContext, { top: { MfRd: number; MplRd: number }; bot: { MfRd: number; MplRd: number }; zero: { MfRd: number; MplRd: number } }>();
 
 /** One station judged in one panel by 5.5(1): η3 = VEd / Vb,Rd. */
 export interface StationShear {

@@ -92,3 +92,21 @@ export function deflectionCheck(ctx: CheckContext, e: Effects): CheckResult {
   if (!best) return notApplicable('deflection', clause, 'no deflection points given');
   return verdict('deflection', clause, best.u, best.at, best.values);
 }
+
+/**
+ * A bound for the search: the least gross Iy (mm⁴) any section with shear area Av (mm²) needs to
+ * pass 'deflection' at these points. Each point gives lower bounds of its bending and shear
+ * terms (N·mm³, N·mm, downward positive) and its limit (mm). Since |δ| ≤ limit implies
+ * bend/(E Iy) + shear/(G Av) ≤ limit, a point with bend > 0 needs Iy ≥ bend / (E (limit − shear/(G Av))),
+ * and no Iy suffices when the shear term alone uses up the limit (returns Infinity).
+ */
+export function minIyForDeflection(points: readonly { bend: number; shear: number; limit: number }[], Av: number, E: number, G: number): number {
+  let Iy = 0;
+  for (const p of points) {
+    if (!(p.bend > 0)) continue;
+    const room = p.limit - p.shear / (G * Av);
+    if (room <= 0) return Number.POSITIVE_INFINITY;
+    Iy = Math.max(Iy, p.bend / (E * room));
+  }
+  return Iy;
+}
