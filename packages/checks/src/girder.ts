@@ -1,7 +1,7 @@
 import { withBearing, prepare } from './context.js';
 import { sizeBearing } from './bearing-sizing.js';
-import { bendingChecks } from './en1993-1-1/bending-family.js';
-import { shearChecks } from './en1993-1-5/shear-family.js';
+import { bendingChecks, bendingThunks } from './en1993-1-1/bending-family.js';
+import { BEARING_DEPENDENT, shearChecks, shearThunks } from './en1993-1-5/shear-family.js';
 import type { CheckOptions, CheckResult, Effects, GirderVerdict, Section } from './types.js';
 
 /** The order in which checks are reported (check ids are a public contract). */
@@ -43,4 +43,56 @@ export function checkGirder(section: Section, effects: Effects, options: CheckOp
     if (!governing.applies || c.utilisation > governing.utilisation) governing = c;
   }
   return { passes: all.every((c) => c.passes), governing, checks: all, bearing: ctx.bearing, bearingSized: sized };
+}
+
+/**
+ * The order in which judgeGirder tries checks: those that fail most often for candidates near the
+ * optimum, and the cheap ones, first (measured on the reference problems); those that read the
+ * bearing stiffeners last, since sizing them costs a few checks of its own.
+ */
+const JUDGE_ORDER = [
+  'deflection',
+  'patch-loading',
+  'lateral-torsional-buckling',
+  'bending',
+  'shear',
+  'shear-buckling',
+  'flange-induced-buckling',
+  'patch-bending',
+  'bending-shear',
+  'stiffener-stiffness',
+  'stiffener-strength',
+  'web-flange-weld',
+  'classification',
+  'stiffener-torsion',
+  'end-post',
+  'bearing-stiffener',
+] as const;
+
+/**
+ * The first failing check in JUDGE_ORDER, or null when the section passes every check — the same
+ * verdict as checkGirder(...).passes, found by stopping early (the search rejects candidates with
+ * it, then asks checkGirder for the full results of those that pass).
+ */
+export function firstFailure(section: Section, effects: Effects, options: CheckOptions): CheckResult | null {
+  const ctx0 = prepare(section, options);
+  const t0 = { ...bendingThunks(ctx0, effects), ...shearThunks(ctx0, effects) };
+  let tb: typeof t0 | null = null;
+  for (const id of JUDGE_ORDER) {
+    let r: CheckResult;
+    if (BEARING_DEPENDENT.has(id)) {
+      if (!tb) {
+        const ctx = section.bearing === undefined ? withBearing(ctx0, sizeBearing(ctx0, effects)) : ctx0;
+        tb = { ...bendingThunks(ctx, effects), ...shearThunks(ctx, effects) };
+      }
+      r = tb[id]();
+    } else r = t0[id]();
+    if (!r.passes) return r;
+  }
+  return null;
+}
+
+/** Whether the section passes every check (checkGirder(...).passes, found early). */
+export function judgeGirder(section: Section, effects: Effects, options: CheckOptions): boolean {
+  return firstFailure(section, effects, options) === null;
 }

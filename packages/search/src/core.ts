@@ -1,10 +1,14 @@
 import type { FySource } from '@platesmith/catalogue';
 import {
   checkGirder,
+  firstFailure,
+  type CheckResult,
   flangeOutstand,
   iyOfPlates,
   lightestFittingBearing,
   minIyForDeflection,
+  panelsOf,
+  patchUtilisation,
   maxCompressionFlangeAreaFIB,
   minFlangeForceForBending,
   resolveBearing,
@@ -55,8 +59,17 @@ export interface PruneStats {
   bending: number;
   flangeInducedBuckling: number;
   deflection: number;
+  patchLoading: number;
   webOnly: number;
   incumbent: number;
+}
+
+interface Miss {
+  key: CandidateKey;
+  section: Section;
+  depth: number;
+  g: number;
+  lb: number;
 }
 
 export interface SliceResult {
@@ -84,8 +97,8 @@ export function better(v1: number, k1: CandidateKey, v2: number, k2: CandidateKe
  * and the torsional requirement of the intermediate flats (9.2.1(8)). The torsion of the bearing
  * flats is not web-only: they are sized to fit the flanges.
  */
-function failsWebOnly(v: GirderVerdict): boolean {
-  return v.checks.some((c) => !c.passes && (c.id === 'stiffener-stiffness' || (c.id === 'stiffener-torsion' && c.values['stiffener'] === 'intermediate')));
+function failsWebOnly(c: CheckResult): boolean {
+  return !c.passes && (c.id === 'stiffener-stiffness' || (c.id === 'stiffener-torsion' && c.values['stiffener'] === 'intermediate'));
 }
 
 /**
@@ -146,7 +159,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
   const { p, webs, groups, flanges, groupStart, L, Lmax, supports } = prep;
   const o = p.options;
   const sp = p.space;
-  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, webOnly: 0, incumbent: 0 };
+  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, webOnly: 0, incumbent: 0 };
   let fullEvaluations = 0;
   let spaceSize = 0;
   const minThroat = o.weldThroats[0]!;
@@ -175,11 +188,15 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
     while (i < stairs.length && stairs[i]!.depth < e.depth) i++;
     stairs.splice(i, 0, e);
   };
-  const misses: Evaluated[] = [];
-  const keepMiss = (e: Evaluated): void => {
-    misses.push(e);
-    misses.sort((x, y) => x.verdict.governing.utilisation - y.verdict.governing.utilisation);
-    if (misses.length > 5) misses.pop();
+  // failed candidates kept for the nearest-miss report: the heaviest (closest to passing, as a rule)
+  const misses: Miss[] = [];
+  const keepMiss = (m: Miss): void => {
+    if (misses.length < 24) misses.push(m);
+    else {
+      let i = 0;
+      for (let j = 1; j < misses.length; j++) if (misses[j]!.lb < misses[i]!.lb) i = j;
+      if (m.lb > misses[i]!.lb) misses[i] = m;
+    }
   };
 
   const tfSorted = [...new Set(groups.map((g) => g.t))].sort((x, y) => x - y);
@@ -259,6 +276,9 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
     const fibTop = dem.sagAlways ? maxCompressionFlangeAreaFIB({ hw: w.hw, tw: w.tw, fyfMin: 1, k: kFibMax, E: o.E }) : Infinity;
     const fibBot = dem.hogAlways ? maxCompressionFlangeAreaFIB({ hw: w.hw, tw: w.tw, fyfMin: 1, k: kFibMax, E: o.E }) : Infinity;
     const bearingCache = new Map<number, BearingFlat>();
+    // concentrated forces do not depend on the self-weight: the patch-loading check is exact here
+    const forces = p.load.effects(0).forces;
+    const webPanels = panelsOf(supports, parts.a).panels;
 
     // group pass: admissible candidates of each (top, bottom) flange group, priced
     interface GroupPlan {
@@ -311,6 +331,10 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
           pruned.deflection++;
           return;
         }
+        if (forces.length > 0 && patchUtilisation(forces, w, T, webPanels, o.E, o.factors.gammaM1) > 1 + 1e-9) {
+          pruned.patchLoading++;
+          return;
+        }
         cands.push({ ti, bi, price: price(prep, w, parts, T, B, bearingCache, minThroat) });
       };
       const t0 = groupStart[gt]!;
@@ -341,18 +365,19 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
         const B = flanges[c.bi]!;
         const section = buildSection(w, parts, T, B);
         const g = (c.price.plates * G_ACC) / L;
-        const verdict = checkGirder(section, p.load.effects(g), o);
+        const effects = p.load.effects(g);
+        const fail = firstFailure(section, effects, o);
         fullEvaluations++;
         const key: CandidateKey = [wi, c.ti, c.bi];
-        const { mass, value } = settle(prep, w, parts, T, B, c.price.plates, verdict, minThroat);
-        const e: Evaluated = { key, section: { ...section, bearing: verdict.bearing }, depth: d, mass, value, verdict };
-        if (verdict.passes) {
-          admit(e);
+        if (fail === null) {
+          const verdict = checkGirder(section, effects, o);
+          const { mass, value } = settle(prep, w, parts, T, B, c.price.plates, verdict, minThroat);
+          admit({ key, section: { ...section, bearing: verdict.bearing }, depth: d, mass, value, verdict });
           continue;
         }
-        keepMiss(e);
-        failedBy[verdict.governing.id] = (failedBy[verdict.governing.id] ?? 0) + 1;
-        if (failsWebOnly(verdict)) {
+        failedBy[fail.id] = (failedBy[fail.id] ?? 0) + 1;
+        keepMiss({ key, section, depth: d, g, lb: c.price.lb });
+        if (failsWebOnly(fail)) {
           webDead = true;
           stopAt = k + 1;
           break;
@@ -361,7 +386,15 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       pruned.incumbent += cands.length - stopAt;
     }
   }
-  return { front: [...stairs], nearMisses: misses, spaceSize, fullEvaluations, pruned, failedBy };
+  // full results for the nearest misses (only worth it when nothing passed)
+  const nearMisses: Evaluated[] = stairs.length > 0 ? [] : misses
+    .map((mi) => {
+      const verdict = checkGirder(mi.section, p.load.effects(mi.g), o);
+      return { key: mi.key, section: { ...mi.section, bearing: verdict.bearing }, depth: mi.depth, mass: mi.lb, value: mi.lb, verdict };
+    })
+    .sort((x, y) => x.verdict.governing.utilisation - y.verdict.governing.utilisation)
+    .slice(0, 5);
+  return { front: [...stairs], nearMisses, spaceSize, fullEvaluations, pruned, failedBy };
 }
 
 export function throatOf(v: GirderVerdict, fallback: number): number {

@@ -1,24 +1,30 @@
 import type { FlangeSide } from '../section.js';
 import type { CheckContext, CheckResult, CheckValue, Effects } from '../types.js';
 import { notApplicable, verdict } from '../result.js';
-import { bendingCheck, bendingForSign, envelopeAt, sideName, signsOf, type SignBending } from './bending.js';
+import { bendingCheck, bendingForSign, envelopeAt, pickM, sideName, signsOf, type SignBending } from './bending.js';
 import { flangeInducedCheck } from '../en1993-1-5/flange-induced.js';
 import { patchBendingInteraction, patchForForce, patchLoadingCheck } from '../en1993-1-5/patch-loading.js';
 import { ltbCheck } from './ltb.js';
 import { deflectionCheck } from '../sls/deflection.js';
 import { weldCheck } from '../en1993-1-8/weld.js';
 
-/**
- * The bending family of checks for one section under the design effects: classification,
- * bending, flange-induced buckling, patch loading and its interaction with bending, lateral-
- * torsional buckling, deflection and the web-to-flange welds — one result per id, in that order.
- */
-export function bendingChecks(ctx: CheckContext, e: Effects): CheckResult[] {
-  const sides = signsOf(e.stations);
-  const per = new Map<FlangeSide, SignBending>();
-  for (const side of sides) per.set(side, bendingForSign(ctx, side));
-  const cache = new Map(per);
+/** The bending family's checks, each computed on first call; shared intermediates computed once. */
+export function bendingThunks(ctx: CheckContext, e: Effects): Record<BendingCheckId, () => CheckResult> {
+  let perMap: Map<FlangeSide, SignBending> | null = null;
+  const cache = new Map<FlangeSide, SignBending>();
+  const per = (): Map<FlangeSide, SignBending> => {
+    if (!perMap) {
+      perMap = new Map();
+      for (const side of signsOf(e.stations)) {
+        const b = bendingForSign(ctx, side);
+        perMap.set(side, b);
+        cache.set(side, b);
+      }
+    }
+    return perMap;
+  };
   const bendingFor = (side: FlangeSide): SignBending => {
+    per();
     let b = cache.get(side);
     if (!b) {
       b = bendingForSign(ctx, side);
@@ -26,16 +32,38 @@ export function bendingChecks(ctx: CheckContext, e: Effects): CheckResult[] {
     }
     return b;
   };
-  return [
-    classificationResult(per),
-    bendingCheck(ctx, e, per),
-    flangeInducedCheck(ctx, per),
-    patchLoadingCheck(ctx, e),
-    patchBendingCheck(ctx, e, bendingFor),
-    ltbCheck(ctx, e, per, bendingFor),
-    deflectionCheck(ctx, e),
-    weldCheck(ctx, e),
-  ];
+  return {
+    classification: () => classificationResult(per()),
+    bending: () => bendingCheck(ctx, e, per()),
+    'flange-induced-buckling': () => flangeInducedCheck(ctx, per()),
+    'patch-loading': () => patchLoadingCheck(ctx, e),
+    'patch-bending': () => patchBendingCheck(ctx, e, bendingFor),
+    'lateral-torsional-buckling': () => ltbCheck(ctx, e, per(), bendingFor),
+    deflection: () => deflectionCheck(ctx, e),
+    'web-flange-weld': () => weldCheck(ctx, e),
+  };
+}
+
+export const BENDING_IDS = [
+  'classification',
+  'bending',
+  'flange-induced-buckling',
+  'patch-loading',
+  'patch-bending',
+  'lateral-torsional-buckling',
+  'deflection',
+  'web-flange-weld',
+] as const;
+export type BendingCheckId = (typeof BENDING_IDS)[number];
+
+/**
+ * The bending family of checks for one section under the design effects: classification,
+ * bending, flange-induced buckling, patch loading and its interaction with bending, lateral-
+ * torsional buckling, deflection and the web-to-flange welds — one result per id, in that order.
+ */
+export function bendingChecks(ctx: CheckContext, e: Effects): CheckResult[] {
+  const t = bendingThunks(ctx, e);
+  return BENDING_IDS.map((id) => t[id]());
 }
 
 /**
@@ -78,7 +106,7 @@ function patchBendingCheck(ctx: CheckContext, e: Effects, bendingFor: (side: Fla
   let best: { u: number; at: number; values: Record<string, CheckValue> } | null = null;
   for (const f of e.forces) {
     const r = patchForForce(ctx, f.x, f.ss);
-    const MEd = envelopeAt(e.stations, f.x, (st) => st.MEd).value;
+    const MEd = envelopeAt(e.stations, f.x, pickM).value;
     const side: FlangeSide = MEd >= 0 ? 'top' : 'bot';
     const b = bendingFor(side);
     const MRd = b.eff ? b.McRd : b.MelRd;

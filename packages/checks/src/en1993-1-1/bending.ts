@@ -141,13 +141,15 @@ interface Envelope {
   maxAbs: Float64Array;
 }
 
+/** The two quantities envelopes are taken of; pass these (not fresh closures) so the cache hits. */
+export const pickM = (s: Station): number => s.MEd;
+export const pickV = (s: Station): number => s.VEd;
+
 /** Per distinct x, the governing value and the largest magnitude; computed once per stations array and pick. */
 const ENVELOPES = new WeakMap<readonly Station[], Map<(s: Station) => number, Envelope>>();
-const PICK_KEYS = new Map<string, (s: Station) => number>();
 
 function envelopeOf(stations: readonly Station[], pick: (s: Station) => number): Envelope {
-  // picks are usually fresh closures: key them by their source text so the cache hits
-  const key = PICK_KEYS.get(pick.toString()) ?? (PICK_KEYS.set(pick.toString(), pick), pick);
+  const key = pick;
   let perStations = ENVELOPES.get(stations);
   if (!perStations) {
     perStations = new Map();

@@ -2,7 +2,7 @@ import { chi, type BucklingCurve, ALPHA } from './buckling-curves.js';
 import type { FlangeSide } from '../section.js';
 import type { CheckContext, CheckResult, CheckValue, Effects, Station } from '../types.js';
 import { notApplicable, verdict } from '../result.js';
-import { envelopeAt, type SignBending } from './bending.js';
+import { pickM, pickV, envelopeAt, type SignBending } from './bending.js';
 
 /**
  * Lateral-torsional buckling of a welded (mono-)symmetric I-beam, EN 1993-1-1:2005 6.3.2.
@@ -198,7 +198,7 @@ export function ltbCurveWelded(h: number, b: number): BucklingCurve {
 function segmentPoints(stations: readonly Station[], x0: number, x1: number): { x: number; M: number }[] {
   const xs = new Set<number>([x0, x1]);
   for (const st of stations) if (st.x > x0 && st.x < x1) xs.add(st.x);
-  return [...xs].sort((a, b) => a - b).map((x) => ({ x, M: envelopeAt(stations, x, (s) => s.MEd).value }));
+  return [...xs].sort((a, b) => a - b).map((x) => ({ x, M: envelopeAt(stations, x, pickM).value }));
 }
 
 /**

@@ -146,3 +146,26 @@ export function patchBendingInteraction(eta1: number, eta2: number): { value: nu
   const value = eta2 + 0.8 * eta1;
   return { value, utilisation: value / 1.4 };
 }
+
+/**
+ * The largest η2 = F/FRd of the forces on a web, from plain numbers (the same computation as
+ * 'patch-loading': load type (a), a the length of the panel containing each force). A bound for
+ * the search that is exact: a candidate with a value above 1 fails 'patch-loading'.
+ * panels: the web's panels (x0, x1, a), as panelsOf gives them; forces F in N, ss in mm.
+ */
+export function patchUtilisation(
+  forces: readonly { x: number; F: number; ss: number }[],
+  web: { hw: number; tw: number; fyw: number },
+  top: { b: number; t: number; fy: number },
+  panels: readonly { x0: number; x1: number; a: number }[],
+  E: number,
+  gammaM1: number,
+): number {
+  let u = 0;
+  for (const f of forces) {
+    const panel = panels.find((q) => f.x >= q.x0 && f.x <= q.x1) ?? panels[panels.length - 1]!;
+    const r = patchResistance({ type: 'a', hw: web.hw, tw: web.tw, bf: top.b, tf: top.t, fyw: web.fyw, fyf: top.fy, ss: f.ss, a: panel.a, E, gammaM1 });
+    u = Math.max(u, Math.abs(f.F) / r.FRd);
+  }
+  return u;
+}

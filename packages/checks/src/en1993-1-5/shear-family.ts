@@ -12,17 +12,39 @@ import { flatTorsion, siteSection, siteStrength, stiffenerIstMin, stiffenerSites
  * 'bearing-stiffener'. Each is the worst station / panel / stiffener; `at` its x (mm).
  */
 export function shearChecks(ctx: CheckContext, e: Effects): CheckResult[] {
-  const panels = panelShear(ctx);
-  return [
-    shearCheck(ctx, e.stations),
-    shearBucklingCheck(ctx, panels, e.stations),
-    bendingShearCheck(ctx, panels, e.stations),
-    stiffenerStiffnessCheck(ctx),
-    stiffenerStrengthCheck(ctx, e.stations),
-    stiffenerTorsionCheck(ctx),
-    endPostCheck(ctx),
-    bearingStiffenerCheck(ctx, e),
-  ];
+  const t = shearThunks(ctx, e);
+  return SHEAR_IDS.map((id) => t[id]());
+}
+
+export const SHEAR_IDS = [
+  'shear',
+  'shear-buckling',
+  'bending-shear',
+  'stiffener-stiffness',
+  'stiffener-strength',
+  'stiffener-torsion',
+  'end-post',
+  'bearing-stiffener',
+] as const;
+export type ShearCheckId = (typeof SHEAR_IDS)[number];
+
+/** Checks of this family that read the bearing stiffeners (the rest do not). */
+export const BEARING_DEPENDENT: ReadonlySet<string> = new Set(['stiffener-torsion', 'end-post', 'bearing-stiffener']);
+
+/** The shear family's checks, each computed on first call; the panel analysis computed once. */
+export function shearThunks(ctx: CheckContext, e: Effects): Record<ShearCheckId, () => CheckResult> {
+  let panels: PanelShear[] | null = null;
+  const ps = (): PanelShear[] => (panels ??= panelShear(ctx));
+  return {
+    shear: () => shearCheck(ctx, e.stations),
+    'shear-buckling': () => shearBucklingCheck(ctx, ps(), e.stations),
+    'bending-shear': () => bendingShearCheck(ctx, ps(), e.stations),
+    'stiffener-stiffness': () => stiffenerStiffnessCheck(ctx),
+    'stiffener-strength': () => stiffenerStrengthCheck(ctx, e.stations),
+    'stiffener-torsion': () => stiffenerTorsionCheck(ctx),
+    'end-post': () => endPostCheck(ctx),
+    'bearing-stiffener': () => bearingStiffenerCheck(ctx, e),
+  };
 }
 
 const NO_STATIONS = 'no design effects given';

@@ -2,7 +2,7 @@ import { DomainError, betaW } from '@platesmith/catalogue';
 import type { GradeName } from '@platesmith/catalogue';
 import type { CheckContext, CheckResult, CheckValue, Effects } from '../types.js';
 import { verdict } from '../result.js';
-import { envelopeAt } from '../en1993-1-1/bending.js';
+import { pickM, pickV, envelopeAt } from '../en1993-1-1/bending.js';
 import { patchForForce } from '../en1993-1-5/patch-loading.js';
 
 /**
@@ -71,7 +71,7 @@ export function weldCheck(ctx: CheckContext, e: Effects): CheckResult {
   ];
   for (const f of e.forces) {
     const ly = patchForForce(ctx, f.x, f.ss).ly;
-    const V = envelopeAt(e.stations, f.x, (st) => st.VEd).maxAbsNear;
+    const V = envelopeAt(e.stations, f.x, pickV).maxAbsNear;
     const v = shearFlow(V, SfTop, g.Iy);
     const q = Math.abs(f.F) / ly;
     demands.push({ flange: 'top', FwEd: weldForcePerLength(v, q), fvwd: fTop, at: f.x, vEd: v, q });
