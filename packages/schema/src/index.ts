@@ -23,3 +23,14 @@ export {
   type CheckJob,
 } from './problem-convert.js';
 export { publishSearch, publishPoint, type PublishedSearch, type PublishedPoint, type PublishedMiss } from './search-output.js';
+export {
+  PublishedCheckJson,
+  PublishedVerdictJson,
+  PublishedPointJson,
+  PublishedMissJson,
+  SearchStatsJson,
+  PublishedSearchJson,
+  EffectsSummaryJson,
+  ProblemDetailsJson,
+  publishEffects,
+} from './api-output.js';

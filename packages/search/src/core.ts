@@ -7,6 +7,7 @@ import {
   iyOfPlates,
   lightestFittingBearing,
   minIyForDeflection,
+  minIyForDeflectionAt,
   panelsOf,
   patchUtilisation,
   maxCompressionFlangeAreaFIB,
@@ -214,6 +215,14 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
   };
   const groupPairs = sp.symmetric ? groups.map((_, i) => [i, i] as const) : groups.flatMap((_, i) => groups.map((__, j) => [i, j] as const));
 
+  // demand bounds valid for every candidate of the slice: self-weight from the lightest web plate
+  // and the two lightest flanges up to the heaviest conceivable girder
+  let lightestWebKg = Infinity;
+  for (const wi of webIdx) lightestWebKg = Math.min(lightestWebKg, webs[wi]!.hw * webs[wi]!.tw * L * KG_PER_MM3);
+  const gLoAll = ((lightestWebKg + 2 * lightestFlange) * G_ACC) / L;
+  const demGlobal = p.load.demandLowerBound(gLoAll, gMax);
+  const deflFloor = p.load.deflectionFloor(gLoAll, gMax);
+
   // web-level pass: cheap bounds, and the order of visit
   interface WebPlan {
     wi: number;
@@ -235,14 +244,12 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       continue;
     }
     const parts = webParts(w, L, supports, Lmax);
-    // lightest possible self-weight of any candidate on this web: web, stiffeners, the two lightest flanges
-    const gLo = ((parts.webMass + parts.stiffMass + 2 * lightestFlange) * G_ACC) / L;
-    const dem = p.load.demandLowerBound(gLo, gMax);
+    const dem = demGlobal;
     if (webShearCapacityBound(w.hw, w.tw, w.fyw, o.eta, o.factors.gammaM0, o.factors.gammaM1) < dem.V) {
       pruned.shear += pairsPerWeb;
       continue;
     }
-    const IyReq = minIyForDeflection(p.load.deflectionFloor(gLo, gMax), w.hw * w.tw, o.E, o.G);
+    const IyReq = minIyForDeflection(deflFloor, w.hw * w.tw, o.E, o.G);
     if (IyReq === Infinity) {
       pruned.deflection += pairsPerWeb;
       continue;
@@ -280,10 +287,15 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
     const forces = p.load.effects(0).forces;
     const webPanels = panelsOf(supports, parts.a).panels;
 
-    // group pass: admissible candidates of each (top, bottom) flange group, priced
+    // group pass: cheap per-group data only; candidates are generated when a group is reached
     interface GroupPlan {
+      gt: number;
+      gb: number;
       d: number;
-      cands: { ti: number; bi: number; price: Pricing }[];
+      n: number;
+      Freq: number;
+      /** lower bound on the objective of any candidate in the group (mass objective) */
+      lb: number;
     }
     const gplans: GroupPlan[] = [];
     for (const [gt, gb] of groupPairs) {
@@ -311,79 +323,96 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
         tfMax: Math.max(GT.t, GB.t),
         fyfMax: Math.max(GT.fy, GB.fy),
       });
-      // FIB bounds apply to gross areas only where the compression flange's outstand is fully effective
-      const fibT = fibTop === Infinity ? Infinity : fibTop / (GT.fy * GT.fy);
-      const fibB = fibBot === Infinity ? Infinity : fibBot / (GB.fy * GB.fy);
-      const fibOk = (f: FlangeOption, lim: number) => lim === Infinity || f.A <= lim || flangeOutstand({ b: f.b, t: f.t }, w.tw, f.fy, minThroat).rho < 1;
-      const cands: GroupPlan['cands'] = [];
-      const consider = (ti: number, bi: number) => {
-        const T = flanges[ti]!;
-        const B = flanges[bi]!;
-        if (T.A * T.fy + B.A * B.fy < Freq) {
-          pruned.bending++;
-          return;
-        }
-        if (!fibOk(T, fibT) || !fibOk(B, fibB)) {
-          pruned.flangeInducedBuckling++;
-          return;
-        }
-        if (IyReq > 0 && iyOfPlates(w.hw, w.tw, T.b, T.t, B.b, B.t) * (1 + 1e-9) < IyReq) {
-          pruned.deflection++;
-          return;
-        }
-        if (forces.length > 0 && patchUtilisation(forces, w, T, webPanels, o.E, o.factors.gammaM1) > 1 + 1e-9) {
-          pruned.patchLoading++;
-          return;
-        }
-        cands.push({ ti, bi, price: price(prep, w, parts, T, B, bearingCache, minThroat) });
-      };
-      const t0 = groupStart[gt]!;
-      const b0 = groupStart[gb]!;
-      if (sp.symmetric) for (let i = 0; i < GT.options.length; i++) consider(t0 + i, t0 + i);
-      else for (let i = 0; i < GT.options.length; i++) for (let j = 0; j < GB.options.length; j++) consider(t0 + i, b0 + j);
-      if (cands.length === 0) continue;
-      cands.sort((x, y) => x.price.lb - y.price.lb || x.ti - y.ti || x.bi - y.bi);
-      gplans.push({ d, cands });
+      // flange area: at least the two narrowest plates, and at least what the bending bound needs
+      const Amin = Math.max(GT.options[0]!.A + GB.options[0]!.A, Freq / Math.max(GT.fy, GB.fy));
+      const lb = parts.webMass + parts.stiffMass + Amin * L * KG_PER_MM3 + lightestBearingKg(w);
+      gplans.push({ gt, gb, d, n: nPairs, Freq, lb });
     }
-    gplans.sort((x, y) => x.cands[0]!.price.lb - y.cands[0]!.price.lb || x.d - y.d);
+    gplans.sort((x, y) => x.lb - y.lb || x.d - y.d);
 
     let webDead = false;
     for (const gp of gplans) {
       if (webDead || signal?.aborted) {
-        pruned.webOnly += gp.cands.length;
+        pruned.webOnly += gp.n;
         continue;
       }
-      const { d, cands } = gp;
-      let stopAt = cands.length;
-      for (let k = 0; k < cands.length; k++) {
-        const c = cands[k]!;
-        if (prunes(d, c.price.lb)) {
-          stopAt = k;
-          break;
+      const { gt, gb, d, Freq } = gp;
+      if (p.objective === 'mass' && prunes(d, gp.lb)) {
+        pruned.incumbent += gp.n;
+        continue;
+      }
+      const GT = groups[gt]!;
+      const GB = groups[gb]!;
+      // FIB bounds apply to gross areas only where the compression flange's outstand is fully effective
+      const fibT = fibTop === Infinity ? Infinity : fibTop / (GT.fy * GT.fy);
+      const fibB = fibBot === Infinity ? Infinity : fibBot / (GB.fy * GB.fy);
+      const fibOk = (f: FlangeOption, lim: number) => lim === Infinity || f.A <= lim || flangeOutstand({ b: f.b, t: f.t }, w.tw, f.fy, minThroat).rho < 1;
+      // candidates in ascending plate mass (bearing flats aside)
+      const t0 = groupStart[gt]!;
+      const b0 = groupStart[gb]!;
+      const pairs: { ti: number; bi: number; plates: number }[] = [];
+      const plateKg = (ti: number, bi: number) => parts.webMass + parts.stiffMass + (flangeMass(flanges[ti]!, L) + flangeMass(flanges[bi]!, L));
+      if (sp.symmetric) for (let i = 0; i < GT.options.length; i++) pairs.push({ ti: t0 + i, bi: t0 + i, plates: plateKg(t0 + i, t0 + i) });
+      else for (let i = 0; i < GT.options.length; i++) for (let j = 0; j < GB.options.length; j++) pairs.push({ ti: t0 + i, bi: b0 + j, plates: plateKg(t0 + i, b0 + j) });
+      pairs.sort((x, y) => x.plates - y.plates || x.ti - y.ti || x.bi - y.bi);
+      const floorKg = lightestBearingKg(w);
+      let k = 0;
+      for (; k < pairs.length; k++) {
+        if (signal?.aborted) break;
+        const pr = pairs[k]!;
+        // every later pair is at least this heavy: stop when even the lightest bearing cannot save it
+        if (p.objective === 'mass' && prunes(d, pr.plates + floorKg)) break;
+        const T = flanges[pr.ti]!;
+        const B = flanges[pr.bi]!;
+        if (T.A * T.fy + B.A * B.fy < Freq) {
+          pruned.bending++;
+          continue;
         }
-        const T = flanges[c.ti]!;
-        const B = flanges[c.bi]!;
+        if (!fibOk(T, fibT) || !fibOk(B, fibB)) {
+          pruned.flangeInducedBuckling++;
+          continue;
+        }
+        const Iy = iyOfPlates(w.hw, w.tw, T.b, T.t, B.b, B.t) * (1 + 1e-9);
+        if (IyReq > 0 && Iy < IyReq) {
+          pruned.deflection++;
+          continue;
+        }
+        if (forces.length > 0 && patchUtilisation(forces, w, T, webPanels, o.E, o.factors.gammaM1) > 1 + 1e-9) {
+          pruned.patchLoading++;
+          continue;
+        }
+        const price0 = price(prep, w, parts, T, B, bearingCache, minThroat);
+        if (prunes(d, price0.lb)) {
+          pruned.incumbent++;
+          continue;
+        }
+        const g = (price0.plates * G_ACC) / L;
+        // the deflection bound again, at this candidate's own self-weight
+        const da = p.load.deflectionAffine;
+        if (da && Iy < minIyForDeflectionAt(g, da.bA, da.bB, da.sA, da.sB, da.limit, w.hw * w.tw, o.E, o.G)) {
+          pruned.deflection++;
+          continue;
+        }
         const section = buildSection(w, parts, T, B);
-        const g = (c.price.plates * G_ACC) / L;
         const effects = p.load.effects(g);
         const fail = firstFailure(section, effects, o);
         fullEvaluations++;
-        const key: CandidateKey = [wi, c.ti, c.bi];
+        const key: CandidateKey = [wi, pr.ti, pr.bi];
         if (fail === null) {
           const verdict = checkGirder(section, effects, o);
-          const { mass, value } = settle(prep, w, parts, T, B, c.price.plates, verdict, minThroat);
+          const { mass, value } = settle(prep, w, parts, T, B, price0.plates, verdict, minThroat);
           admit({ key, section: { ...section, bearing: verdict.bearing }, depth: d, mass, value, verdict });
           continue;
         }
         failedBy[fail.id] = (failedBy[fail.id] ?? 0) + 1;
-        keepMiss({ key, section, depth: d, g, lb: c.price.lb });
+        keepMiss({ key, section, depth: d, g, lb: price0.lb });
         if (failsWebOnly(fail)) {
           webDead = true;
-          stopAt = k + 1;
+          k++;
           break;
         }
       }
-      pruned.incumbent += cands.length - stopAt;
+      pruned.incumbent += pairs.length - k;
     }
   }
   // full results for the nearest misses (only worth it when nothing passed)

@@ -16,6 +16,33 @@ export interface LoadModel {
   demandLowerBound(gLo: number, gHi: number): DemandBound;
   /** lower bounds of the SLS deflection terms for g in [gLo, gHi] (empty when there is no SLS demand) */
   deflectionFloor(gLo: number, gHi: number): DeflectionFloor[];
+  /** the downward SLS deflection terms as bend = bA + g·bB, shear = sA + g·sB per point, with limits (mm) */
+  deflectionAffine?: DeflectionAffine;
+}
+
+export interface DeflectionAffine {
+  bA: Float64Array;
+  bB: Float64Array;
+  sA: Float64Array;
+  sB: Float64Array;
+  limit: Float64Array;
+}
+
+export function analysisDeflectionAffine(a: Analysis): DeflectionAffine {
+  const n = a.sls.reduce((k, d) => k + d.x.length, 0);
+  const out = { bA: new Float64Array(n), bB: new Float64Array(n), sA: new Float64Array(n), sB: new Float64Array(n), limit: new Float64Array(n) };
+  let k = 0;
+  for (const d of a.sls) {
+    for (let i = 0; i < d.x.length; i++, k++) {
+      const o = i * 4;
+      out.bA[k] = d.down[o]!;
+      out.sA[k] = d.down[o + 1]!;
+      out.bB[k] = d.down[o + 2]!;
+      out.sB[k] = d.down[o + 3]!;
+      out.limit[k] = spanAt(a.supports, d.x[i]!).L / d.ratio;
+    }
+  }
+  return out;
 }
 
 export interface DemandBound {
@@ -132,7 +159,12 @@ export function analysisDemandBound(a: Analysis, gLo: number, gHi: number): Dema
 
 /** The load model of a beam or envelope analysis from @platesmith/actions. */
 export function analysisLoadModel(a: Analysis): LoadModel {
-  return { effects: (g) => designEffects(a, g), demandLowerBound: (gLo, gHi) => analysisDemandBound(a, gLo, gHi), deflectionFloor: (gLo, gHi) => analysisDeflectionFloor(a, gLo, gHi) };
+  return {
+    effects: (g) => designEffects(a, g),
+    demandLowerBound: (gLo, gHi) => analysisDemandBound(a, gLo, gHi),
+    deflectionFloor: (gLo, gHi) => analysisDeflectionFloor(a, gLo, gHi),
+    deflectionAffine: analysisDeflectionAffine(a),
+  };
 }
 
 /**

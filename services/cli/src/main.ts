@@ -5,6 +5,7 @@ import { runCheck } from './commands/check.js';
 import { runEffects } from './commands/effects.js';
 import { runSearch } from './commands/search.js';
 import { runDemo } from './commands/demo.js';
+import { runServe } from './commands/serve.js';
 
 const USAGE = `platesmith — the lightest welded plate girders that pass Eurocode 3
 
@@ -13,6 +14,7 @@ usage:
   platesmith effects FILE.json [--json]  the analysis of a problem: reactions, MEd and VEd envelopes
   platesmith search FILE.json [--json]   exact search of the plate space: Pareto set of depth against mass or cost
   platesmith demo [--json]               search the bundled (invented) demo project
+  platesmith serve                       start the HTTP API on HOST:PORT (default 127.0.0.1:8080)
   platesmith help                        this text
 
 FILE may be - for standard input. Units: mm, kN, kN/m, kNm, MPa, kg.
@@ -33,6 +35,8 @@ export async function main(argv: string[], io: Out = stdio): Promise<number> {
         return await runSearch(readJson(file), json, io);
       case 'demo':
         return await runDemo(json, io);
+      case 'serve':
+        return await runServe(io);
       case undefined:
       case 'help':
         io.out(USAGE);

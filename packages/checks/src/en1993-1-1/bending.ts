@@ -134,7 +134,7 @@ export function envelopeAt(stations: readonly Station[], x: number, pick: (s: St
   return { value: gov[lo]! + t * (gov[hi]! - gov[lo]!), maxAbsNear: Math.max(maxAbs[lo]!, maxAbs[hi]!) };
 }
 
-interface Envelope {
+export interface Envelope {
   xs: Float64Array;
   /** per x: the value of largest magnitude (sign kept) */
   gov: Float64Array;
@@ -148,7 +148,7 @@ export const pickV = (s: Station): number => s.VEd;
 /** Per distinct x, the governing value and the largest magnitude; computed once per stations array and pick. */
 const ENVELOPES = new WeakMap<readonly Station[], Map<(s: Station) => number, Envelope>>();
 
-function envelopeOf(stations: readonly Station[], pick: (s: Station) => number): Envelope {
+export function envelopeOf(stations: readonly Station[], pick: (s: Station) => number): Envelope {
   const key = pick;
   let perStations = ENVELOPES.get(stations);
   if (!perStations) {
@@ -157,7 +157,9 @@ function envelopeOf(stations: readonly Station[], pick: (s: Station) => number):
   }
   const hit = perStations.get(key);
   if (hit) return hit;
-  const order = stations.map((_, i) => i).sort((p, q) => stations[p]!.x - stations[q]!.x);
+  let sorted = true;
+  for (let i = 1; i < stations.length; i++) if (stations[i]!.x < stations[i - 1]!.x) sorted = false;
+  const order = sorted ? stations.map((_, i) => i) : stations.map((_, i) => i).sort((p, q) => stations[p]!.x - stations[q]!.x);
   const xs: number[] = [];
   const gov: number[] = [];
   const maxAbs: number[] = [];

@@ -2,7 +2,7 @@ import { chi, type BucklingCurve, ALPHA } from './buckling-curves.js';
 import type { FlangeSide } from '../section.js';
 import type { CheckContext, CheckResult, CheckValue, Effects, Station } from '../types.js';
 import { notApplicable, verdict } from '../result.js';
-import { pickM, pickV, envelopeAt, type SignBending } from './bending.js';
+import { pickM, envelopeAt, envelopeOf, type SignBending } from './bending.js';
 
 /**
  * Lateral-torsional buckling of a welded (mono-)symmetric I-beam, EN 1993-1-1:2005 6.3.2.
@@ -196,9 +196,15 @@ export function ltbCurveWelded(h: number, b: number): BucklingCurve {
 }
 
 function segmentPoints(stations: readonly Station[], x0: number, x1: number): { x: number; M: number }[] {
-  const xs = new Set<number>([x0, x1]);
-  for (const st of stations) if (st.x > x0 && st.x < x1) xs.add(st.x);
-  return [...xs].sort((a, b) => a - b).map((x) => ({ x, M: envelopeAt(stations, x, pickM).value }));
+  // the segment ends (interpolated) and every station strictly inside, in x order
+  const env = envelopeOf(stations, pickM);
+  const out: { x: number; M: number }[] = [{ x: x0, M: envelopeAt(stations, x0, pickM).value }];
+  for (let i = 0; i < env.xs.length; i++) {
+    const x = env.xs[i]!;
+    if (x > x0 && x < x1) out.push({ x, M: env.gov[i]! });
+  }
+  if (x1 !== x0) out.push({ x: x1, M: envelopeAt(stations, x1, pickM).value });
+  return out;
 }
 
 /**
@@ -235,7 +241,7 @@ export function ltbCheck(ctx: CheckContext, e: Effects, per: ReadonlyMap<FlangeS
     const side: FlangeSide = gov.M >= 0 ? 'top' : 'bot';
     const b = per.get(side) ?? bendingFor(side);
     const mf = momentFactors(pts);
-    const zj = wagnerZj(ctx, side);
+    const zj = zjCached(ctx, side);
     const Mcr = mcr({ E: o.E, G: o.G, Iz: g.Iz, It: g.It, Iw: g.Iw, L: x1 - x0, C1: mf.C1, C2: mf.C2, C3: mf.C3, zg, zj });
     const Mk = b.McRd * o.factors.gammaM0;
     const lambdaLT = Math.sqrt(Mk / Mcr);
@@ -289,4 +295,20 @@ export function ltbCheck(ctx: CheckContext, e: Effects, per: ReadonlyMap<FlangeS
     }
   }
   return verdict('lateral-torsional-buckling', clause, best!.u, best!.at, best!.values);
+}
+
+const ZJ = new WeakMap<CheckContext, Map<FlangeSide, number>>();
+/** zj depends on the section and the compression side only: once per context. */
+function zjCached(ctx: CheckContext, side: FlangeSide): number {
+  let m = ZJ.get(ctx);
+  if (!m) {
+    m = new Map();
+    ZJ.set(ctx, m);
+  }
+  let v = m.get(side);
+  if (v === undefined) {
+    v = wagnerZj(ctx, side);
+    m.set(side, v);
+  }
+  return v;
 }

@@ -110,3 +110,19 @@ export function minIyForDeflection(points: readonly { bend: number; shear: numbe
   }
   return Iy;
 }
+
+/**
+ * minIyForDeflection for demands affine in the self-weight g: point i has bend = bA[i] + g·bB[i],
+ * shear = sA[i] + g·sB[i] and limit[i] (the form the search holds; no allocation per call).
+ */
+export function minIyForDeflectionAt(g: number, bA: Float64Array, bB: Float64Array, sA: Float64Array, sB: Float64Array, limit: Float64Array, Av: number, E: number, G: number): number {
+  let Iy = 0;
+  for (let i = 0; i < bA.length; i++) {
+    const bend = bA[i]! + g * bB[i]!;
+    if (!(bend > 0)) continue;
+    const room = limit[i]! - (sA[i]! + g * sB[i]!) / (G * Av);
+    if (room <= 0) return Number.POSITIVE_INFINITY;
+    Iy = Math.max(Iy, bend / (E * room));
+  }
+  return Iy;
+}

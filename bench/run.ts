@@ -1,0 +1,64 @@
+/**
+ * `pnpm bench`: figures for the search on the reference problems (bench/problems.ts), printed, not
+ * asserted. Targets on 2 cores: symmetric problems under 200 ms each, the mono-symmetric one under
+ * 2 s, full evaluations under 1/1000 of the space. `--json`: one JSON object per line.
+ */
+import { parseWith, SearchInput, toSearchTask } from '@platesmith/schema';
+import { bruteForce, problemOf, search } from '@platesmith/search';
+import { createSearchPool, pingPool, searchOnPool } from '@platesmith/search/pool';
+import { PROBLEMS } from './problems.js';
+
+const json = process.argv.includes('--json');
+const only = process.argv.find((a) => a.startsWith('--only='))?.slice(7);
+
+function task(input: Record<string, unknown>) {
+  const p = parseWith(SearchInput, input);
+  if (!p.ok) throw new Error(JSON.stringify(p.issues));
+  return toSearchTask(p.value, 1e12);
+}
+
+const pool = createSearchPool();
+await pingPool(pool);
+try {
+  for (const prob of PROBLEMS) {
+    if (only && !prob.name.includes(only)) continue;
+    const t = task(prob.input);
+    await searchOnPool(pool, t); // warm-up: JIT and worker caches
+    const r = await searchOnPool(pool, t);
+    // brute force against the exact search on a space small enough for brute force (same problem)
+    const small = task({ ...prob.input, space: { ...(prob.input['space'] as object), ...prob.small } });
+    const sp = problemOf(small);
+    search(sp); // warm-up
+    const s0 = performance.now();
+    const fast = search(sp);
+    const s1 = performance.now();
+    const brute = bruteForce(sp);
+    const s2 = performance.now();
+    const same = JSON.stringify(fast.pareto.map((e) => [e.depth, e.value])) === JSON.stringify(brute.front.map((e) => [e.depth, e.value]));
+    const row = {
+      problem: prob.name,
+      spaceSize: r.stats.spaceSize,
+      fullEvaluations: r.stats.fullEvaluations,
+      wallMs: Math.round(r.stats.wallMs * 10) / 10,
+      workers: r.stats.workers,
+      bruteForceRatio: Math.round(((s1 - s0) / (s2 - s1)) * 1e5) / 1e5,
+      paretoPoints: r.pareto.length,
+      lightestKg: r.lightest ? Math.round(r.lightest.mass) : null,
+      evaluationsPerCandidate: r.stats.fullEvaluations / r.stats.spaceSize,
+      smallSpace: fast.stats.spaceSize,
+      smallSearchMs: Math.round((s1 - s0) * 10) / 10,
+      smallBruteMs: Math.round(s2 - s1),
+      smallSameFront: same,
+    };
+    if (json) process.stdout.write(JSON.stringify(row) + '\n');
+    else {
+      process.stdout.write(
+        `${prob.name}\n  space ${row.spaceSize.toExponential(2)} candidates, ${row.fullEvaluations} judged in full (${(row.evaluationsPerCandidate * 1000).toFixed(3)} per 1000), ` +
+          `${row.wallMs} ms on ${row.workers} workers; Pareto ${row.paretoPoints} points, lightest ${row.lightestKg} kg\n` +
+          `  brute force on a ${row.smallSpace}-candidate space of the same problem: ${row.smallBruteMs} ms vs search ${row.smallSearchMs} ms (ratio ${row.bruteForceRatio}), same front: ${row.smallSameFront}\n`,
+      );
+    }
+  }
+} finally {
+  await pool.close();
+}

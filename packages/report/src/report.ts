@@ -1,0 +1,169 @@
+import { CAUTION, SCOPE, type PublishedSearch, type PublishedVerdict } from '@platesmith/schema';
+import { envelopeChart, paretoChart, utilisationChart } from './charts.js';
+import { esc } from './html.js';
+import type { ReportInput, ReportMark, ReportRationalisation, ReportTonnage } from './types.js';
+
+const STYLE = `
+:root { --ink:#1b1f24; --muted:#5b6570; --rule:#c9d0d6; --accent:#1f5f8b; --ok:#2e7d4f; --bad:#b3261e; }
+* { box-sizing: border-box; }
+body { font: 14px/1.45 system-ui, "Segoe UI", Roboto, Helvetica, Arial, sans-serif; color: var(--ink); margin: 0; }
+header.page, footer.page { padding: 8px 24px; background: #f3f5f7; border-bottom: 1px solid var(--rule); }
+footer.page { border-top: 1px solid var(--rule); border-bottom: 0; margin-top: 32px; }
+header.page h1 { margin: 0; font-size: 20px; }
+.caution { font-size: 12px; color: var(--muted); margin: 4px 0 0; }
+.caution strong { color: var(--bad); }
+main { padding: 0 24px; }
+section.mark { border-top: 2px solid var(--accent); margin-top: 24px; padding-top: 8px; break-inside: avoid-page; }
+.charts { display: flex; flex-wrap: wrap; gap: 16px; }
+figure { margin: 0; }
+figcaption { font-size: 12px; color: var(--muted); }
+table { border-collapse: collapse; margin: 8px 0 16px; font-variant-numeric: tabular-nums; }
+th, td { border-bottom: 1px solid var(--rule); padding: 3px 8px; text-align: left; }
+td.num, th.num { text-align: right; }
+caption { text-align: left; font-weight: 600; padding: 4px 0; }
+.fail { color: var(--bad); }
+svg.chart { background: #fff; font-size: 11px; }
+svg .axis line, svg .axis .domain { stroke: #444; stroke-width: 1; }
+svg .axis text { fill: #333; }
+svg .axis-label { font-size: 12px; fill: var(--ink); }
+svg path.step { fill: none; stroke: var(--accent); stroke-width: 1.5; }
+svg circle.point { fill: #fff; stroke: var(--accent); stroke-width: 1.5; }
+svg circle.point.lightest { fill: var(--accent); }
+svg rect.bar.pass { fill: #6b9ac4; }
+svg rect.bar.fail { fill: var(--bad); }
+svg line.limit { stroke: var(--bad); stroke-dasharray: 4 3; }
+svg path.effect { fill: none; stroke: var(--accent); stroke-width: 1.5; }
+svg circle.station { fill: var(--accent); }
+svg .resistance line { stroke: var(--bad); stroke-dasharray: 6 3; }
+svg .resistance.r1 line { stroke: #a0620b; }
+svg .resistance text { fill: var(--ink); font-size: 11px; }
+svg line.zero { stroke: #999; }
+@media print {
+  @page { size: A4; margin: 22mm 12mm 20mm; }
+  body { font-size: 10pt; }
+  header.page { position: fixed; top: -18mm; left: 0; right: 0; background: none; padding: 0; border: 0; }
+  footer.page { position: fixed; bottom: -16mm; left: 0; right: 0; background: none; padding: 0; border: 0; margin: 0; }
+  header.page h1 { font-size: 11pt; }
+  .caution { font-size: 7pt; }
+  main { padding: 0; }
+  section.mark { break-before: page; border-top: 0; }
+  thead { display: table-header-group; }
+  tr, svg { break-inside: avoid; }
+}
+`;
+
+const kg = (v: number) => Math.round(v).toLocaleString('en-GB');
+const t3 = (v: number) => (v / 1000).toLocaleString('en-GB', { minimumFractionDigits: 3, maximumFractionDigits: 3 });
+const money = (v: number | null) => (v === null ? '–' : v.toLocaleString('en-GB', { minimumFractionDigits: 2, maximumFractionDigits: 2 }));
+
+function caution(): string {
+  return `<p class="caution"><strong>Caution.</strong> ${esc(CAUTION)} ${esc(SCOPE)}</p>`;
+}
+
+function table(caption: string, head: string[], rows: string[][], numeric: boolean[]): string {
+  const th = head.map((h, i) => `<th${numeric[i] ? ' class="num"' : ''} scope="col">${esc(h)}</th>`).join('');
+  const body = rows.map((r) => `<tr>${r.map((c, i) => `<td${numeric[i] ? ' class="num"' : ''}>${c}</td>`).join('')}</tr>`).join('');
+  return `<table><caption>${esc(caption)}</caption><thead><tr>${th}</tr></thead><tbody>${body}</tbody></table>`;
+}
+
+function markSection(m: ReportMark): string {
+  const charts: string[] = [];
+  charts.push(`<figure>${paretoChart(m.pareto, { title: `${m.mark}: depth against mass`, lightest: m.lightest ?? null })}<figcaption>Pareto front of overall depth h against mass per girder; filled point: lightest.</figcaption></figure>`);
+  if (m.utilisation) {
+    charts.push(`<figure>${utilisationChart(m.utilisation.checks, { title: `${m.mark}: utilisation` })}<figcaption>Governing checks of the ${m.utilisation.of} section; dashed line: utilisation 1.0.</figcaption></figure>`);
+  }
+  if (m.envelope) {
+    const e = m.envelope;
+    const mr = [
+      ...(e.McRd !== undefined ? [{ name: 'McRd', value: e.McRd }] : []),
+      ...(e.MbRd !== undefined ? [{ name: 'MbRd', value: e.MbRd }] : []),
+    ];
+    charts.push(`<figure>${envelopeChart(e.x, e.MEd, mr, { title: `${m.mark}: MEd`, yLabel: 'MEd (kNm)', symmetric: true })}<figcaption>Design moment envelope against the moment resistances (±).</figcaption></figure>`);
+    const vr = e.VbRd !== undefined ? [{ name: 'VbRd', value: e.VbRd }] : [];
+    charts.push(`<figure>${envelopeChart(e.x, e.VEd.map(Math.abs), vr, { title: `${m.mark}: VEd`, yLabel: '|VEd| (kN)', symmetric: false })}<figcaption>Design shear envelope (magnitude) against the shear resistance.</figcaption></figure>`);
+  }
+  const l = m.lightest;
+  const facts = [
+    `quantity ${m.quantity}`,
+    l ? `lightest ${kg(l.mass)} kg at h = ${Math.round(l.depth)} mm${l.governing ? ` (governing: ${esc(l.governing)})` : ''}` : '<span class="fail">no feasible section</span>',
+    ...(m.utilisation ? [`${m.utilisation.of} section ${m.utilisation.passes ? 'passes' : '<span class="fail">fails</span>'}`] : []),
+  ];
+  const notes = (m.notes ?? []).map((s) => `<p>${esc(s)}</p>`).join('');
+  const rows = m.pareto.map((p) => [String(Math.round(p.depth)), kg(p.mass), esc(p.governing ?? '')]);
+  return `<section class="mark" id="mark-${esc(m.mark)}"><h2>${esc(m.mark)}</h2><p>${facts.join(' · ')}</p>${notes}<div class="charts">${charts.join('')}</div>${rows.length ? table(`${m.mark}: Pareto points`, ['h (mm)', 'mass (kg)', 'governing'], rows, [true, true, false]) : ''}</section>`;
+}
+
+function tonnageSection(t: ReportTonnage): string {
+  const withCost = t.cost !== null || t.byGrade.some((g) => g.cost !== null);
+  const byMark = table(
+    'Tonnage by mark',
+    ['mark', 'quantity', 'length (mm)', 'kg per girder', 'kg/m', 'total (t)', ...(withCost ? ['cost'] : [])],
+    t.byMark.map((m) => [esc(m.mark), String(m.quantity), String(m.length), kg(m.perGirder.total), m.perMetre.toFixed(1), t3(m.total), ...(withCost ? [money(m.cost)] : [])]),
+    [false, true, true, true, true, true, true],
+  );
+  const byGrade = table('Tonnage by grade', ['grade', 'mass (t)', ...(withCost ? ['cost'] : [])], t.byGrade.map((g) => [esc(g.grade), t3(g.mass), ...(withCost ? [money(g.cost)] : [])]), [false, true, true]);
+  const byThickness = table('Tonnage by thickness', ['product', 'thickness (mm)', 'mass (t)'], t.byThickness.map((b) => [b.kind === 'plate' ? 'plate' : 'flat bar', String(b.thickness), t3(b.mass)]), [false, true, true]);
+  const plates = table(
+    'Plate list',
+    ['product', 'grade', 'thickness (mm)', 'width (mm)', 'length (mm)', 'count', 'mass (kg)', 'marks'],
+    t.plates.map((p) => [p.kind === 'plate' ? 'plate' : 'flat bar', esc(p.grade), String(p.thickness), String(p.width), String(p.length), String(p.count), kg(p.mass), esc(p.marks.join(', '))]),
+    [false, false, true, true, true, true, true, false],
+  );
+  const total = `<p>Total ${t3(t.total)} t over ${t.girders} girders${t.cost !== null ? `; cost ${money(t.cost)}` : ''}. Welds, snipes and cutting allowances are not included.</p>`;
+  return `<section class="tonnage"><h2>Tonnage</h2>${total}${byMark}${byGrade}${byThickness}${plates}</section>`;
+}
+
+function rationalisationSection(r: ReportRationalisation): string {
+  const unit = r.objective === 'mass' ? 't' : 'cost';
+  const val = (v: number) => (r.objective === 'mass' ? t3(v) : money(v));
+  const rows = r.byK.map((k) =>
+    k.feasible
+      ? [String(k.K), val(k.total), val(k.penalty), `${(k.penaltyRatio * 100).toFixed(2)} %`, esc(k.sections.join(', '))]
+      : [String(k.K), '–', '–', '–', `<span class="fail">${esc(k.reason)}</span>`],
+  );
+  const base = r.unrationalised === null ? '<p class="fail">A mark has no feasible section; no rationalisation is possible.</p>' : `<p>Every mark on its own best section: ${val(r.unrationalised)} ${unit === 't' ? 't' : ''}.</p>`;
+  return `<section class="rationalisation"><h2>Rationalisation</h2>${base}${table(`At most K distinct sections (${r.objective})`, ['K', `total (${unit})`, `penalty (${unit})`, 'penalty', 'sections used'], rows, [true, true, true, true, false])}</section>`;
+}
+
+/**
+ * One self-contained HTML file for a schedule result: inline CSS and SVG drawn here, nothing
+ * fetched when viewed, no script. The caution and scope are printed in the header and the
+ * footer (fixed on every printed page).
+ */
+export function renderReport(input: ReportInput): string {
+  const head = `<header class="page"><h1>${esc(input.title)}</h1>${input.subtitle ? `<div>${esc(input.subtitle)}</div>` : ''}${caution()}</header>`;
+  const foot = `<footer class="page">${caution()}${input.generatedAt ? `<p class="caution">Generated ${esc(input.generatedAt)}.</p>` : ''}</footer>`;
+  const index = input.marks.length > 1 ? `<nav><p>Marks: ${input.marks.map((m) => `<a href="#mark-${esc(m.mark)}">${esc(m.mark)}</a>`).join(' · ')}</p></nav>` : '';
+  const body = [index, ...(input.tonnage ? [tonnageSection(input.tonnage)] : []), ...(input.rationalisation ? [rationalisationSection(input.rationalisation)] : []), ...input.marks.map(markSection)].join('\n');
+  return `<!DOCTYPE html>\n<html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:"><title>${esc(input.title)}</title><style>${STYLE}</style></head><body>${head}<main>${body}</main>${foot}</body></html>\n`;
+}
+
+/**
+ * A report mark from a published search and, when a section is adopted, its verdict: the
+ * utilisation bars show the `top` most utilised applicable checks of the adopted section, or of
+ * the lightest when none is adopted.
+ */
+export function markFromSearch(mark: string, quantity: number, search: PublishedSearch | null, adopted: PublishedVerdict | null = null, top = 8): ReportMark {
+  const out: ReportMark = {
+    mark,
+    quantity,
+    pareto: (search?.pareto ?? []).map((p) => ({ depth: p.depth, mass: p.mass, governing: p.governing.id })),
+    lightest: search?.lightest ? { depth: search.lightest.depth, mass: search.lightest.mass, governing: search.lightest.governing.id } : null,
+  };
+  const src = adopted ? { of: 'adopted' as const, passes: adopted.passes, checks: adopted.checks } : search?.lightest ? { of: 'lightest' as const, passes: true, checks: search.lightest.checks } : null;
+  if (src) {
+    // one bar per check id: its worst station
+    const worst = new Map<string, { id: string; clause: string; utilisation: number | null; passes: boolean }>();
+    for (const c of src.checks) {
+      if (!c.applies || c.utilisation === null) continue;
+      const w = worst.get(c.id);
+      if (!w || (w.utilisation ?? -1) < c.utilisation) worst.set(c.id, { id: c.id, clause: c.clause, utilisation: c.utilisation, passes: c.passes });
+    }
+    const checks = [...worst.values()].sort((a, b) => (b.utilisation ?? 0) - (a.utilisation ?? 0)).slice(0, top);
+    out.utilisation = { of: src.of, passes: src.passes, checks };
+  }
+  if (search && search.pareto.length === 0 && search.nearMisses.length > 0) {
+    out.notes = [`No feasible section; nearest miss fails ${search.nearMisses[0]!.failing.join(', ')}.`];
+  }
+  return out;
+}

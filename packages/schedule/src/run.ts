@@ -1,0 +1,181 @@
+import { isDomainError } from '@platesmith/catalogue';
+import {
+  CheckProblemInput,
+  fromN,
+  parseWith,
+  publishSearch,
+  publishVerdict,
+  runCheckJob,
+  SearchInput,
+  toCheckProblem,
+  toSearchTask,
+  DEFAULT_SPACE_CAP,
+  type FieldIssue,
+  type PublishedSearch,
+  type PublishedVerdict,
+} from '@platesmith/schema';
+import type { SearchResult, SearchTask } from '@platesmith/search';
+import { mergeGirder, type ScheduleJson } from './schema.js';
+
+/** Progress of a schedule run; times in ms. */
+export interface ScheduleProgress {
+  marksDone: number;
+  marksTotal: number;
+  /** the mark being worked on, null before the first and after the last */
+  currentMark: string | null;
+  elapsedMs: number;
+  /** remaining time estimated from the mean time per mark so far; null before the first mark is done */
+  estimateMs: number | null;
+}
+
+/** Why one mark failed, as data (the other marks still run). */
+export interface MarkError {
+  /** 'INVALID_INPUT' for field issues, else the DomainError code, or 'SEARCH_FAILED' */
+  code: string;
+  message: string;
+  field?: string;
+  hint?: string;
+  /** field issues of the mark's merged input (paths relative to the mark) */
+  issues?: FieldIssue[];
+}
+
+export interface AdoptedCheck extends PublishedVerdict {
+  /** self-weight added to the actions, kN/m */
+  selfWeight: number;
+}
+
+export interface MarkResult {
+  mark: string;
+  quantity: number;
+  status: 'ok' | 'failed';
+  search: PublishedSearch | null;
+  adopted: AdoptedCheck | null;
+  error?: MarkError;
+}
+
+export interface ScheduleTotals {
+  marks: number;
+  marksFailed: number;
+  /** Σ quantity */
+  girders: number;
+  /** Σ quantity × lightest mass of the mark, t (marks without a feasible section count 0) */
+  tonnage: number;
+  /** marks whose search found no feasible section */
+  marksWithoutFeasible: string[];
+  /** marks whose adopted section fails a check */
+  adoptedFailing: string[];
+}
+
+export interface ScheduleResult {
+  name: string | null;
+  marks: MarkResult[];
+  totals: ScheduleTotals;
+}
+
+export interface ScheduleDeps {
+  /** the exact search (e.g. on the worker pool); must reject when `signal` aborts */
+  search(task: SearchTask, signal?: AbortSignal): Promise<SearchResult>;
+  onProgress?(p: ScheduleProgress): void;
+  /** cap on candidates per mark (default DEFAULT_SPACE_CAP) */
+  spaceCap?: number;
+  /** clock, ms (tests may inject one) */
+  now?(): number;
+}
+
+const SEARCH_ONLY = new Set(['space', 'objective', 'cost']);
+
+function abortReason(signal: AbortSignal): unknown {
+  return signal.reason ?? new DOMException('the schedule was cancelled', 'AbortError');
+}
+
+function asError(e: unknown): MarkError {
+  if (isDomainError(e)) {
+    const out: MarkError = { code: e.code, message: e.message, hint: e.hint };
+    if (e.field !== undefined) out.field = e.field;
+    return out;
+  }
+  return { code: 'SEARCH_FAILED', message: 'the search of this mark failed unexpectedly' };
+}
+
+/**
+ * Runs a schedule mark by mark: each mark's merged input is validated (SearchInput), searched
+ * through `deps.search`, and, when an adopted section is given, checked for the same problem
+ * (CheckProblemInput, self-weight of the adopted section added). A mark that fails validation or
+ * whose search throws fails alone, with its error as data. When `signal` aborts, the run rejects
+ * with the signal's reason (nothing partial is returned).
+ */
+export async function runSchedule(schedule: ScheduleJson, deps: ScheduleDeps, signal?: AbortSignal): Promise<ScheduleResult> {
+  const now = deps.now ?? (() => performance.now());
+  const t0 = now();
+  const total = schedule.girders.length;
+  const marks: MarkResult[] = [];
+  const progress = (current: string | null): void => {
+    const elapsedMs = now() - t0;
+    const done = marks.length;
+    deps.onProgress?.({ marksDone: done, marksTotal: total, currentMark: current, elapsedMs, estimateMs: done === 0 ? null : (elapsedMs / done) * (total - done) });
+  };
+  for (const g of schedule.girders) {
+    if (signal?.aborted) throw abortReason(signal);
+    progress(g.mark);
+    marks.push(await runMark(schedule.defaults, g, deps, signal));
+  }
+  progress(null);
+  return { name: schedule.name ?? null, marks, totals: totalsOf(marks) };
+}
+
+async function runMark(defaults: Record<string, unknown>, g: ScheduleJson['girders'][number], deps: ScheduleDeps, signal?: AbortSignal): Promise<MarkResult> {
+  const base = { mark: g.mark, quantity: g.quantity };
+  const fields = mergeGirder(defaults, g);
+  const failed = (error: MarkError, search: PublishedSearch | null = null): MarkResult => ({ ...base, status: 'failed', search, adopted: null, error });
+
+  const parsed = parseWith(SearchInput, fields);
+  if (!parsed.ok) return failed({ code: 'INVALID_INPUT', message: `mark ${g.mark}: the input is invalid`, issues: parsed.issues });
+
+  let adoptedInput: CheckProblemInput | null = null;
+  if (g.adopted !== undefined) {
+    const problem: Record<string, unknown> = {};
+    for (const [k, v] of Object.entries(fields)) if (!SEARCH_ONLY.has(k)) problem[k] = v;
+    const p = parseWith(CheckProblemInput, { ...problem, section: g.adopted });
+    if (!p.ok) {
+      const issues = p.issues.map((i) => (i.path.startsWith('section') ? { ...i, path: 'adopted' + i.path.slice('section'.length), pointer: '#/adopted' + i.pointer.slice('#/section'.length) } : i));
+      return failed({ code: 'INVALID_INPUT', message: `mark ${g.mark}: the adopted section or its problem is invalid`, issues });
+    }
+    adoptedInput = p.value;
+  }
+
+  let search: PublishedSearch;
+  try {
+    const task = toSearchTask(parsed.value, deps.spaceCap ?? DEFAULT_SPACE_CAP);
+    const r = await deps.search(task, signal);
+    search = publishSearch(r, task.objective, task.analysis.length);
+  } catch (e) {
+    if (signal?.aborted) throw abortReason(signal);
+    return failed(asError(e));
+  }
+
+  let adopted: AdoptedCheck | null = null;
+  if (adoptedInput) {
+    try {
+      const job = toCheckProblem(adoptedInput);
+      adopted = { ...publishVerdict(runCheckJob(job)), selfWeight: Math.round(fromN(job.g) * 1e6) / 1e3 };
+    } catch (e) {
+      const err = asError(e);
+      if (err.field?.startsWith('section')) err.field = 'adopted' + err.field.slice('section'.length);
+      return failed(err, search);
+    }
+  }
+  return { ...base, status: 'ok', search, adopted };
+}
+
+function totalsOf(marks: MarkResult[]): ScheduleTotals {
+  let tonnage = 0;
+  for (const m of marks) if (m.search?.lightest) tonnage += (m.quantity * m.search.lightest.mass) / 1000;
+  return {
+    marks: marks.length,
+    marksFailed: marks.filter((m) => m.status === 'failed').length,
+    girders: marks.reduce((n, m) => n + m.quantity, 0),
+    tonnage: Math.round(tonnage * 1000) / 1000,
+    marksWithoutFeasible: marks.filter((m) => m.search !== null && m.search.lightest === null).map((m) => m.mark),
+    adoptedFailing: marks.filter((m) => m.adopted !== null && !m.adopted.passes).map((m) => m.mark),
+  };
+}

@@ -1,0 +1,110 @@
+import { z } from 'zod';
+import { PublishedSearchJson, PublishedVerdictJson } from '@platesmith/schema';
+
+/**
+ * A girder schedule: shared defaults (problem, space and option fields of a search, e.g. the
+ * grade, the combination, the space) and one entry per girder mark. Each entry is validated on
+ * its own after the defaults are merged in, so one bad mark fails alone: the schedule schema only
+ * checks the envelope (marks, quantities), the per-mark schemas are SearchInput and
+ * CheckProblemInput of @platesmith/schema.
+ */
+export const GirderEntryJson = z
+  .looseObject({
+    mark: z.string().min(1).max(40).meta({ description: 'girder mark, e.g. "G1" (unique in the schedule)' }),
+    quantity: z.number().int().min(1).max(100_000).meta({ description: 'number of girders of this mark, -' }),
+    adopted: z
+      .unknown()
+      .optional()
+      .meta({ description: 'the adopted section (Section schema, dimensions mm); when given, the mark is also checked as adopted' }),
+  })
+  .meta({
+    id: 'ScheduleGirder',
+    description:
+      'one girder mark: mark, quantity, optional adopted section, and any problem fields of SearchInput (spans mm, actions kN/m or kN, envelope, options, space, objective); these override the defaults',
+  });
+
+export const ScheduleJson = z
+  .strictObject({
+    name: z.string().max(200).optional().meta({ description: 'free text name of the schedule' }),
+    defaults: z
+      .record(z.string(), z.unknown())
+      .default({})
+      .meta({ description: 'fields shared by every mark (any SearchInput field); a mark\'s own fields win, `space` and `options` are merged one level deep' }),
+    girders: z.array(GirderEntryJson).min(1, { message: 'a schedule needs at least one girder' }).max(500, { message: 'at most 500 marks per schedule' }),
+  })
+  .superRefine((s, ctx) => {
+    const seen = new Map<string, number>();
+    s.girders.forEach((g, i) => {
+      const j = seen.get(g.mark);
+      if (j !== undefined) ctx.addIssue({ code: 'custom', path: ['girders', i, 'mark'], message: `mark "${g.mark}" repeats girders[${j}].mark` });
+      else seen.set(g.mark, i);
+    });
+  })
+  .meta({ id: 'Schedule', description: 'a schedule of girder marks searched (and, where a section is adopted, checked) one by one' });
+
+export type ScheduleJson = z.output<typeof ScheduleJson>;
+export type GirderEntryJson = z.output<typeof GirderEntryJson>;
+
+/** Keys merged one level deep rather than replaced. */
+const DEEP = new Set(['space', 'options']);
+
+const isPlain = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+
+/**
+ * The fields of one mark: the defaults with the girder's own fields over them (girder wins);
+ * `space` and `options` merged one level deep. `mark`, `quantity` and `adopted` are not fields
+ * of the problem and are left out. Own enumerable keys only (no prototype keys are copied).
+ */
+export function mergeGirder(defaults: Readonly<Record<string, unknown>>, girder: Readonly<Record<string, unknown>>): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  for (const [k, v] of Object.entries(defaults)) out[k] = v;
+  for (const [k, v] of Object.entries(girder)) {
+    if (k === 'mark' || k === 'quantity' || k === 'adopted') continue;
+    const base = out[k];
+    out[k] = DEEP.has(k) && isPlain(base) && isPlain(v) ? { ...base, ...v } : v;
+  }
+  return out;
+}
+
+/** Published result of a schedule run (shape of ScheduleResult). */
+export const MarkErrorJson = z.object({
+  code: z.string(),
+  message: z.string(),
+  field: z.string().optional(),
+  hint: z.string().optional(),
+  issues: z.array(z.object({ path: z.string(), pointer: z.string(), message: z.string(), code: z.string(), kind: z.enum(['shape', 'value']) })).optional(),
+});
+
+export const ScheduleResultJson = z
+  .object({
+    name: z.string().nullable(),
+    marks: z.array(
+      z.object({
+        mark: z.string(),
+        quantity: z.number(),
+        status: z.enum(['ok', 'failed']),
+        search: PublishedSearchJson.nullable(),
+        adopted: PublishedVerdictJson.nullable().meta({ description: 'the adopted section checked for the mark (selfWeight kN/m)' }),
+        error: MarkErrorJson.optional(),
+      }),
+    ),
+    totals: z.object({
+      marks: z.number(),
+      marksFailed: z.number(),
+      girders: z.number().meta({ description: 'Σ quantity, -' }),
+      tonnage: z.number().meta({ description: 'Σ quantity × lightest mass, t' }),
+      marksWithoutFeasible: z.array(z.string()),
+      adoptedFailing: z.array(z.string()),
+    }),
+  })
+  .meta({ id: 'ScheduleResult' });
+
+export const ScheduleProgressJson = z
+  .object({
+    marksDone: z.number(),
+    marksTotal: z.number(),
+    currentMark: z.string().nullable(),
+    elapsedMs: z.number().meta({ description: 'ms' }),
+    estimateMs: z.number().nullable().meta({ description: 'remaining, estimated from the mean time per mark, ms' }),
+  })
+  .meta({ id: 'ScheduleProgress' });

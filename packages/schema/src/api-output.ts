@@ -1,0 +1,130 @@
+import { summarise } from '@platesmith/actions';
+import { z } from 'zod';
+import { CAUTION, SCOPE } from './caution.js';
+import { toAnalysis } from './problem-convert.js';
+import type { ProblemJson } from './problem.js';
+import { SectionJson } from './section.js';
+import { fromN, fromNmm } from './units.js';
+
+/**
+ * zod schemas of the published results (the shapes of publishCheck, publishVerdict,
+ * publishSearch and publishEffects), so the HTTP service can declare and document its
+ * responses from the same definitions. Units as in VALUE_UNITS: kN, kNm, mm, MPa, kg.
+ */
+export const PublishedCheckJson = z
+  .object({
+    id: z.string().meta({ description: 'check id in trade words, e.g. "shear-buckling"' }),
+    clause: z.string().meta({ description: 'standard and clause, e.g. "EN 1993-1-5 5.2"' }),
+    applies: z.boolean(),
+    reason: z.string().optional().meta({ description: 'why the check does not apply' }),
+    utilisation: z.number().nullable().meta({ description: 'design effect over resistance, -; null when unbounded' }),
+    passes: z.boolean(),
+    at: z.number().nullable().meta({ description: 'governing station from the left end, mm' }),
+    values: z
+      .record(z.string(), z.union([z.number(), z.string(), z.boolean()]))
+      .meta({ description: "intermediate values by the standard's symbols: forces kN, moments kNm, lengths mm, areas mm², moduli mm³, second moments mm⁴, stresses MPa" }),
+  })
+  .meta({ id: 'CheckResult' });
+
+export const PublishedVerdictJson = z
+  .object({
+    passes: z.boolean(),
+    governing: PublishedCheckJson,
+    checks: z.array(PublishedCheckJson),
+    selfWeight: z.number().optional().meta({ description: 'self-weight added to the actions, kN/m (problem form only)' }),
+    caution: z.string().optional(),
+    scope: z.string().optional(),
+  })
+  .meta({ id: 'Verdict', description: 'every check of the section and the governing one' });
+
+export const PublishedPointJson = z
+  .object({
+    depth: z.number().meta({ description: 'overall depth h = hw + tf,top + tf,bot, mm' }),
+    mass: z.number().meta({ description: 'girder mass (plates, stiffeners, bearing stiffeners), kg' }),
+    massPerMetre: z.number().meta({ description: 'kg/m' }),
+    value: z.number().meta({ description: 'objective value: kg, or cost units' }),
+    section: SectionJson,
+    governing: PublishedCheckJson,
+    checks: z.array(PublishedCheckJson),
+  })
+  .meta({ id: 'ParetoPoint' });
+
+export const PublishedMissJson = z
+  .object({ depth: z.number().meta({ description: 'mm' }), mass: z.number().meta({ description: 'kg' }), section: SectionJson, governing: PublishedCheckJson, failing: z.array(z.string()) })
+  .meta({ id: 'NearMiss' });
+
+export const SearchStatsJson = z
+  .object({
+    spaceSize: z.number().meta({ description: 'candidates in the space, -' }),
+    fullEvaluations: z.number().meta({ description: 'candidates judged by every check, -' }),
+    pruned: z
+      .object({ depth: z.number(), rules: z.number(), shear: z.number(), bending: z.number(), flangeInducedBuckling: z.number(), deflection: z.number().optional(), patchLoading: z.number().optional(), webOnly: z.number(), incumbent: z.number() })
+      .meta({ description: 'candidates pruned by each bound, -' }),
+    failedBy: z.record(z.string(), z.number()).optional().meta({ description: 'candidates judged in full that failed, by the failing check id, -' }),
+    wallMs: z.number().meta({ description: 'wall time, ms' }),
+    workers: z.number(),
+    webConfigurations: z.number(),
+  })
+  .meta({ id: 'SearchStats' });
+
+export const PublishedSearchJson = z
+  .object({
+    objective: z.enum(['mass', 'cost']),
+    pareto: z.array(PublishedPointJson).meta({ description: 'depth ascending; nothing shallower or as shallow is lighter' }),
+    lightest: PublishedPointJson.nullable(),
+    nearMisses: z.array(PublishedMissJson),
+    stats: SearchStatsJson,
+    caution: z.string(),
+    scope: z.string(),
+  })
+  .meta({ id: 'SearchResult' });
+
+export const EffectsSummaryJson = z
+  .object({
+    reactions: z.array(z.object({ x: z.number().meta({ description: 'support, mm' }), R: z.number().meta({ description: 'design reaction, kN' }) })),
+    stations: z.array(z.object({ x: z.number().meta({ description: 'mm' }), MEd: z.number().meta({ description: 'kNm' }), VEd: z.number().meta({ description: 'kN' }) })),
+    envelope: z.object({
+      MEdMax: z.number().meta({ description: 'kNm' }),
+      MEdMin: z.number().meta({ description: 'kNm' }),
+      VEdMax: z.number().meta({ description: 'largest |VEd|, kN' }),
+    }),
+    governing: z.object({ MEdMax: z.string(), MEdMin: z.string(), VEdMax: z.string() }).meta({ description: 'labels of the governing combinations' }),
+    note: z.string(),
+    caution: z.string(),
+  })
+  .meta({ id: 'EffectsSummary', description: 'design values of the governing ULS combinations, without the girder self-weight' });
+export type EffectsSummaryJson = z.output<typeof EffectsSummaryJson>;
+
+const round3 = (v: number) => Math.round(v * 1000) / 1000;
+
+/** The analysis of a problem in public units (kN, kNm, mm), without self-weight. */
+export function publishEffects(p: ProblemJson): EffectsSummaryJson {
+  const s = summarise(toAnalysis(p), 0);
+  return {
+    reactions: s.reactions.map((r) => ({ x: r.x, R: round3(fromN(r.R)) })),
+    stations: s.stations.map((st) => ({ x: round3(st.x), MEd: round3(fromNmm(st.MEd)), VEd: round3(fromN(st.VEd)) })),
+    envelope: { MEdMax: round3(fromNmm(s.envelope.MEdMax)), MEdMin: round3(fromNmm(s.envelope.MEdMin)), VEdMax: round3(fromN(s.envelope.VEdMax)) },
+    governing: s.governing,
+    note: 'design values without the girder self-weight (check and search add each section its own)',
+    caution: `${CAUTION} ${SCOPE}`,
+  };
+}
+
+/** RFC 9457 problem details, with the field issues of a validation failure. */
+export const ProblemDetailsJson = z
+  .object({
+    type: z.string().meta({ description: 'URI naming the problem type (see the errors table)' }),
+    title: z.string(),
+    status: z.number().int(),
+    detail: z.string(),
+    instance: z.string().meta({ description: 'the request path' }),
+    code: z.string().meta({ description: 'stable error code' }),
+    requestId: z.string(),
+    field: z.string().optional().meta({ description: 'offending field (domain errors)' }),
+    hint: z.string().optional().meta({ description: 'what to do next' }),
+    errors: z
+      .array(z.object({ path: z.string(), pointer: z.string().meta({ description: 'JSON pointer into the body, e.g. #/spans/0' }), message: z.string() }))
+      .optional(),
+  })
+  .meta({ id: 'ProblemDetails', description: 'RFC 9457 problem details (application/problem+json)' });
+export type ProblemDetailsJson = z.output<typeof ProblemDetailsJson>;

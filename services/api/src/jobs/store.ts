@@ -1,0 +1,67 @@
+import type { ScheduleJson, ScheduleProgress, ScheduleResult } from '@platesmith/schedule';
+
+export type JobState = 'queued' | 'running' | 'done' | 'failed' | 'cancelled';
+
+export const TERMINAL: ReadonlySet<JobState> = new Set(['done', 'failed', 'cancelled']);
+
+/** One schedule job as stored. Times are ISO 8601 strings so a row store keeps them as text. */
+export interface JobRecord {
+  id: string;
+  kind: 'schedule';
+  status: JobState;
+  createdAt: string;
+  startedAt: string | null;
+  finishedAt: string | null;
+  progress: ScheduleProgress | null;
+  input: ScheduleJson;
+  result: ScheduleResult | null;
+  error: { code: string; message: string } | null;
+}
+
+export type JobPatch = Partial<Pick<JobRecord, 'status' | 'startedAt' | 'finishedAt' | 'progress' | 'result' | 'error'>>;
+
+/**
+ * Where jobs live. Every method is async and takes and returns plain JSON-able records, so a
+ * durable store (one SQLite table: id, status, times as columns, input/progress/result/error as
+ * JSON text) can replace the in-memory one without touching the manager or the routes.
+ */
+export interface JobStore {
+  insert(job: JobRecord): Promise<void>;
+  get(id: string): Promise<JobRecord | undefined>;
+  /** applies the patch and returns the updated record (undefined when the id is unknown) */
+  update(id: string, patch: JobPatch): Promise<JobRecord | undefined>;
+  /** newest first */
+  list(query: { limit: number; status?: JobState }): Promise<JobRecord[]>;
+  delete(id: string): Promise<boolean>;
+  close(): Promise<void>;
+}
+
+/** In-memory job store (lost on restart). Records are copied in and out, as a row store would. */
+export class MemoryJobStore implements JobStore {
+  readonly #jobs = new Map<string, JobRecord>();
+
+  async insert(job: JobRecord): Promise<void> {
+    this.#jobs.set(job.id, structuredClone(job));
+  }
+  async get(id: string): Promise<JobRecord | undefined> {
+    const j = this.#jobs.get(id);
+    return j ? structuredClone(j) : undefined;
+  }
+  async update(id: string, patch: JobPatch): Promise<JobRecord | undefined> {
+    const j = this.#jobs.get(id);
+    if (!j) return undefined;
+    const next = { ...j, ...structuredClone(patch) };
+    this.#jobs.set(id, next);
+    return structuredClone(next);
+  }
+  async list(query: { limit: number; status?: JobState }): Promise<JobRecord[]> {
+    const all = [...this.#jobs.values()].filter((j) => query.status === undefined || j.status === query.status);
+    return all.reverse().slice(0, query.limit).map((j) => structuredClone(j));
+  }
+  async delete(id: string): Promise<boolean> {
+    return this.#jobs.delete(id);
+  }
+  async close(): Promise<void> {
+    this.#jobs.clear();
+  }
+}

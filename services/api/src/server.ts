@@ -1,0 +1,29 @@
+import closeWithGrace from 'close-with-grace';
+import { buildApp, type ApiOptions } from './app.js';
+
+/**
+ * Starts the service: HOST and PORT from the environment (default 127.0.0.1:8080), pino logs at
+ * LOG_LEVEL (info). On SIGINT/SIGTERM: stop accepting, answer in-flight requests with
+ * "connection: close", cancel running schedule jobs, close the worker pool.
+ */
+export async function startServer(opts: ApiOptions & { host?: string; port?: number; graceMs?: number } = {}): Promise<{ url: string; close: () => Promise<void> }> {
+  const app = await buildApp({ logger: { level: process.env.LOG_LEVEL ?? 'info' }, ...opts });
+  const host = opts.host ?? process.env.HOST ?? '127.0.0.1';
+  const port = opts.port ?? Number(process.env.PORT ?? 8080);
+  const grace = closeWithGrace({ delay: opts.graceMs ?? 10_000 }, async ({ signal, err }) => {
+    if (err) app.log.error({ err }, 'closing after an uncaught error');
+    else app.log.info({ signal }, 'closing');
+    await app.close();
+  });
+  app.addHook('onClose', async () => grace.uninstall());
+  const url = await app.listen({ host, port });
+  return { url, close: () => app.close() };
+}
+
+const isEntry = process.argv[1] !== undefined && import.meta.url === new URL(`file://${process.argv[1]}`).href;
+if (isEntry) {
+  startServer().catch((e: unknown) => {
+    process.stderr.write(`platesmith api failed to start: ${(e as Error).message}\n`);
+    process.exit(1);
+  });
+}

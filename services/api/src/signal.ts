@@ -1,0 +1,13 @@
+import type { FastifyReply } from 'fastify';
+
+/**
+ * Fires when the client goes away before the answer is written. Listens on the response, not the
+ * request: the request's 'close' fires as soon as its body has been read.
+ */
+export function clientGone(reply: FastifyReply): AbortSignal {
+  const ac = new AbortController();
+  reply.raw.on('close', () => {
+    if (!reply.raw.writableFinished) ac.abort(new DOMException('the client went away', 'AbortError'));
+  });
+  return ac.signal;
+}

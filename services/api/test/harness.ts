@@ -1,0 +1,63 @@
+import { Writable } from 'node:stream';
+import { pino } from 'pino';
+import { buildApp, type ApiOptions } from '../src/index.js';
+import type { FastifyInstance } from 'fastify';
+
+/** A real server on 127.0.0.1, port 0, with its pino lines collected (no console output). */
+export interface Running {
+  app: FastifyInstance;
+  url: string;
+  logs: Record<string, unknown>[];
+  post(path: string, body: unknown, headers?: Record<string, string>): Promise<{ status: number; headers: Headers; body: any }>;
+  get(path: string, headers?: Record<string, string>): Promise<{ status: number; headers: Headers; body: any }>;
+  close(): Promise<void>;
+}
+
+export async function start(opts: ApiOptions = {}): Promise<Running> {
+  const logs: Record<string, unknown>[] = [];
+  const sink = new Writable({
+    write(chunk, _enc, cb) {
+      for (const line of String(chunk).split('\n')) if (line) logs.push(JSON.parse(line));
+      cb();
+    },
+  });
+  const app = await buildApp({ loggerInstance: pino({ level: 'info' }, sink), ...opts });
+  const url = await app.listen({ host: '127.0.0.1', port: 0 });
+  const read = async (r: Response) => {
+    const text = await r.text();
+    let body: unknown = text;
+    try {
+      body = JSON.parse(text);
+    } catch {
+      /* not JSON: keep the text */
+    }
+    return { status: r.status, headers: r.headers, body };
+  };
+  return {
+    app,
+    url,
+    logs,
+    post: async (path, body, headers = {}) =>
+      read(await fetch(url + path, { method: 'POST', headers: { 'content-type': 'application/json', ...headers }, body: typeof body === 'string' ? body : JSON.stringify(body) })),
+    get: async (path, headers = {}) => read(await fetch(url + path, { headers })),
+    close: () => app.close(),
+  };
+}
+
+/** A 12 m simply supported girder, permanent 10 kN/m and imposed (category B) 15 kN/m. */
+export const PROBLEM = {
+  spans: [12000],
+  actions: [
+    { kind: 'permanent', load: 'udl', value: 10 },
+    { kind: 'variable', load: 'udl', value: 15, category: 'B' },
+  ],
+};
+
+/** A small space (54 candidates): answers in well under a second. */
+export const TINY_SPACE = { webDepth: [700, 800, 900], webThickness: [8, 10], flangeWidth: [200, 250, 300], flangeThickness: [12, 15, 20], panels: [0], endPost: 'rigid' };
+
+export const SECTION = {
+  web: { depth: 800, thickness: 10 },
+  topFlange: { width: 250, thickness: 15 },
+  bottomFlange: { width: 250, thickness: 15 },
+};

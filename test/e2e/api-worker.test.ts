@@ -1,0 +1,51 @@
+/**
+ * Worker failure, time budget and request logging over real HTTP. The crash goes through the
+ * worker's deliberate 'crash' message (test-only route); no engineering value is asserted.
+ */
+import { afterAll, beforeAll, expect, test } from 'vitest';
+import { PROBLEM, start, TINY_SPACE, type Running } from '../../services/api/test/harness.js';
+
+let srv: Running;
+beforeAll(async () => {
+  srv = await start({ threads: 2, testHooks: true });
+});
+afterAll(async () => {
+  await srv.close();
+});
+
+test.for(['throw', 'exit'] as const)('a worker that does %s fails its request alone (500), the next search passes', async (how) => {
+  const r = await srv.post('/_test/crash', { how });
+  expect(r.status).toBe(500);
+  expect(r.headers.get('content-type')).toMatch(/^application\/problem\+json/);
+  expect(r.body).toMatchObject({ status: 500, code: 'WORKER_FAILED', instance: '/_test/crash' });
+  expect(JSON.stringify(r.body)).not.toMatch(/deliberate|\n\s+at /); // the worker's message stays in the log
+  const ok = await srv.post('/v1/searches', { ...PROBLEM, space: TINY_SPACE });
+  expect(ok.status).toBe(200);
+  expect(ok.body.lightest).not.toBeNull();
+  expect((await srv.get('/ready')).status).toBe(200);
+});
+
+test('a search past its time budget is aborted: 503 TIME_BUDGET_EXCEEDED, then the pool serves again', async () => {
+  // the default space on a 24 m span takes seconds; a 100 ms budget cannot be met
+  const r = await srv.post('/v1/searches?budgetMs=100', { spans: [24000], actions: PROBLEM.actions });
+  expect(r.status).toBe(503);
+  expect(r.body).toMatchObject({ status: 503, code: 'TIME_BUDGET_EXCEEDED', budgetMs: 100 });
+  expect(r.body.detail).toMatch(/100 ms/);
+  const ok = await srv.post('/v1/searches', { ...PROBLEM, space: TINY_SPACE });
+  expect(ok.status).toBe(200);
+});
+
+test('search statistics are logged with the request id', async () => {
+  const r = await srv.post('/v1/searches', { ...PROBLEM, space: TINY_SPACE });
+  expect(r.status).toBe(200);
+  const id = r.headers.get('x-request-id');
+  const line = srv.logs.find((l) => l.reqId === id && l.msg === 'search statistics') as { search: Record<string, unknown> } | undefined;
+  expect(line).toBeDefined();
+  expect(line!.search).toMatchObject({ spaceSize: r.body.stats.spaceSize, fullEvaluations: r.body.stats.fullEvaluations, paretoPoints: r.body.pareto.length });
+  expect(r.body.stats.spaceSize).toBe(3 * 2 * 3 * 3); // TINY_SPACE: 3 depths × 2 webs × 3 widths × 3 thicknesses, symmetric, no stiffeners, one end post
+});
+
+test('a client given its own x-request-id gets it back', async () => {
+  const r = await srv.get('/health', { 'x-request-id': 'abc-123' });
+  expect(r.headers.get('x-request-id')).toBe('abc-123');
+});
