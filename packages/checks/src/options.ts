@@ -25,6 +25,7 @@ export function defaultOptions(L: number, overrides: Partial<CheckOptions> = {})
     kFib: 'auto',
     supports: [0, L],
     restraint: { kind: 'continuous' },
+    restraintBottom: { kind: 'at', at: [] },
     loadHeight: 'top-flange',
     ltbMethod: 'general',
     ltbModification: false,

@@ -110,7 +110,10 @@ export interface CheckOptions {
   kFib: number | 'auto';
   /** support positions, mm, ascending; the first is 0 and the last the girder length */
   supports: number[];
+  /** lateral restraint of the top flange (compression flange under sagging) */
   restraint: Restraint;
+  /** lateral restraint of the bottom flange (compression flange under hogging); default: at the supports only */
+  restraintBottom: Restraint;
   loadHeight: LoadHeight;
   /** EN 1993-1-1 6.3.2.2 ('general', default) or 6.3.2.3 ('rolled-equivalent', λLT,0 = 0.4, β = 0.75) */
   ltbMethod: 'general' | 'rolled-equivalent';

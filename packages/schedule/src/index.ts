@@ -3,7 +3,18 @@
  * searched (and checked as adopted where a section is given), tonnage totals. Pure: the search
  * itself is passed in (the worker pool lives in the service).
  */
-export { ScheduleJson, GirderEntryJson, ScheduleResultJson, ScheduleProgressJson, MarkErrorJson, mergeGirder } from './schema.js';
+export {
+  ScheduleJson,
+  GirderEntryJson,
+  ScheduleResultJson,
+  ScheduleProgressJson,
+  MarkErrorJson,
+  MarkRecordJson,
+  BaselineJson,
+  TenderOptionsJson,
+  ScheduleRunResultJson,
+  mergeGirder,
+} from './schema.js';
 export {
   runSchedule,
   type ScheduleDeps,
@@ -13,5 +24,20 @@ export {
   type MarkResult,
   type MarkError,
   type AdoptedCheck,
+  totalsOf,
 } from './run.js';
+export {
+  finishSchedule,
+  compareRun,
+  baselineRecords,
+  recordOf,
+  sectionPassesFor,
+  RESULT_FORMAT,
+  RESULT_VERSION,
+  type ScheduleRunResult,
+  type ScheduleComparison,
+  type ScheduleTender,
+  type RationalisationOutcome,
+} from './finish.js';
+export { parseSchedule, parseScheduleText, type ScheduleParsed, type ScheduleInputIssue } from './input.js';
 export * from './tender/index.js';

@@ -26,6 +26,11 @@ export interface ScheduleProgress {
   elapsedMs: number;
   /** remaining time estimated from the mean time per mark so far; null before the first mark is done */
   estimateMs: number | null;
+  /**
+   * the mark that has just finished, on the one report that counts it (absent otherwise), so a
+   * caller that only listens to progress can store each mark's result as soon as it exists
+   */
+  finished?: MarkResult;
 }
 
 /** Why one mark failed, as data (the other marks still run). */
@@ -76,6 +81,8 @@ export interface ScheduleDeps {
   /** the exact search (e.g. on the worker pool); must reject when `signal` aborts */
   search(task: SearchTask, signal?: AbortSignal): Promise<SearchResult>;
   onProgress?(p: ScheduleProgress): void;
+  /** called with each mark's result as soon as it is known (index in `schedule.girders`) */
+  onMark?(m: MarkResult, index: number): void;
   /** cap on candidates per mark (default DEFAULT_SPACE_CAP) */
   spaceCap?: number;
   /** clock, ms (tests may inject one) */
@@ -109,17 +116,25 @@ export async function runSchedule(schedule: ScheduleJson, deps: ScheduleDeps, si
   const t0 = now();
   const total = schedule.girders.length;
   const marks: MarkResult[] = [];
-  const progress = (current: string | null): void => {
+  const progress = (current: string | null, finished?: MarkResult): void => {
     const elapsedMs = now() - t0;
     const done = marks.length;
-    deps.onProgress?.({ marksDone: done, marksTotal: total, currentMark: current, elapsedMs, estimateMs: done === 0 ? null : (elapsedMs / done) * (total - done) });
+    const p: ScheduleProgress = { marksDone: done, marksTotal: total, currentMark: current, elapsedMs, estimateMs: done === 0 ? null : (elapsedMs / done) * (total - done) };
+    if (finished) p.finished = finished;
+    deps.onProgress?.(p);
   };
-  for (const g of schedule.girders) {
+  const girders = schedule.girders;
+  for (let i = 0; i < girders.length; i++) {
     if (signal?.aborted) throw abortReason(signal);
-    progress(g.mark);
-    marks.push(await runMark(schedule.defaults, g, deps, signal));
+    const g = girders[i]!;
+    // the first report names the first mark; each later one counts the mark just done and names the next
+    if (i === 0) progress(g.mark);
+    const m = await runMark(schedule.defaults, g, deps, signal);
+    marks.push(m);
+    deps.onMark?.(m, i);
+    progress(girders[i + 1]?.mark ?? null, m);
   }
-  progress(null);
+  if (girders.length === 0) progress(null);
   return { name: schedule.name ?? null, marks, totals: totalsOf(marks) };
 }
 
@@ -167,7 +182,8 @@ async function runMark(defaults: Record<string, unknown>, g: ScheduleJson['girde
   return { ...base, status: 'ok', search, adopted };
 }
 
-function totalsOf(marks: MarkResult[]): ScheduleTotals {
+/** Totals of a list of mark results (Σ quantity, Σ quantity × lightest mass, marks without a feasible or with a failing adopted section). */
+export function totalsOf(marks: readonly MarkResult[]): ScheduleTotals {
   let tonnage = 0;
   for (const m of marks) if (m.search?.lightest) tonnage += (m.quantity * m.search.lightest.mass) / 1000;
   return {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { GRADES, type GradeName } from '@platesmith/catalogue';
 import { PublishedSearchJson, PublishedVerdictJson } from '@platesmith/schema';
 
 /**
@@ -23,9 +24,59 @@ export const GirderEntryJson = z
       'one girder mark: mark, quantity, optional adopted section, and any problem fields of SearchInput (spans mm, actions kN/m or kN, envelope, options, space, objective); these override the defaults',
   });
 
+/** What the nightly comparison keeps of one mark (MarkRecord of the tender outputs). */
+export const MarkRecordJson = z
+  .strictObject({
+    mark: z.string().min(1).max(40),
+    adoptedPasses: z.boolean().optional().meta({ description: 'the adopted section passed every check (absent: no adopted section)' }),
+    adoptedGoverning: z.string().optional().meta({ description: 'id of the governing check of the adopted section' }),
+    lightestMass: z.number().nonnegative().nullable().meta({ description: 'mass of one girder of the lightest feasible section, kg (null: none feasible)' }),
+    lightestGoverning: z.string().nullable().meta({ description: 'id of the governing check of the lightest section' }),
+  })
+  .meta({ id: 'ScheduleMarkRecord' });
+
+/**
+ * A baseline for the regression comparison: the `records` of an earlier schedule result (the
+ * whole earlier result may be given; only `records` is read), or the records alone.
+ */
+export const BaselineJson = z
+  .preprocess((v) => (Array.isArray(v) ? { records: v } : v), z.looseObject({ records: z.array(MarkRecordJson) }))
+  .meta({ id: 'ScheduleBaseline', description: 'the records of a previous schedule result ({ records: [...] }, or the array alone)' });
+
+/** Tender options of a schedule run. */
+export const TenderOptionsJson = z
+  .strictObject({
+    rates: z
+      .partialRecord(z.enum(GRADES as unknown as [GradeName, ...GradeName[]]), z.number().nonnegative().refine(Number.isFinite, { message: 'a rate must be finite' }))
+      .optional()
+      .meta({ description: 'material cost per kg of each grade (any currency); gives the cost lines' }),
+    rationalise: z
+      .number()
+      .int()
+      .min(1)
+      .max(50)
+      .optional()
+      .meta({ description: 'rationalise to at most K = 1 … this many distinct sections (MILP); absent: no rationalisation' }),
+    objective: z.enum(['mass', 'cost']).default('mass').meta({ description: 'what the rationalisation minimises (cost needs rates)' }),
+    maxPairs: z
+      .number()
+      .int()
+      .min(1)
+      .max(1_000_000)
+      .default(20_000)
+      .meta({ description: 'largest marks × candidates the rationalisation takes on (each pair is one full check); above it the rationalisation is skipped with a reason' }),
+  })
+  .meta({ id: 'ScheduleTenderOptions' });
+export type TenderOptionsJson = z.output<typeof TenderOptionsJson>;
+
 export const ScheduleJson = z
   .strictObject({
     name: z.string().max(200).optional().meta({ description: 'free text name of the schedule' }),
+    baseline: BaselineJson.optional().meta({ description: 'records of a previous run: every mark is compared with it (regression)' }),
+    compare: z
+      .strictObject({ massTolerance: z.number().min(0).max(1).default(0.01).meta({ description: 'relative change of the lightest mass reported as a change, - (0.01 = 1 %)' }) })
+      .optional(),
+    tender: TenderOptionsJson.optional(),
     defaults: z
       .record(z.string(), z.unknown())
       .default({})
@@ -43,6 +94,8 @@ export const ScheduleJson = z
   .meta({ id: 'Schedule', description: 'a schedule of girder marks searched (and, where a section is adopted, checked) one by one' });
 
 export type ScheduleJson = z.output<typeof ScheduleJson>;
+export type MarkRecordJson = z.output<typeof MarkRecordJson>;
+export type BaselineJson = z.output<typeof BaselineJson>;
 export type GirderEntryJson = z.output<typeof GirderEntryJson>;
 
 /** Keys merged one level deep rather than replaced. */
@@ -108,3 +161,39 @@ export const ScheduleProgressJson = z
     estimateMs: z.number().nullable().meta({ description: 'remaining, estimated from the mean time per mark, ms' }),
   })
   .meta({ id: 'ScheduleProgress' });
+
+/**
+ * A finished schedule run (finishSchedule): the ScheduleResult with the record of every mark,
+ * the comparison with the baseline, and the tender outputs. Described loosely here (its parts
+ * are the tender functions' documented shapes); this is the document `--out` writes.
+ */
+export const ScheduleRunResultJson = ScheduleResultJson.extend({
+  format: z.literal('platesmith-schedule-result'),
+  version: z.literal(1),
+  records: z.array(MarkRecordJson).meta({ description: 'one per mark; give this document (or { records }) as the baseline of a later run' }),
+  comparison: z
+    .object({
+      massTolerance: z.number(),
+      results: z.array(
+        z.object({
+          mark: z.string(),
+          status: z.enum(['pass', 'regressed', 'changed', 'new', 'removed']),
+          reasons: z.array(z.string()),
+          baseline: MarkRecordJson.nullable(),
+          current: MarkRecordJson.nullable(),
+        }),
+      ),
+      counts: z.record(z.string(), z.number()),
+      regressed: z.array(z.string()),
+    })
+    .nullable()
+    .meta({ description: 'comparison with the baseline, mark by mark; null without a baseline' }),
+  tender: z
+    .object({
+      basis: z.array(z.object({ mark: z.string(), section: z.enum(['adopted', 'lightest']) })),
+      leftOut: z.array(z.object({ mark: z.string(), reason: z.string() })),
+      tonnage: z.unknown().meta({ description: 'total, byGrade, byThickness, byMark (quantity included), plates, cost; masses kg, lengths mm; null when no mark has a section' }),
+      rationalisation: z.unknown().meta({ description: 'objective, unrationalised, byK (K, total, penalty kg or cost, sections, assignment), or { skipped }; null when not asked' }),
+    })
+    .meta({ description: 'tonnage, plate list, cost and rationalisation' }),
+}).meta({ id: 'ScheduleRunResult' });

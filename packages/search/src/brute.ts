@@ -1,5 +1,5 @@
 import { checkGirder } from '@platesmith/checks';
-import { G_ACC, prepareSearch, price, settle, type BearingFlat, type Evaluated, type SearchProblem } from './core.js';
+import { prepareSearch, price, selfWeightOf, settle, type BearingFlat, type Evaluated, type SearchProblem } from './core.js';
 import { paretoFront } from './pareto.js';
 import { buildSection, webParts } from './objective.js';
 
@@ -27,7 +27,7 @@ export function bruteForce(p: SearchProblem): { front: Evaluated[]; evaluations:
         if (sp.rules.tfMaxOverTw !== undefined && (T.t > sp.rules.tfMaxOverTw * w.tw || B.t > sp.rules.tfMaxOverTw * w.tw)) continue;
         const section = buildSection(w, parts, T, B);
         const { plates } = price(prep, w, parts, T, B, cache, minThroat);
-        const verdict = checkGirder(section, p.load.effects((plates * G_ACC) / L), p.options);
+        const verdict = checkGirder(section, p.load.effects(selfWeightOf(prep, w, T, B)), p.options);
         evaluations++;
         if (!verdict.passes) continue;
         const { mass, value } = settle(prep, w, parts, T, B, plates, verdict, minThroat);

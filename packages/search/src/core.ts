@@ -61,6 +61,8 @@ export interface PruneStats {
   flangeInducedBuckling: number;
   deflection: number;
   patchLoading: number;
+  /** failed a layout-free check with another stiffener layout or end post of the same plates */
+  sameFlanges: number;
   webOnly: number;
   incumbent: number;
 }
@@ -118,6 +120,8 @@ export interface Prepared {
   Lmax: number;
   supports: number[];
   fySource: FySource;
+  /** kg of intermediate stiffeners per mm of web depth for the heaviest layout in the space */
+  stiffKgPerHw: number;
 }
 
 export function prepareSearch(p: SearchProblem): Prepared {
@@ -134,8 +138,32 @@ export function prepareSearch(p: SearchProblem): Prepared {
   const L = supports[supports.length - 1]! - supports[0]!;
   let Lmax = 0;
   for (let i = 1; i < supports.length; i++) Lmax = Math.max(Lmax, supports[i]! - supports[i - 1]!);
-  return { p, webs, groups, flanges, groupStart, L, Lmax, supports, fySource };
+  // the heaviest stiffener layout of the space, per mm of web depth (see selfWeightOf)
+  let stiffKgPerHw = 0;
+  for (const n of p.space.panels) {
+    if (n <= 1) continue;
+    const count = panelsOf(supports, Lmax / n).stiffenerXs.length;
+    for (const f of p.space.flats) for (const sides of p.space.sides) stiffKgPerHw = Math.max(stiffKgPerHw, count * sides * f.b * f.t * KG_PER_MM3);
+  }
+  return { p, webs, groups, flanges, groupStart, L, Lmax, supports, fySource, stiffKgPerHw };
 }
+
+/**
+ * The self-weight a candidate's effects are computed with, N/mm: web and flanges, plus the
+ * intermediate stiffeners of the heaviest layout in the space (conservative by at most that
+ * layout's weight, about 1–3 % of the girder's). Taking the same allowance for every stiffener
+ * layout makes the effects, and so every check that does not read the stiffeners (bending,
+ * lateral-torsional buckling, deflection, flange-induced buckling, plastic shear), identical
+ * across the layouts of one web and flange choice: a failure of one of those checks then fails
+ * every layout, exactly. Bearing stiffeners stand over the supports and load no span.
+ */
+export function selfWeightOf(prep: Prepared, w: WebConfig, T: FlangeOption, B: FlangeOption): number {
+  const kg = w.hw * w.tw * prep.L * KG_PER_MM3 + (flangeMass(T, prep.L) + flangeMass(B, prep.L)) + prep.stiffKgPerHw * w.hw;
+  return (kg * G_ACC) / prep.L;
+}
+
+/** Checks that read nothing of the intermediate stiffeners or the end post: equal across layouts. */
+const LAYOUT_FREE = new Set(['deflection', 'lateral-torsional-buckling', 'bending', 'flange-induced-buckling', 'shear', 'classification']);
 
 /** The value of a candidate's objective before its checks are known: exact for mass, a lower bound for cost. */
 interface Pricing {
@@ -160,11 +188,13 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
   const { p, webs, groups, flanges, groupStart, L, Lmax, supports } = prep;
   const o = p.options;
   const sp = p.space;
-  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, webOnly: 0, incumbent: 0 };
+  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 };
   let fullEvaluations = 0;
   let spaceSize = 0;
   const minThroat = o.weldThroats[0]!;
   const failedBy: Record<string, number> = {};
+  // web plate and flanges whose candidates failed a layout-free check (at the shared self-weight)
+  const sharedFailures = new Set<string>();
 
   // staircase of feasible points found so far: depth ascending, value strictly descending
   const stairs: Evaluated[] = [];
@@ -222,6 +252,8 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
   const gLoAll = ((lightestWebKg + 2 * lightestFlange) * G_ACC) / L;
   const demGlobal = p.load.demandLowerBound(gLoAll, gMax);
   const deflFloor = p.load.deflectionFloor(gLoAll, gMax);
+  // concentrated forces do not depend on the self-weight: the patch-loading check is exact here
+  const forces = p.load.effects(gLoAll).forces;
 
   // web-level pass: cheap bounds, and the order of visit
   interface WebPlan {
@@ -270,7 +302,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
     const lb = parts.webMass + parts.stiffMass + flangeKgFloor + lightestBearingKg(w);
     plans.push({ wi, parts, lb, dMin, Freq, Mneed, dem, IyReq });
   }
-  plans.sort((x, y) => x.lb - y.lb || x.wi - y.wi);
+  plans.sort(byLbThenWeb);
 
   for (const plan of plans) {
     if (signal?.aborted) break;
@@ -283,8 +315,6 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
     const fibTop = dem.sagAlways ? maxCompressionFlangeAreaFIB({ hw: w.hw, tw: w.tw, fyfMin: 1, k: kFibMax, E: o.E }) : Infinity;
     const fibBot = dem.hogAlways ? maxCompressionFlangeAreaFIB({ hw: w.hw, tw: w.tw, fyfMin: 1, k: kFibMax, E: o.E }) : Infinity;
     const bearingCache = new Map<number, BearingFlat>();
-    // concentrated forces do not depend on the self-weight: the patch-loading check is exact here
-    const forces = p.load.effects(0).forces;
     const webPanels = panelsOf(supports, parts.a).panels;
 
     // group pass: cheap per-group data only; candidates are generated when a group is reached
@@ -323,12 +353,23 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
         tfMax: Math.max(GT.t, GB.t),
         fyfMax: Math.max(GT.fy, GB.fy),
       });
+      // the widest flanges of the group: if even they miss the bending or the deflection bound, all do
+      const Tw = GT.options[GT.options.length - 1]!;
+      const Bw = GB.options[GB.options.length - 1]!;
+      if (Tw.A * Tw.fy + Bw.A * Bw.fy < Freq) {
+        pruned.bending += nPairs;
+        continue;
+      }
+      if (IyReq > 0 && iyOfPlates(w.hw, w.tw, Tw.b, Tw.t, Bw.b, Bw.t) * (1 + 1e-9) < IyReq) {
+        pruned.deflection += nPairs;
+        continue;
+      }
       // flange area: at least the two narrowest plates, and at least what the bending bound needs
       const Amin = Math.max(GT.options[0]!.A + GB.options[0]!.A, Freq / Math.max(GT.fy, GB.fy));
       const lb = parts.webMass + parts.stiffMass + Amin * L * KG_PER_MM3 + lightestBearingKg(w);
       gplans.push({ gt, gb, d, n: nPairs, Freq, lb });
     }
-    gplans.sort((x, y) => x.lb - y.lb || x.d - y.d);
+    gplans.sort(byLbThenDepth);
 
     let webDead = false;
     for (const gp of gplans) {
@@ -346,15 +387,25 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       // FIB bounds apply to gross areas only where the compression flange's outstand is fully effective
       const fibT = fibTop === Infinity ? Infinity : fibTop / (GT.fy * GT.fy);
       const fibB = fibBot === Infinity ? Infinity : fibBot / (GB.fy * GB.fy);
-      const fibOk = (f: FlangeOption, lim: number) => lim === Infinity || f.A <= lim || flangeOutstand({ b: f.b, t: f.t }, w.tw, f.fy, minThroat).rho < 1;
       // candidates in ascending plate mass (bearing flats aside)
       const t0 = groupStart[gt]!;
       const b0 = groupStart[gb]!;
       const pairs: { ti: number; bi: number; plates: number }[] = [];
-      const plateKg = (ti: number, bi: number) => parts.webMass + parts.stiffMass + (flangeMass(flanges[ti]!, L) + flangeMass(flanges[bi]!, L));
-      if (sp.symmetric) for (let i = 0; i < GT.options.length; i++) pairs.push({ ti: t0 + i, bi: t0 + i, plates: plateKg(t0 + i, t0 + i) });
-      else for (let i = 0; i < GT.options.length; i++) for (let j = 0; j < GB.options.length; j++) pairs.push({ ti: t0 + i, bi: b0 + j, plates: plateKg(t0 + i, b0 + j) });
-      pairs.sort((x, y) => x.plates - y.plates || x.ti - y.ti || x.bi - y.bi);
+      let skipped = 0;
+      if (sp.symmetric) {
+        // widths ascending: area, force and Iy all grow with the width, so the options below the
+        // bending and deflection bounds are a prefix, found by bisection
+        const n = GT.options.length;
+        const iB = firstByForce(GT.options, Freq);
+        const iD = IyReq > 0 ? firstByIy(GT.options, w.hw, w.tw, IyReq) : 0;
+        pruned.bending += Math.min(iB, n);
+        pruned.deflection += Math.max(0, Math.min(iD, n) - Math.min(iB, n));
+        skipped = Math.max(iB, iD);
+        for (let i = skipped; i < n; i++) pairs.push({ ti: t0 + i, bi: t0 + i, plates: plateKg(parts, flanges, t0 + i, t0 + i, L) });
+      } else {
+        for (let i = 0; i < GT.options.length; i++) for (let j = 0; j < GB.options.length; j++) pairs.push({ ti: t0 + i, bi: b0 + j, plates: plateKg(parts, flanges, t0 + i, b0 + j, L) });
+        pairs.sort(byPlates);
+      }
       const floorKg = lightestBearingKg(w);
       let k = 0;
       for (; k < pairs.length; k++) {
@@ -368,7 +419,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
           pruned.bending++;
           continue;
         }
-        if (!fibOk(T, fibT) || !fibOk(B, fibB)) {
+        if (!fibOk(T, fibT, w.tw, minThroat) || !fibOk(B, fibB, w.tw, minThroat)) {
           pruned.flangeInducedBuckling++;
           continue;
         }
@@ -386,7 +437,12 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
           pruned.incumbent++;
           continue;
         }
-        const g = (price0.plates * G_ACC) / L;
+        const sharedKey = `${w.grade}|${w.hw}|${w.tw}|${pr.ti}|${pr.bi}`;
+        if (sharedFailures.has(sharedKey)) {
+          pruned.sameFlanges++;
+          continue;
+        }
+        const g = selfWeightOf(prep, w, T, B);
         // the deflection bound again, at this candidate's own self-weight
         const da = p.load.deflectionAffine;
         if (da && Iy < minIyForDeflectionAt(g, da.bA, da.bB, da.sA, da.sB, da.limit, w.hw * w.tw, o.E, o.G)) {
@@ -405,6 +461,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
           continue;
         }
         failedBy[fail.id] = (failedBy[fail.id] ?? 0) + 1;
+        if (LAYOUT_FREE.has(fail.id)) sharedFailures.add(sharedKey);
         keepMiss({ key, section, depth: d, g, lb: price0.lb });
         if (failsWebOnly(fail)) {
           webDead = true;
@@ -510,4 +567,50 @@ function maxMassPerLength(prep: Prepared): number {
   // bearing stiffeners: at most 2 pairs per end, one per inner support, flats no larger than the flange outstand × 100 mm
   const bearing = ((bearingPairs('rigid', prep.supports) * 2 * Math.max(flat, (Math.max(...sp.bf) / 2) * 150) * hw) / prep.L) * 1.5;
   return k * (hw * tw + 2 * Af + stiffPerMm + bearing);
+}
+
+// Hot-loop helpers kept at module level (no closure per group).
+function fibOk(f: FlangeOption, lim: number, tw: number, throat: number): boolean {
+  return lim === Infinity || f.A <= lim || flangeOutstand({ b: f.b, t: f.t }, tw, f.fy, throat).rho < 1;
+}
+
+function plateKg(parts: WebParts, flanges: readonly FlangeOption[], ti: number, bi: number, L: number): number {
+  // flanges added together first, so that swapping top and bottom gives the identical float
+  return parts.webMass + parts.stiffMass + (flangeMass(flanges[ti]!, L) + flangeMass(flanges[bi]!, L));
+}
+
+/** First index of widths (ascending) whose symmetric pair of flanges reaches the force bound. */
+function firstByForce(options: readonly FlangeOption[], Freq: number): number {
+  let lo = 0;
+  let hi = options.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    const f = options[mid]!;
+    if (2 * f.A * f.fy >= Freq) hi = mid;
+    else lo = mid + 1;
+  }
+  return lo;
+}
+
+/** First index of widths (ascending) whose symmetric section reaches the deflection bound on Iy. */
+function firstByIy(options: readonly FlangeOption[], hw: number, tw: number, IyReq: number): number {
+  let lo = 0;
+  let hi = options.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    const f = options[mid]!;
+    if (iyOfPlates(hw, tw, f.b, f.t, f.b, f.t) * (1 + 1e-9) >= IyReq) hi = mid;
+    else lo = mid + 1;
+  }
+  return lo;
+}
+
+function byPlates(x: { ti: number; bi: number; plates: number }, y: { ti: number; bi: number; plates: number }): number {
+  return x.plates - y.plates || x.ti - y.ti || x.bi - y.bi;
+}
+function byLbThenWeb(x: { lb: number; wi: number }, y: { lb: number; wi: number }): number {
+  return x.lb - y.lb || x.wi - y.wi;
+}
+function byLbThenDepth(x: { lb: number; d: number }, y: { lb: number; d: number }): number {
+  return x.lb - y.lb || x.d - y.d;
 }

@@ -38,17 +38,23 @@ export async function pingPool(pool: SearchPool, signal?: AbortSignal): Promise<
 }
 
 /**
- * The exact search on the pool: the web configurations are dealt round-robin into slices (a few
- * per thread, for balance), each worker returns its slice's exact front, and the fronts are merged.
+ * The exact search on the pool: the web configurations are cut into contiguous slices (a few per
+ * thread, for balance), each worker returns its slice's exact front, and the fronts are merged.
  */
 export async function searchOnPool(pool: SearchPool, task: SearchTask, signal?: AbortSignal): Promise<SearchResult> {
   const t0 = performance.now();
   assertSpace(task.space);
   const prep = prepareSearch(problemOf(task));
   const n = prep.webs.length;
-  const nSlices = Math.max(1, Math.min(n, pool.threads * 4));
-  const slices: number[][] = Array.from({ length: nSlices }, () => []);
-  for (let i = 0; i < n; i++) slices[i % nSlices]!.push(i);
+  // contiguous runs of the web list keep the layouts of one web plate together (they share
+  // failures of layout-free checks); several slices per thread let the pool balance the load
+  const nSlices = Math.max(1, Math.min(n, pool.threads * 6));
+  const slices: number[][] = [];
+  for (let k = 0; k < nSlices; k++) {
+    const a = Math.floor((k * n) / nSlices);
+    const b = Math.floor(((k + 1) * n) / nSlices);
+    if (b > a) slices.push(Array.from({ length: b - a }, (_, i) => a + i));
+  }
   const results = await Promise.all(
     slices.map((webIdx) => pool.piscina.run({ kind: 'slice', task, webIdx } satisfies WorkerMessage, signal ? { signal } : {}) as Promise<SliceResult>),
   );

@@ -10,3 +10,4 @@ export { generateOpenApi, GENERATED_NOTE } from './openapi.js';
 export { API_DESCRIPTION, API_VERSION } from './plugins/docs.js';
 export { checkSection, parseCheckRequest, CheckRequest, searchPlates, analyseProblem, runScheduleJob } from './domain.js';
 export { JobStatusJson, statusOf } from './routes/schedules.js';
+export { SqliteJobStore, openJobStore, JOB_STORE_VERSION, DEFAULT_DB_PATH } from './jobs/sqlite.js';

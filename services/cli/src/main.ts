@@ -6,6 +6,7 @@ import { runEffects } from './commands/effects.js';
 import { runSearch } from './commands/search.js';
 import { runDemo } from './commands/demo.js';
 import { runServe } from './commands/serve.js';
+import { runScheduleCommand, SCHEDULE_USAGE } from './commands/schedule.js';
 
 const USAGE = `platesmith — the lightest welded plate girders that pass Eurocode 3
 
@@ -13,6 +14,10 @@ usage:
   platesmith check FILE.json [--json]    check a section: under given effects, or for a problem (self-weight added)
   platesmith effects FILE.json [--json]  the analysis of a problem: reactions, MEd and VEd envelopes
   platesmith search FILE.json [--json]   exact search of the plate space: Pareto set of depth against mass or cost
+  platesmith schedule FILE [options]     run a girder schedule (.json or .csv): every mark searched and its adopted
+                                         section re-checked; --baseline PREV.json compares with an earlier --out;
+                                         --junit, --markdown, --report, --out write files; --rationalise K
+                                         (platesmith schedule --help for every option; exit 1 on a regression)
   platesmith demo [--json]               search the bundled (invented) demo project
   platesmith serve                       start the HTTP API on HOST:PORT (default 127.0.0.1:8080)
   platesmith help                        this text
@@ -33,6 +38,12 @@ export async function main(argv: string[], io: Out = stdio): Promise<number> {
         return runEffects(readJson(file), json, io);
       case 'search':
         return await runSearch(readJson(file), json, io);
+      case 'schedule':
+        if (flags.has('--help')) {
+          io.out(SCHEDULE_USAGE);
+          return EXIT.ok;
+        }
+        return await runScheduleCommand(argv.slice(argv.indexOf('schedule') + 1), io);
       case 'demo':
         return await runDemo(json, io);
       case 'serve':

@@ -118,12 +118,13 @@ export interface MomentFactors {
  * Moment factors for a segment from its moment diagram (stations, N·mm):
  * - linear diagram (no point further than 1 % of max|M| from the chord): end moments, ψ = Mend,small/Mend,large,
  *   C1 SN003 table, C2 = 0, C3 ENV Table F.1.1, kc Table 6.6.
- * - transverse load with end moments ≤ 5 % of max|M|: "fullness" mean|M|/max|M| ≥ 0.58 →
- *   uniform load C1 = 1.127, C2 = 0.454 (SN003, as used by the SBE example), C3 = 0.525 (ENV Table F.1.2,
- *   from memory), kc = 0.94 (Table 6.6, from memory); otherwise central point load C1 = 1.348,
- *   C2 = 0.630, C3 = 1.730 (SN003 / ENV, from memory), kc = 0.86 (from memory).
- * - transverse load with end moments: C1 = 1.0 (conservative: uniform moment), C2 = 0.630 (the larger
- *   simply-supported C2), C3 = 1.0, kc = 1.0 — a conservative choice, common practice, no source.
+ * - end moments ≤ 5 % of max|M| and the diagram within 3 % of max|M| of a parabola: uniform load
+ *   C1 = 1.127, C2 = 0.454 (SN003, as used by the SBE example), C3 = 0.525 (ENV Table F.1.2, from
+ *   memory), kc = 0.94 (Table 6.6, from memory); of a central triangle: central point load
+ *   C1 = 1.348, C2 = 0.630, C3 = 1.730 (SN003 / ENV, from memory), kc = 0.86 (from memory).
+ * - any other diagram (transverse load with end moments, several point loads, …): C1 = 1.0
+ *   (conservative: uniform moment), C2 = 0.630 (the larger simply-supported C2), C3 = 1.0, kc = 1.0
+ *   — a conservative choice, common practice, no source.
  */
 export function momentFactors(pts: readonly { x: number; M: number }[]): MomentFactors {
   const n = pts.length;
@@ -144,12 +145,11 @@ export function momentFactors(pts: readonly { x: number; M: number }[]): MomentF
     const psi = big === 0 ? 1 : small / big;
     return { shape: 'end-moments', psi, C1: c1EndMoments(psi), C2: 0, C3: c3EndMoments(psi), kc: kcEndMoments(psi) };
   }
-  if (Math.abs(M0) <= 0.05 * Mmax && Math.abs(M1) <= 0.05 * Mmax) {
-    let area = 0;
-    for (let i = 0; i + 1 < n; i++) area += ((Math.abs(pts[i]!.M) + Math.abs(pts[i + 1]!.M)) / 2) * (pts[i + 1]!.x - pts[i]!.x);
-    const fullness = area / (Mmax * (x1 - x0));
-    if (fullness >= 0.58) return { shape: 'udl-simply-supported', psi: 0, C1: 1.127, C2: 0.454, C3: 0.525, kc: 0.94 };
-    return { shape: 'point-load-simply-supported', psi: 0, C1: 1.348, C2: 0.63, C3: 1.73, kc: 0.86 };
+  if (Math.abs(M0) <= 0.05 * Mmax && Math.abs(M1) <= 0.05 * Mmax && x1 > x0) {
+    // the tabulated shapes only when the diagram is that shape (within 3 % of Mmax at every station)
+    const fits = (shape: (xi: number) => number) => pts.every((p) => Math.abs(Math.abs(p.M) / Mmax - shape((p.x - x0) / (x1 - x0))) <= 0.03);
+    if (fits((xi) => 4 * xi * (1 - xi))) return { shape: 'udl-simply-supported', psi: 0, C1: 1.127, C2: 0.454, C3: 0.525, kc: 0.94 };
+    if (fits((xi) => 1 - Math.abs(2 * xi - 1))) return { shape: 'point-load-simply-supported', psi: 0, C1: 1.348, C2: 0.63, C3: 1.73, kc: 0.86 };
   }
   return { shape: 'transverse-with-end-moments', psi: 0, C1: 1.0, C2: 0.63, C3: 1.0, kc: 1.0 };
 }
@@ -195,106 +195,131 @@ export function ltbCurveWelded(h: number, b: number): BucklingCurve {
   return h / b <= 2 ? 'c' : 'd';
 }
 
-function segmentPoints(stations: readonly Station[], x0: number, x1: number): { x: number; M: number }[] {
+/** Signed envelopes: per x the largest sagging (≥ 0) or the largest hogging (≤ 0) moment of any combination. */
+export const pickSag = (st: Station): number => Math.max(0, st.MEd);
+export const pickHog = (st: Station): number => Math.min(0, st.MEd);
+
+function segmentPoints(stations: readonly Station[], x0: number, x1: number, pick: (s: Station) => number): { x: number; M: number }[] {
   // the segment ends (interpolated) and every station strictly inside, in x order
-  const env = envelopeOf(stations, pickM);
-  const out: { x: number; M: number }[] = [{ x: x0, M: envelopeAt(stations, x0, pickM).value }];
+  const env = envelopeOf(stations, pick);
+  const out: { x: number; M: number }[] = [{ x: x0, M: envelopeAt(stations, x0, pick).value }];
   for (let i = 0; i < env.xs.length; i++) {
     const x = env.xs[i]!;
     if (x > x0 && x < x1) out.push({ x, M: env.gov[i]! });
   }
-  if (x1 !== x0) out.push({ x: x1, M: envelopeAt(stations, x1, pickM).value });
+  if (x1 !== x0) out.push({ x: x1, M: envelopeAt(stations, x1, pick).value });
   return out;
 }
 
 /**
- * 'lateral-torsional-buckling', EN 1993-1-1 6.3.2. Continuous restraint of the compression flange:
- * not applicable. Otherwise the girder is split at the restraint positions and at the supports
- * (supports are taken as lateral and torsional restraints, fork conditions, k = kw = 1). In each
- * segment: the moment diagram (largest |MEd| at each station x) gives C1, C2, C3; the compression
- * flange follows the sign of the largest |MEd|; Wy fy = Mpl (Class 1–2), Mel (3), Meff (4) at each
+ * 'lateral-torsional-buckling', EN 1993-1-1 6.3.2, for each sign of moment separately: sagging puts
+ * the top flange in compression, hogging the bottom flange, and each flange has its own lateral
+ * restraint (options.restraint for the top flange, options.restraintBottom for the bottom one; a
+ * continuously restrained compression flange needs no check for that sign). The girder is split
+ * at that flange's restraints and at the supports (lateral and torsional restraints, fork
+ * conditions, k = kw = 1). In each segment the signed envelope of that sign (the most extreme
+ * moment of that sign of any combination at each station — fuller than any one diagram, so its
+ * C1 is lower: conservative) gives C1, C2, C3; Wy fy = Mpl (Class 1–2), Mel (3), Meff (4) at each
  * plate's own fy; χLT by 6.3.2.2 (λ̄LT,0 = 0.2) or 6.3.2.3 (λ̄LT,0 = 0.4, β = 0.75, recommended
  * values), Mb,Rd = χLT Wy fy / γM1. No reduction when λ̄LT ≤ λ̄LT,0 or MEd/Mcr ≤ λ̄LT,0² (6.3.2.2(4)).
  * The imperfection curve uses h over the narrower flange width (conservative for mono-symmetric I).
+ * Load height: gravity loads, top-flange loading destabilising whatever the sign (conservative).
  */
 export function ltbCheck(ctx: CheckContext, e: Effects, per: ReadonlyMap<FlangeSide, SignBending>, bendingFor: (side: FlangeSide) => SignBending): CheckResult {
   const clause = 'EN 1993-1-1 6.3.2';
   const { o, g, s } = ctx;
-  if (o.restraint.kind === 'continuous') return notApplicable('lateral-torsional-buckling', clause, 'compression flange restrained continuously against lateral movement');
   if (e.stations.length === 0) return notApplicable('lateral-torsional-buckling', clause, 'no design moments given');
   const sup = o.supports;
   const xStart = sup[0]!;
   const xEnd = sup[sup.length - 1]!;
-  const cuts = [...new Set([...sup, ...o.restraint.at.filter((x) => x > xStart && x < xEnd)])].sort((a, b) => a - b);
   const rolled = o.ltbMethod === 'rolled-equivalent';
   const lambda0 = rolled ? 0.4 : 0.2;
   const curve = ltbCurveWelded(g.h, Math.min(s.top.b, s.bot.b));
   const zg = loadHeightZg(ctx);
+  let tiny = 0;
+  for (const st of e.stations) tiny = Math.max(tiny, Math.abs(st.MEd));
+  tiny = Math.max(1, 1e-9 * tiny);
   let best: { u: number; at: number; values: Record<string, CheckValue> } | null = null;
-  for (let i = 0; i + 1 < cuts.length; i++) {
-    const x0 = cuts[i]!;
-    const x1 = cuts[i + 1]!;
-    const pts = segmentPoints(e.stations, x0, x1);
-    let gov = pts[0]!;
-    for (const p of pts) if (Math.abs(p.M) > Math.abs(gov.M)) gov = p;
-    const MEd = Math.abs(gov.M);
-    const side: FlangeSide = gov.M >= 0 ? 'top' : 'bot';
-    const b = per.get(side) ?? bendingFor(side);
-    const mf = momentFactors(pts);
-    const zj = zjCached(ctx, side);
-    const Mcr = mcr({ E: o.E, G: o.G, Iz: g.Iz, It: g.It, Iw: g.Iw, L: x1 - x0, C1: mf.C1, C2: mf.C2, C3: mf.C3, zg, zj });
-    const Mk = b.McRd * o.factors.gammaM0;
-    const lambdaLT = Math.sqrt(Mk / Mcr);
-    let chiV = 1;
-    let phiLT = Number.NaN;
-    let f = 1;
-    const ignore = lambdaLT <= lambda0 || MEd / Mcr <= lambda0 * lambda0;
-    if (!ignore) {
-      if (rolled) {
-        const r = chiLT({ lambdaLT, alphaLT: ALPHA[curve], lambdaLT0: 0.4, beta: 0.75, ...(o.ltbModification ? { kc: mf.kc } : {}) });
-        chiV = r.chiLT;
-        phiLT = r.phiLT;
-        f = r.f;
-      } else {
-        const r = chiLTGeneral(lambdaLT, curve);
-        chiV = r.chiLT;
-        phiLT = r.phiLT;
+  const skipped: string[] = [];
+  for (const side of ['top', 'bot'] as const) {
+    const line = side === 'top' ? o.restraint : o.restraintBottom;
+    const sign = side === 'top' ? 'sagging' : 'hogging';
+    const has = e.stations.some((st) => (side === 'top' ? st.MEd > tiny : st.MEd < -tiny));
+    if (!has) continue;
+    if (line.kind === 'continuous') {
+      skipped.push(`${sign}: the ${side === 'top' ? 'top' : 'bottom'} flange is restrained continuously`);
+      continue;
+    }
+    const cuts = [...new Set([...sup, ...line.at.filter((x) => x > xStart && x < xEnd)])].sort((a, b) => a - b);
+    const pick = side === 'top' ? pickSag : pickHog;
+    for (let i = 0; i + 1 < cuts.length; i++) {
+      const x0 = cuts[i]!;
+      const x1 = cuts[i + 1]!;
+      const pts = segmentPoints(e.stations, x0, x1, pick);
+      let gov = pts[0]!;
+      for (const p of pts) if (Math.abs(p.M) > Math.abs(gov.M)) gov = p;
+      const MEd = Math.abs(gov.M);
+      if (MEd <= tiny) continue;
+      const b = per.get(side) ?? bendingFor(side);
+      const mf = momentFactors(pts);
+      const zj = zjCached(ctx, side);
+      const Mcr = mcr({ E: o.E, G: o.G, Iz: g.Iz, It: g.It, Iw: g.Iw, L: x1 - x0, C1: mf.C1, C2: mf.C2, C3: mf.C3, zg, zj });
+      const Mk = b.McRd * o.factors.gammaM0;
+      const lambdaLT = Math.sqrt(Mk / Mcr);
+      let chiV = 1;
+      let phiLT = Number.NaN;
+      let f = 1;
+      const ignore = lambdaLT <= lambda0 || MEd / Mcr <= lambda0 * lambda0;
+      if (!ignore) {
+        if (rolled) {
+          const r = chiLT({ lambdaLT, alphaLT: ALPHA[curve], lambdaLT0: 0.4, beta: 0.75, ...(o.ltbModification ? { kc: mf.kc } : {}) });
+          chiV = r.chiLT;
+          phiLT = r.phiLT;
+          f = r.f;
+        } else {
+          const r = chiLTGeneral(lambdaLT, curve);
+          chiV = r.chiLT;
+          phiLT = r.phiLT;
+        }
+      }
+      const MbRd = (chiV * Mk) / o.factors.gammaM1;
+      const u = MEd / MbRd;
+      if (!best || u > best.u) {
+        best = {
+          u,
+          at: gov.x,
+          values: {
+            x0,
+            x1,
+            Lseg: x1 - x0,
+            momentShape: mf.shape,
+            psi: mf.psi,
+            C1: mf.C1,
+            C2: mf.C2,
+            C3: mf.C3,
+            zg,
+            zj,
+            Mcr,
+            lambdaLT,
+            lambdaLT0: lambda0,
+            curve,
+            phiLT,
+            f,
+            chiLT: chiV,
+            MbRd,
+            MEd,
+            sign,
+            method: rolled ? '6.3.2.3 rolled or equivalent welded' : '6.3.2.2 general case',
+            reductionIgnored: ignore,
+          },
+        };
       }
     }
-    const MbRd = (chiV * Mk) / o.factors.gammaM1;
-    const u = MEd / MbRd;
-    if (!best || u > best.u) {
-      best = {
-        u,
-        at: gov.x,
-        values: {
-          x0,
-          x1,
-          Lseg: x1 - x0,
-          momentShape: mf.shape,
-          psi: mf.psi,
-          C1: mf.C1,
-          C2: mf.C2,
-          C3: mf.C3,
-          zg,
-          zj,
-          Mcr,
-          lambdaLT,
-          lambdaLT0: lambda0,
-          curve,
-          phiLT,
-          f,
-          chiLT: chiV,
-          MbRd,
-          MEd,
-          sign: side === 'top' ? 'sagging' : 'hogging',
-          method: rolled ? '6.3.2.3 rolled or equivalent welded' : '6.3.2.2 general case',
-          reductionIgnored: ignore,
-        },
-      };
-    }
   }
-  return verdict('lateral-torsional-buckling', clause, best!.u, best!.at, best!.values);
+  if (!best) {
+    return notApplicable('lateral-torsional-buckling', clause, skipped.length ? `compression flange restrained continuously (${skipped.join('; ')})` : 'no design moments given');
+  }
+  return verdict('lateral-torsional-buckling', clause, best.u, best.at, best.values);
 }
 
 const ZJ = new WeakMap<CheckContext, Map<FlangeSide, number>>();

@@ -1,8 +1,9 @@
-import { ProblemDetailsJson } from '@platesmith/schema';
-import { ScheduleJson, ScheduleProgressJson, ScheduleResultJson } from '@platesmith/schedule';
+import { markFromSearch, renderReport, type ReportInput } from '@platesmith/report';
+import { ProblemDetailsJson, type FieldIssue } from '@platesmith/schema';
+import { parseScheduleCsv, ScheduleJson, ScheduleProgressJson, ScheduleResultJson, ScheduleRunResultJson, type ScheduleRunResult } from '@platesmith/schedule';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { z } from 'zod';
-import { ApiError } from '../errors.js';
+import { ApiError, RequestInvalid } from '../errors.js';
 import { TERMINAL, type JobManager } from '../jobs/manager.js';
 import type { JobRecord, JobState } from '../jobs/store.js';
 
@@ -19,7 +20,8 @@ export const JobStatusJson = z
     finishedAt: z.string().nullable(),
     progress: ScheduleProgressJson.nullable(),
     error: z.object({ code: z.string(), message: z.string() }).nullable(),
-    links: z.object({ self: z.string(), events: z.string(), result: z.string() }),
+    resumed: z.number().meta({ description: 'times the job was taken up again after the service stopped while it ran; its finished marks were kept, -' }),
+    links: z.object({ self: z.string(), events: z.string(), result: z.string(), marks: z.string(), report: z.string() }),
   })
   .meta({ id: 'ScheduleJob', description: 'status and progress of a schedule job' });
 export type JobStatusJson = z.output<typeof JobStatusJson>;
@@ -36,8 +38,33 @@ export function statusOf(j: JobRecord): JobStatusJson {
     finishedAt: j.finishedAt,
     progress: j.progress,
     error: j.error,
-    links: { self, events: `${self}/events`, result: `${self}/result` },
+    resumed: j.resumed ?? 0,
+    links: { self, events: `${self}/events`, result: `${self}/result`, marks: `${self}/marks`, report: `${self}/report` },
   };
+}
+
+/** A CSV issue as a field issue of the request (RFC 7111 fragment `#row=N` as its pointer). */
+function csvIssue(i: { row: number; column: string | null; message: string }): FieldIssue {
+  const shape = i.row <= 1 || /unknown column|more cells than|not readable/.test(i.message);
+  return { path: i.column ? `row ${i.row}, column ${i.column}` : `row ${i.row}`, pointer: `#row=${i.row}`, message: i.message, code: 'csv', kind: shape ? 'shape' : 'value' };
+}
+
+/** The HTML report of a finished schedule result (report package; no engineering here). */
+export function reportOf(r: ScheduleRunResult, meta: { title?: string; subtitle?: string; generatedAt?: string } = {}): string {
+  const rat = r.tender.rationalisation;
+  const input: ReportInput = {
+    title: meta.title ?? r.name ?? 'Girder schedule',
+    ...(meta.subtitle !== undefined ? { subtitle: meta.subtitle } : {}),
+    ...(meta.generatedAt !== undefined ? { generatedAt: meta.generatedAt } : {}),
+    marks: r.marks.map((m) => {
+      const rm = markFromSearch(m.mark, m.quantity, m.search, m.adopted);
+      if (m.status === 'failed') rm.notes = [...(rm.notes ?? []), `The mark failed: ${m.error?.message ?? 'failed'}.`];
+      return rm;
+    }),
+    ...(r.tender.tonnage ? { tonnage: r.tender.tonnage } : {}),
+    ...(rat && rat.skipped === undefined ? { rationalisation: rat } : {}),
+  };
+  return renderReport(input);
 }
 
 const Params = z.object({ id: z.string().min(1).max(100) });
@@ -71,6 +98,21 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
     if (!j) throw new ApiError('JOB_NOT_FOUND', `no schedule job ${id}`);
     return j;
   };
+  const finished = async (id: string): Promise<JobRecord & { result: ScheduleRunResult }> => {
+    const j = await load(id);
+    if (j.status !== 'done' || !j.result) {
+      throw new ApiError('JOB_NOT_FINISHED', `schedule job ${j.id} is ${j.status}`, { extra: { jobStatus: j.status }, ...(TERMINAL.has(j.status) ? {} : { retryAfter: 1 }) });
+    }
+    return j as JobRecord & { result: ScheduleRunResult };
+  };
+
+  // a CSV schedule (one row per mark, see the schedule package's CSV.md) becomes the JSON body;
+  // its row-and-column issues answer 400 (not a schedule) or 422 (a value), as the JSON ones do
+  app.addContentTypeParser(['text/csv', 'application/csv'], { parseAs: 'string' }, (_req, body, done) => {
+    const c = parseScheduleCsv(String(body));
+    if (!c.ok) return done(new RequestInvalid(c.issues.map(csvIssue)), undefined);
+    done(null, { defaults: c.value.defaults, girders: c.value.girders });
+  });
 
   app.post(
     '/v1/schedules',
@@ -78,13 +120,26 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
       schema: {
         tags: ['schedules'],
         summary: 'Submit a girder schedule as a job (202; poll Location or follow its events)',
-        description: 'Each mark is the defaults merged with its own fields (its own win; space and options merged one level deep), searched, and checked as adopted when a section is given. A mark whose input is invalid fails alone with its field issues.',
+        description:
+          'Each mark is the defaults merged with its own fields (its own win; space and options merged one level deep), searched, and checked as adopted when a section is given. A mark whose input is invalid fails alone with its field issues. The body is JSON (Schedule) or, with content-type text/csv, one CSV row per mark (columns in the schedule package\'s CSV.md; issues name the row and column). `baseline` (the records of a previous result) makes every mark compared with it; `tender` asks for rates and rationalisation. The query parameters apply to either form where the body does not say.',
         body: ScheduleJson,
-        response: { 202: JobStatusJson, 400: ProblemDetailsJson, 422: ProblemDetailsJson, 503: ProblemDetailsJson },
+        querystring: z.object({
+          name: z.string().max(200).optional().meta({ description: 'name of the schedule (when the body has none, e.g. CSV)' }),
+          rationalise: z.coerce.number().int().min(1).max(50).optional().meta({ description: 'rationalise to at most K distinct sections (when the body has no tender.rationalise)' }),
+          massTolerance: z.coerce.number().min(0).max(1).optional().meta({ description: 'relative tolerance of the lightest mass in the comparison, - (default 0.01)' }),
+        }),
+        response: { 202: JobStatusJson, 400: ProblemDetailsJson, 413: ProblemDetailsJson, 415: ProblemDetailsJson, 422: ProblemDetailsJson, 503: ProblemDetailsJson },
       },
     },
     async (req, reply) => {
-      const job = await jobs.submit(req.body);
+      const input: ScheduleJson = { ...req.body };
+      const q = req.query;
+      if (input.name === undefined && q.name !== undefined) input.name = q.name;
+      if (q.rationalise !== undefined && input.tender?.rationalise === undefined) {
+        input.tender = { objective: 'mass', maxPairs: 20_000, ...input.tender, rationalise: q.rationalise };
+      }
+      if (q.massTolerance !== undefined && input.compare === undefined) input.compare = { massTolerance: q.massTolerance };
+      const job = await jobs.submit(input);
       return reply.code(202).header('location', `/v1/schedules/${job.id}`).header('retry-after', '1').send(statusOf(job));
     },
   );
@@ -119,14 +174,48 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
   app.get(
     '/v1/schedules/:id/result',
     {
-      schema: { tags: ['schedules'], summary: 'Result of a finished schedule job', params: Params, response: { 200: ScheduleResultJson, 404: ProblemDetailsJson, 409: ProblemDetailsJson } },
+      schema: {
+        tags: ['schedules'],
+        summary: 'Result of a finished schedule job: marks, totals, records (the baseline of a later run), comparison with the baseline, tonnage, plate list, rationalisation',
+        params: Params,
+        response: { 200: ScheduleRunResultJson, 404: ProblemDetailsJson, 409: ProblemDetailsJson },
+      },
+    },
+    async (req) => (await finished(req.params.id)).result,
+  );
+
+  app.get(
+    '/v1/schedules/:id/marks',
+    {
+      schema: {
+        tags: ['schedules'],
+        summary: 'The marks of a job finished so far (each stored as it finishes), in schedule order',
+        params: Params,
+        response: { 200: z.object({ id: z.string(), status: z.enum(States), marksTotal: z.number(), marks: ScheduleResultJson.shape.marks }), 404: ProblemDetailsJson },
+      },
     },
     async (req) => {
       const j = await load(req.params.id);
-      if (j.status !== 'done' || !j.result) {
-        throw new ApiError('JOB_NOT_FINISHED', `schedule job ${j.id} is ${j.status}`, { extra: { jobStatus: j.status }, ...(TERMINAL.has(j.status) ? {} : { retryAfter: 1 }) });
-      }
-      return j.result;
+      return { id: j.id, status: j.status, marksTotal: j.input.girders.length, marks: (await store.marks(j.id)).map((m) => m.mark) };
+    },
+  );
+
+  app.get(
+    '/v1/schedules/:id/report',
+    {
+      schema: {
+        tags: ['schedules'],
+        summary: 'HTML report of a finished schedule job (text/html: one self-contained file, SVG charts, no script)',
+        params: Params,
+        produces: ['text/html'],
+        response: { 404: ProblemDetailsJson, 409: ProblemDetailsJson },
+      },
+    },
+    async (req, reply) => {
+      const j = await finished(req.params.id);
+      const html = reportOf(j.result, { subtitle: `schedule job ${j.id}`, ...(j.finishedAt ? { generatedAt: j.finishedAt } : {}) });
+      // a string with a non-JSON type is sent as it is (no response schema for 200)
+      return reply.type('text/html; charset=utf-8').send(html as never);
     },
   );
 
