@@ -261,11 +261,12 @@ export function panelsOf(supports: readonly number[], a: number | null): { panel
  * stiffener flats if there are any (common practice, no source: one flat size per girder),
  * otherwise an outstand of 80 % of the narrower flange outstand rounded down to 10 mm, as
  * thick as the web or the next stock plate that keeps bs/ts ≤ 10ε (Class 2 outstand,
- * EN 1993-1-1 Table 5.2). A rigid end post's pairs are e = 0.1 hw apart, rounded up to 10 mm
- * (EN 1993-1-5 9.3.1(3) minimum).
+ * EN 1993-1-1 Table 5.2). A rigid end post's pairs are just over 0.1 hw apart: the next 10 mm
+ * above it (EN 1993-1-5 9.3.1(3): e > 0.1 hw).
  */
 export function resolveBearing(s: Section, fyStiff: number): BearingStiffener {
-  const e = Math.max(50, Math.ceil((0.1 * s.hw) / 10) * 10);
+  // 9.3.1(3): e > 0.1 hw (strictly): the next 10 mm above
+  const e = Math.max(50, Math.floor((0.1 * s.hw) / 10) * 10 + 10);
   if (s.bearing) return s.bearing;
   if (s.stiffeners) return { bs: s.stiffeners.bs, ts: Math.max(s.stiffeners.ts, s.tw), e };
   const outstand = (Math.min(s.top.b, s.bot.b) - s.tw) / 2;

@@ -19,7 +19,7 @@ export function toSection(j: SectionJson): Section {
     bot: { b: j.bottomFlange.width, t: j.bottomFlange.thickness },
     stiffeners: j.stiffeners ? { a: j.stiffeners.spacing, bs: j.stiffeners.width, ts: j.stiffeners.thickness, sides: j.stiffeners.sides } : null,
     endPost: j.endPost,
-    bearing: j.bearing ? { bs: j.bearing.width, ts: j.bearing.thickness, e: j.bearing.spacing ?? Math.max(50, Math.ceil((0.1 * j.web.depth) / 10) * 10) } : undefined,
+    bearing: j.bearing ? { bs: j.bearing.width, ts: j.bearing.thickness, e: j.bearing.spacing ?? Math.max(50, Math.floor((0.1 * j.web.depth) / 10) * 10 + 10) } : undefined,
     grade: grade as Section['grade'] & { web: GradeName },
   };
 }
@@ -41,6 +41,7 @@ export function fromSection(s: Section): SectionJson {
 /** Restraint positions from the JSON form, mm. */
 function restraint(j: CheckOptionsJson['restraint'], L: number): CheckOptions['restraint'] {
   if (j === 'continuous') return { kind: 'continuous' };
+  if (j === 'supports') return { kind: 'at', at: [] };
   if ('spacing' in j) {
     const at: number[] = [];
     for (let x = 0; x < L - 1e-6; x += j.spacing) at.push(x);
@@ -59,6 +60,7 @@ export function toCheckOptions(j: CheckOptionsJson, supports: number[]): CheckOp
     kFib: j.kFib,
     supports,
     restraint: restraint(j.restraint, L),
+    restraintBottom: restraint(j.bottomRestraint, L),
     loadHeight: j.loadHeight,
     ltbMethod: j.ltbMethod,
     ltbModification: j.ltbModification,

@@ -87,7 +87,7 @@ export interface CheckJob {
 }
 
 function restraintStations(o: CheckOptions): number[] {
-  return o.restraint.kind === 'at' ? o.restraint.at : [];
+  return [...(o.restraint.kind === 'at' ? o.restraint.at : []), ...(o.restraintBottom.kind === 'at' ? o.restraintBottom.at : [])];
 }
 
 /** A section checked for a problem, its own self-weight added as a permanent action. */

@@ -4,7 +4,7 @@ import { notApplicable, verdict } from '../result.js';
 import { bendingCheck, bendingForSign, envelopeAt, pickM, sideName, signsOf, type SignBending } from './bending.js';
 import { flangeInducedCheck } from '../en1993-1-5/flange-induced.js';
 import { patchBendingInteraction, patchForForce, patchLoadingCheck } from '../en1993-1-5/patch-loading.js';
-import { ltbCheck } from './ltb.js';
+import { ltbCheck, pickSag as pickSagAt } from './ltb.js';
 import { deflectionCheck } from '../sls/deflection.js';
 import { weldCheck } from '../en1993-1-8/weld.js';
 
@@ -106,8 +106,10 @@ function patchBendingCheck(ctx: CheckContext, e: Effects, bendingFor: (side: Fla
   let best: { u: number; at: number; values: Record<string, CheckValue> } | null = null;
   for (const f of e.forces) {
     const r = patchForForce(ctx, f.x, f.ss);
-    const MEd = envelopeAt(e.stations, f.x, pickM).value;
-    const side: FlangeSide = MEd >= 0 ? 'top' : 'bot';
+    const MEd = envelopeAt(e.stations, f.x, pickSagAt).value;
+    // 7.2(1) is for a force on the compression flange: the top flange, under sagging
+    if (!(MEd > 0)) continue;
+    const side: FlangeSide = 'top';
     const b = bendingFor(side);
     const MRd = b.eff ? b.McRd : b.MelRd;
     const eta1 = Math.abs(MEd) / MRd;
@@ -117,5 +119,6 @@ function patchBendingCheck(ctx: CheckContext, e: Effects, bendingFor: (side: Fla
       best = { u: it.utilisation, at: f.x, values: { eta1, eta2, interaction: it.value, limit: 1.4, MEd, MRdElastic: MRd, FRd: r.FRd, F: Math.abs(f.F) } };
     }
   }
-  return verdict('patch-bending', clause, best!.u, best!.at, best!.values);
+  if (!best) return notApplicable('patch-bending', clause, 'the loaded (top) flange is in tension at every force: EN 1993-1-5 7.2(1) does not apply');
+  return verdict('patch-bending', clause, best.u, best.at, best.values);
 }

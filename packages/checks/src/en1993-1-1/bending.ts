@@ -181,3 +181,22 @@ export function envelopeOf(stations: readonly Station[], pick: (s: Station) => n
   perStations.set(key, env);
   return env;
 }
+
+/** The largest |value| at x, interpolated linearly between the neighbouring stations (per-x maxima). */
+export function absAt(stations: readonly Station[], x: number, pick: (s: Station) => number): number {
+  if (stations.length === 0) return 0;
+  const { xs, maxAbs } = envelopeOf(stations, pick);
+  const n = xs.length;
+  if (x <= xs[0]!) return maxAbs[0]!;
+  if (x >= xs[n - 1]!) return maxAbs[n - 1]!;
+  let lo = 0;
+  let hi = n - 1;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (xs[mid]! < x) lo = mid;
+    else hi = mid;
+  }
+  if (xs[hi] === x) return maxAbs[hi]!;
+  const t = (x - xs[lo]!) / (xs[hi]! - xs[lo]!);
+  return maxAbs[lo]! + t * (maxAbs[hi]! - maxAbs[lo]!);
+}

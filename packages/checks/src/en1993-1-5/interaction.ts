@@ -1,4 +1,5 @@
-import { compressionSide, plastic, rectsEffectiveFlanges } from '../section.js';
+import { compressionSide, elastic, firstYieldMoment, plastic, rectsEffectiveFlanges } from '../section.js';
+import { classifySection } from '../en1993-1-1/classification.js';
 import type { CheckContext, Station } from '../types.js';
 import { classificationThroat, momentsAt, type PanelShear } from './shear-buckling.js';
 import { vplRd } from './shear-plastic.js';
@@ -50,7 +51,8 @@ export function stationInteraction71(ctx: CheckContext, ps: PanelShear, st: Stat
   const { MfRd, MplRd } = momentsAt(ctx, st.MEd);
   const eta1 = Math.abs(st.MEd) / MplRd;
   const eta3 = Math.abs(st.VEd) / ps.VbwRd;
-  const nearSupport = o.supports.some((x) => Math.abs(st.x - x) < s.hw / 2);
+  // strictly inside hw/2 of a support is exempt; the section at hw/2 itself is checked
+  const nearSupport = o.supports.some((x) => Math.abs(st.x - x) < s.hw / 2 - 1e-6);
   const r = interaction71(eta1, eta3, MfRd, MplRd);
   const required = r.required && !nearSupport;
   return { station: st, clause: 'EN 1993-1-5 7.1', required, utilisation: required ? r.value : 0, MfRd, MplRd, eta1, eta3, rho: 0, MVRd: MplRd };
@@ -59,8 +61,9 @@ export function stationInteraction71(ctx: CheckContext, ps: PanelShear, st: Stat
 /**
  * EN 1993-1-1 6.2.8 at a station of a web that needs no shear buckling check: where VEd > 0.5 Vpl,Rd
  * the web (the shear area) is taken at (1 − ρ) fyw and the plastic moment of the section with the
- * effective compression flange is recomputed: utilisation |MEd|/MV,Rd. Plastic resistance is used
- * whatever the class (the bending family gives the class-dependent resistance without shear).
+ * effective compression flange is recomputed: utilisation |MEd|/MV,Rd. Class 1–2: plastic, the web at
+ * (1 − ρ) fyw; Class 3–4 (a Class 4 flange; such stocky webs are never Class 4): first yield with the
+ * web thickness (1 − ρ) tw, 6.2.8(3).
  */
 export function stationInteraction628(ctx: CheckContext, st: Station): StationInteraction {
   const { s, o, m } = ctx;
@@ -73,9 +76,17 @@ export function stationInteraction628(ctx: CheckContext, st: Station): StationIn
   let MVRd = MplRd;
   if (required) {
     const rs = rectsEffectiveFlanges(s, m, side, throat, true);
-    // a tiny positive strength keeps the plastic neutral-axis search defined when ρ = 1
-    rs[1] = { ...rs[1]!, fy: Math.max((1 - rho) * m.fyw, 1e-6) };
-    MVRd = plastic(rs).Mp / o.factors.gammaM0;
+    if (classOf(ctx, side) <= 2) {
+      // a tiny positive strength keeps the plastic neutral-axis search defined when ρ = 1
+      rs[1] = { ...rs[1]!, fy: Math.max((1 - rho) * m.fyw, 1e-6) };
+      MVRd = plastic(rs).Mp / o.factors.gammaM0;
+    } else {
+      // 6.2.8(3) with the class's elastic basis: first yield of the section with the effective
+      // compression flange and the web thinned to (1 − ρ) tw (same fy), the usual reading
+      rs[1] = { ...rs[1]!, b: Math.max((1 - rho) * s.tw, 1e-6) };
+      const el = elastic(rs);
+      MVRd = firstYieldMoment(rs, el.z, el.I) / o.factors.gammaM0;
+    }
   }
   const eta1 = Math.abs(st.MEd) / MplRd;
   return {
@@ -90,4 +101,20 @@ export function stationInteraction628(ctx: CheckContext, st: Station): StationIn
     rho,
     MVRd,
   };
+}
+
+const CLASS = new WeakMap<CheckContext, Map<string, number>>();
+/** Section class for a compression side, once per context. */
+function classOf(ctx: CheckContext, side: 'top' | 'bot'): number {
+  let m = CLASS.get(ctx);
+  if (!m) {
+    m = new Map();
+    CLASS.set(ctx, m);
+  }
+  let c = m.get(side);
+  if (c === undefined) {
+    c = classifySection(ctx, side).sectionClass;
+    m.set(side, c);
+  }
+  return c;
 }

@@ -1,4 +1,5 @@
 import { notApplicable, verdict } from '../result.js';
+import { absAt, envelopeAt, pickM, pickV } from '../en1993-1-1/bending.js';
 import type { CheckContext, CheckResult, Effects, Station } from '../types.js';
 import { bearingStiffenerAt, rigidEndPost } from './end-post.js';
 import { stationInteraction628, stationInteraction71, type StationInteraction } from './interaction.js';
@@ -104,7 +105,18 @@ export function shearBucklingCheck(ctx: CheckContext, panels: readonly PanelShea
 export function bendingShearCheck(ctx: CheckContext, panels: readonly PanelShear[], stations: readonly Station[]): CheckResult {
   if (stations.length === 0) return notApplicable('bending-shear', 'EN 1993-1-5 7.1', NO_STATIONS);
   let worst: StationInteraction | null = null;
-  for (const st of stations) {
+  // 7.1(1) holds at every section but those within hw/2 of a support: add the sections at
+  // support ± hw/2 (governing moment and largest |shear| interpolated between stations)
+  const xA = ctx.o.supports[0]!;
+  const xB = ctx.o.supports[ctx.o.supports.length - 1]!;
+  const extra: Station[] = [];
+  for (const xs of ctx.o.supports) {
+    for (const x of [xs - ctx.s.hw / 2, xs + ctx.s.hw / 2]) {
+      if (x <= xA || x >= xB) continue;
+      extra.push({ x, MEd: envelopeAt(stations, x, pickM).value, VEd: absAt(stations, x, pickV) });
+    }
+  }
+  for (const st of extra.length ? [...stations, ...extra] : stations) {
     const own = panels.filter((p) => st.x >= p.panel.x0 - 1e-9 && st.x <= p.panel.x1 + 1e-9);
     const candidates: StationInteraction[] = [];
     for (const ps of own.length > 0 ? own : panels) {
@@ -166,9 +178,10 @@ export function stiffenerStrengthCheck(ctx: CheckContext, stations: readonly Sta
   let best: CheckResult | null = null;
   for (const site of sites) {
     const r = siteStrength(ctx, site, stations);
-    const res = verdict('stiffener-strength', clause, r.NEd / r.NbRd, site.x, {
+    const res = verdict('stiffener-strength', clause, r.utilisation, site.x, {
       NEd: r.NEd,
       NbRd: r.NbRd,
+      eN: r.eN,
       chi: r.chi,
       lambdaBar: r.lambdaBar,
       VEd: r.VEd,

@@ -114,5 +114,16 @@ export function siteStrength(ctx: CheckContext, site: StiffenerSite, stations: r
   const NEd = stiffenerAxialForce(VEd, m.fyw, s.hw, s.tw, lw, o.factors.gammaM1);
   const fy = Math.min(m.fyw, m.fyStiff);
   const strut = strutResistance(sec.A, sec.I, 0.75 * s.hw, fy, o.E, o.factors.gammaM1);
-  return { VEd, NEd, lambdaWRemoved: lw, A: sec.A, I: sec.I, ...strut };
+  // 9.4(2): a one-sided stiffener carries NEd (applied in the web plane) at an eccentricity eN from
+  // the centroid of its effective section; allowed for by EN 1993-1-1 6.3.3 with kyy = 1
+  // (conservative, common practice): NEd/Nb,Rd + NEd·eN/(W fy/γM1), W to the web-side fibre.
+  const st = s.stiffeners!;
+  let eN = 0;
+  let u = strut.NbRd > 0 ? NEd / strut.NbRd : Infinity;
+  if (st.sides === 1 && NEd > 0) {
+    eN = (st.bs * st.ts * (s.tw / 2 + st.bs / 2)) / sec.A;
+    const W = sec.I / (eN + s.tw / 2);
+    u += (NEd * eN) / ((W * fy) / o.factors.gammaM1);
+  }
+  return { VEd, NEd, lambdaWRemoved: lw, A: sec.A, I: sec.I, ...strut, eN, utilisation: u };
 }

@@ -3,7 +3,6 @@ import type { GradeName } from '@platesmith/catalogue';
 import type { CheckContext, CheckResult, CheckValue, Effects } from '../types.js';
 import { verdict } from '../result.js';
 import { pickM, pickV, envelopeAt } from '../en1993-1-1/bending.js';
-import { patchForForce } from '../en1993-1-5/patch-loading.js';
 
 /**
  * Web-to-flange fillet welds, EN 1993-1-8:2005 4.5.3.3 (simplified method). Units: mm, N, MPa, N/mm.
@@ -70,10 +69,12 @@ export function weldCheck(ctx: CheckContext, e: Effects): CheckResult {
     { flange: 'bottom', FwEd: weldForcePerLength(shearFlow(Vmax, SfBot, g.Iy), 0), fvwd: fBot, at: xV, vEd: shearFlow(Vmax, SfBot, g.Iy), q: 0 },
   ];
   for (const f of e.forces) {
-    const ly = patchForForce(ctx, f.x, f.ss).ly;
+    // the weld right under the bearing: the force spread over ss + 5 tf (EN 1993-1-8 6.2.6.2(1) by
+    // analogy, 1:2.5 through the flange; common practice) — not over the yield-line length ℓy
+    const lw = f.ss + 5 * s.top.t;
     const V = envelopeAt(e.stations, f.x, pickV).maxAbsNear;
     const v = shearFlow(V, SfTop, g.Iy);
-    const q = Math.abs(f.F) / ly;
+    const q = Math.abs(f.F) / lw;
     demands.push({ flange: 'top', FwEd: weldForcePerLength(v, q), fvwd: fTop, at: f.x, vEd: v, q });
   }
   // the throat must satisfy every demand: take the demand needing the largest throat
