@@ -61,7 +61,7 @@ export const PROBLEMS: { name: string; input: Record<string, unknown>; small: Re
         { kind: 'permanent', load: 'udl', value: 14 },
         { kind: 'variable', load: 'udl', value: 18, psi0: 0.8, psi1: 0.7, psi2: 0.5 },
       ],
-      options: { factors: 'bridges', restraint: { spacing: 6250 } },
+      options: { factors: 'bridges', restraint: { spacing: 6250 }, bottomRestraint: { spacing: 6250 } },
       space: {
         webDepth: range(1600, 3200, 50),
         webThickness: [10, 12, 15, 18, 20, 25],
