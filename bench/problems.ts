@@ -4,20 +4,25 @@
  */
 const range = (a: number, b: number, s: number) => ({ min: a, max: b, step: s });
 
+/** A 20 m industrial girder carrying two column loads (invented). */
+const INDUSTRIAL_20M = {
+  spans: [20000],
+  actions: [
+    { kind: 'permanent', load: 'udl', value: 12 },
+    { kind: 'variable', load: 'udl', value: 15, category: 'E' },
+    { kind: 'permanent', load: 'point', value: 260, at: 7000, ss: 200 },
+    { kind: 'variable', load: 'point', value: 310, at: 7000, ss: 200, category: 'E' },
+    { kind: 'permanent', load: 'point', value: 260, at: 13000, ss: 200 },
+    { kind: 'variable', load: 'point', value: 310, at: 13000, ss: 200, category: 'E' },
+  ],
+  options: { restraint: { spacing: 5000 } },
+};
+
 export const PROBLEMS: { name: string; input: Record<string, unknown>; small: Record<string, unknown> }[] = [
   {
     name: 'industrial-20m-point-loads',
     input: {
-      spans: [20000],
-      actions: [
-        { kind: 'permanent', load: 'udl', value: 12 },
-        { kind: 'variable', load: 'udl', value: 15, category: 'E' },
-        { kind: 'permanent', load: 'point', value: 260, at: 7000, ss: 200 },
-        { kind: 'variable', load: 'point', value: 310, at: 7000, ss: 200, category: 'E' },
-        { kind: 'permanent', load: 'point', value: 260, at: 13000, ss: 200 },
-        { kind: 'variable', load: 'point', value: 310, at: 13000, ss: 200, category: 'E' },
-      ],
-      options: { restraint: { spacing: 5000 } },
+      ...INDUSTRIAL_20M,
       space: {
         webDepth: range(800, 2400, 50),
         webThickness: [8, 10, 12, 15, 20],
@@ -76,16 +81,7 @@ export const PROBLEMS: { name: string; input: Record<string, unknown>; small: Re
   {
     name: 'industrial-20m-mono-symmetric',
     input: {
-      spans: [20000],
-      actions: [
-        { kind: 'permanent', load: 'udl', value: 12 },
-        { kind: 'variable', load: 'udl', value: 15, category: 'E' },
-        { kind: 'permanent', load: 'point', value: 260, at: 7000, ss: 200 },
-        { kind: 'variable', load: 'point', value: 310, at: 7000, ss: 200, category: 'E' },
-        { kind: 'permanent', load: 'point', value: 260, at: 13000, ss: 200 },
-        { kind: 'variable', load: 'point', value: 310, at: 13000, ss: 200, category: 'E' },
-      ],
-      options: { restraint: { spacing: 5000 } },
+      ...INDUSTRIAL_20M,
       space: {
         symmetric: false,
         webDepth: range(800, 2400, 50),

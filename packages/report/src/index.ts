@@ -6,3 +6,4 @@ export { renderReport, markFromSearch } from './report.js';
 export { paretoChart, utilisationChart, envelopeChart, type Frame } from './charts.js';
 export { esc } from './html.js';
 export type { ReportInput, ReportMark, ReportCheck, ReportTonnage, ReportRationalisation } from './types.js';
+export { scheduleReport } from './schedule.js';

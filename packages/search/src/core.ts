@@ -243,6 +243,9 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
     for (const f of o.bearingFlats) a = Math.min(a, f.b * f.t);
     return a === Infinity ? 0 : bearingFlatCount(w, supports) * a * w.hw * KG_PER_MM3;
   };
+  /** the bending bound (least total flange force) for a web, a depth and the flanges' extremes */
+  const flangeForce = (w: WebConfig, MEd: number, hMax: number, tfMax: number, fyf: number) =>
+    minFlangeForceForBending({ hw: w.hw, tw: w.tw, fyw: w.fyw, MEd, gammaM0: o.factors.gammaM0, hMax, symmetric: sp.symmetric, tfMax, fyfMax: fyf });
   const groupPairs = sp.symmetric ? groups.map((_, i) => [i, i] as const) : groups.flatMap((_, i) => groups.map((__, j) => [i, j] as const));
 
   // demand bounds valid for every candidate of the slice: self-weight from the lightest web plate
@@ -287,17 +290,8 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       continue;
     }
     const Mneed = Math.max(dem.Msag, dem.Mhog);
-    const Freq = minFlangeForceForBending({
-      hw: w.hw,
-      tw: w.tw,
-      fyw: w.fyw,
-      MEd: Mneed,
-      gammaM0: o.factors.gammaM0,
-      hMax: Math.min(sp.maxDepth, w.hw + 2 * (tfSorted[tfSorted.length - 1] ?? 0)),
-      symmetric: sp.symmetric,
-      tfMax: tfSorted[tfSorted.length - 1] ?? 0,
-      fyfMax,
-    });
+    const tfTop = tfSorted[tfSorted.length - 1] ?? 0;
+    const Freq = flangeForce(w, Mneed, Math.min(sp.maxDepth, w.hw + 2 * tfTop), tfTop, fyfMax);
     const flangeKgFloor = Math.max(2 * lightestFlange, (Freq / fyfMax) * L * KG_PER_MM3);
     const lb = parts.webMass + parts.stiffMass + flangeKgFloor + lightestBearingKg(w);
     plans.push({ wi, parts, lb, dMin, Freq, Mneed, dem, IyReq });
@@ -342,17 +336,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
         pruned.rules += nPairs;
         continue;
       }
-      const Freq = minFlangeForceForBending({
-        hw: w.hw,
-        tw: w.tw,
-        fyw: w.fyw,
-        MEd: Mneed,
-        gammaM0: o.factors.gammaM0,
-        hMax: d,
-        symmetric: sp.symmetric,
-        tfMax: Math.max(GT.t, GB.t),
-        fyfMax: Math.max(GT.fy, GB.fy),
-      });
+      const Freq = flangeForce(w, Mneed, d, Math.max(GT.t, GB.t), Math.max(GT.fy, GB.fy));
       // the widest flanges of the group: if even they miss the bending or the deflection bound, all do
       const Tw = GT.options[GT.options.length - 1]!;
       const Bw = GB.options[GB.options.length - 1]!;

@@ -79,82 +79,69 @@ export interface AffineDemand {
   Vg: Float64Array[];
 }
 
+/** Accumulates the demand lower bounds over affine entries M0 + g·Mg, V0 + g·Vg, g in [gLo, gHi]. */
+class DemandFloor {
+  Msag = 0;
+  Mhog = 0;
+  V = 0;
+  sag = false;
+  hog = false;
+  mAbs = 0;
+  constructor(
+    private readonly gLo: number,
+    private readonly gHi: number,
+  ) {}
+  /** an affine function's extremes over an interval are at its ends */
+  add(M0: number, Mg: number, V0: number, Vg: number): void {
+    const m0 = M0 + this.gLo * Mg;
+    const m1 = M0 + this.gHi * Mg;
+    const mMin = Math.min(m0, m1);
+    const mMax = Math.max(m0, m1);
+    this.mAbs = Math.max(this.mAbs, Math.abs(m0), Math.abs(m1));
+    if (mMin > 0) {
+      this.sag = true;
+      this.Msag = Math.max(this.Msag, mMin);
+    }
+    if (mMax < 0) {
+      this.hog = true;
+      this.Mhog = Math.max(this.Mhog, -mMax);
+    }
+    const v0 = V0 + this.gLo * Vg;
+    const v1 = V0 + this.gHi * Vg;
+    // |affine| over an interval: zero if it changes sign, else the smaller end
+    this.V = Math.max(this.V, v0 * v1 <= 0 ? 0 : Math.min(Math.abs(v0), Math.abs(v1)));
+  }
+  bound(): DemandBound {
+    return signed(this.Msag, this.Mhog, this.V, this.sag, this.hog, this.mAbs);
+  }
+}
+
 export function affineDemandBound(d: AffineDemand, gLo: number, gHi: number): DemandBound {
-  let Msag = 0;
-  let Mhog = 0;
-  let V = 0;
-  let sagAlways = false;
-  let hogAlways = false;
-  let mAbs = 0;
+  const f = new DemandFloor(gLo, gHi);
   for (let c = 0; c < d.M.length; c++) {
     const M = d.M[c]!;
     const Mg = d.Mg[c]!;
-    const Vv = d.V[c]!;
+    const V = d.V[c]!;
     const Vg = d.Vg[c]!;
-    for (let i = 0; i < M.length; i++) {
-      const m0 = M[i]! + gLo * Mg[i]!;
-      const m1 = M[i]! + gHi * Mg[i]!;
-      // the least, over g, of this combination's sagging moment here is min(m0, m1)
-      const mMin = Math.min(m0, m1);
-      const mMax = Math.max(m0, m1);
-      mAbs = Math.max(mAbs, Math.abs(m0), Math.abs(m1));
-      if (mMin > 0) {
-        sagAlways = true;
-        Msag = Math.max(Msag, mMin);
-      }
-      if (mMax < 0) {
-        hogAlways = true;
-        Mhog = Math.max(Mhog, -mMax);
-      }
-      const v0 = Vv[i]! + gLo * Vg[i]!;
-      const v1 = Vv[i]! + gHi * Vg[i]!;
-      // |affine| over an interval: zero if it changes sign, else the smaller end
-      const vMin = v0 * v1 <= 0 ? 0 : Math.min(Math.abs(v0), Math.abs(v1));
-      V = Math.max(V, vMin);
-    }
+    for (let i = 0; i < M.length; i++) f.add(M[i]!, Mg[i]!, V[i]!, Vg[i]!);
   }
-  return signed(Msag, Mhog, V, sagAlways, hogAlways, mAbs);
+  return f.bound();
 }
 
 /** Lower bounds straight from an analysis' stored A + g·B form (no per-call allocation of effects). */
 export function analysisDemandBound(a: Analysis, gLo: number, gHi: number): DemandBound {
   const nK = a.stationX.length;
-  const nC = a.combinations.length;
-  let Msag = 0;
-  let Mhog = 0;
-  let V = 0;
-  let sagAlways = false;
-  let hogAlways = false;
-  let mAbs = 0;
-  for (let c = 0; c < nC; c++) {
+  const f = new DemandFloor(gLo, gHi);
+  for (let c = 0; c < a.combinations.length; c++) {
     const gG = a.gammaG[c]!;
     for (let k = 0; k < nK; k++) {
-      const mg = gG * a.Mg[k]!;
-      const vg = gG * a.Vg[k]!;
       for (let t = 0; t < 4; t++) {
         const base = (c * nK + k) * 8 + 2 * t;
-        const M = a.A[base]!;
-        const Vv = a.A[base + 1]!;
-        const m0 = M + gLo * mg;
-        const m1 = M + gHi * mg;
-        const mMin = Math.min(m0, m1);
-        const mMax = Math.max(m0, m1);
-        mAbs = Math.max(mAbs, Math.abs(m0), Math.abs(m1));
-        if (mMin > 0) {
-          sagAlways = true;
-          Msag = Math.max(Msag, mMin);
-        }
-        if (mMax < 0) {
-          hogAlways = true;
-          Mhog = Math.max(Mhog, -mMax);
-        }
-        const v0 = Vv + gLo * vg;
-        const v1 = Vv + gHi * vg;
-        V = Math.max(V, v0 * v1 <= 0 ? 0 : Math.min(Math.abs(v0), Math.abs(v1)));
+        f.add(a.A[base]!, gG * a.Mg[k]!, a.A[base + 1]!, gG * a.Vg[k]!);
       }
     }
   }
-  return signed(Msag, Mhog, V, sagAlways, hogAlways, mAbs);
+  return f.bound();
 }
 
 /** The load model of a beam or envelope analysis from @platesmith/actions. */

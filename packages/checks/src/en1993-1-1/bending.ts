@@ -117,11 +117,20 @@ export function bendingCheck(ctx: CheckContext, e: Effects, per: ReadonlyMap<Fla
 export function envelopeAt(stations: readonly Station[], x: number, pick: (s: Station) => number): { value: number; maxAbsNear: number } {
   if (stations.length === 0) return { value: 0, maxAbsNear: 0 };
   const env = envelopeOf(stations, pick);
-  const { xs, gov, maxAbs } = env;
+  const { gov, maxAbs } = env;
+  const [lo, hi, t] = bracket(env.xs, x);
+  if (t === 0) return { value: gov[lo]!, maxAbsNear: maxAbs[lo]! };
+  return { value: gov[lo]! + t * (gov[hi]! - gov[lo]!), maxAbsNear: Math.max(maxAbs[lo]!, maxAbs[hi]!) };
+}
+
+/**
+ * The stations either side of x in ascending xs and the interpolation weight: x = xs[lo] + t·(xs[hi] − xs[lo]);
+ * t = 0 (and lo the station) at or beyond an end, or on a station.
+ */
+function bracket(xs: Float64Array, x: number): [number, number, number] {
   const n = xs.length;
-  if (x <= xs[0]!) return { value: gov[0]!, maxAbsNear: maxAbs[0]! };
-  if (x >= xs[n - 1]!) return { value: gov[n - 1]!, maxAbsNear: maxAbs[n - 1]! };
-  // binary search: xs[i] < x <= xs[i + 1]
+  if (x <= xs[0]!) return [0, 0, 0];
+  if (x >= xs[n - 1]!) return [n - 1, n - 1, 0];
   let lo = 0;
   let hi = n - 1;
   while (hi - lo > 1) {
@@ -129,9 +138,8 @@ export function envelopeAt(stations: readonly Station[], x: number, pick: (s: St
     if (xs[mid]! < x) lo = mid;
     else hi = mid;
   }
-  if (xs[hi] === x) return { value: gov[hi]!, maxAbsNear: maxAbs[hi]! };
-  const t = (x - xs[lo]!) / (xs[hi]! - xs[lo]!);
-  return { value: gov[lo]! + t * (gov[hi]! - gov[lo]!), maxAbsNear: Math.max(maxAbs[lo]!, maxAbs[hi]!) };
+  if (xs[hi] === x) return [hi, hi, 0];
+  return [lo, hi, (x - xs[lo]!) / (xs[hi]! - xs[lo]!)];
 }
 
 export interface Envelope {
@@ -185,18 +193,7 @@ export function envelopeOf(stations: readonly Station[], pick: (s: Station) => n
 /** The largest |value| at x, interpolated linearly between the neighbouring stations (per-x maxima). */
 export function absAt(stations: readonly Station[], x: number, pick: (s: Station) => number): number {
   if (stations.length === 0) return 0;
-  const { xs, maxAbs } = envelopeOf(stations, pick);
-  const n = xs.length;
-  if (x <= xs[0]!) return maxAbs[0]!;
-  if (x >= xs[n - 1]!) return maxAbs[n - 1]!;
-  let lo = 0;
-  let hi = n - 1;
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if (xs[mid]! < x) lo = mid;
-    else hi = mid;
-  }
-  if (xs[hi] === x) return maxAbs[hi]!;
-  const t = (x - xs[lo]!) / (xs[hi]! - xs[lo]!);
-  return maxAbs[lo]! + t * (maxAbs[hi]! - maxAbs[lo]!);
+  const env = envelopeOf(stations, pick);
+  const [lo, hi, t] = bracket(env.xs, x);
+  return env.maxAbs[lo]! + t * (env.maxAbs[hi]! - env.maxAbs[lo]!);
 }

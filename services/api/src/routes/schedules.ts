@@ -1,4 +1,4 @@
-import { markFromSearch, renderReport, type ReportInput } from '@platesmith/report';
+import { scheduleReport } from '@platesmith/report';
 import { ProblemDetailsJson, type FieldIssue } from '@platesmith/schema';
 import { parseScheduleCsv, ScheduleJson, ScheduleProgressJson, ScheduleResultJson, ScheduleRunResultJson, type ScheduleRunResult } from '@platesmith/schedule';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
@@ -50,22 +50,7 @@ function csvIssue(i: { row: number; column: string | null; message: string }): F
 }
 
 /** The HTML report of a finished schedule result (report package; no engineering here). */
-export function reportOf(r: ScheduleRunResult, meta: { title?: string; subtitle?: string; generatedAt?: string } = {}): string {
-  const rat = r.tender.rationalisation;
-  const input: ReportInput = {
-    title: meta.title ?? r.name ?? 'Girder schedule',
-    ...(meta.subtitle !== undefined ? { subtitle: meta.subtitle } : {}),
-    ...(meta.generatedAt !== undefined ? { generatedAt: meta.generatedAt } : {}),
-    marks: r.marks.map((m) => {
-      const rm = markFromSearch(m.mark, m.quantity, m.search, m.adopted);
-      if (m.status === 'failed') rm.notes = [...(rm.notes ?? []), `The mark failed: ${m.error?.message ?? 'failed'}.`];
-      return rm;
-    }),
-    ...(r.tender.tonnage ? { tonnage: r.tender.tonnage } : {}),
-    ...(rat && rat.skipped === undefined ? { rationalisation: rat } : {}),
-  };
-  return renderReport(input);
-}
+export const reportOf = scheduleReport;
 
 const Params = z.object({ id: z.string().min(1).max(100) });
 

@@ -1,5 +1,5 @@
 import { readFileSync, writeFileSync } from 'node:fs';
-import { markFromSearch, renderReport, type ReportInput } from '@platesmith/report';
+import { scheduleReport } from '@platesmith/report';
 import {
   BaselineJson,
   finishSchedule,
@@ -174,19 +174,7 @@ export function markdownOf(r: ScheduleRunResult): string {
 
 /** The HTML report of a result (the report package draws it). */
 export function htmlOf(r: ScheduleRunResult, generatedAt: string): string {
-  const rat = r.tender.rationalisation;
-  const input: ReportInput = {
-    title: r.name ?? 'Girder schedule',
-    generatedAt,
-    marks: r.marks.map((m) => {
-      const rm = markFromSearch(m.mark, m.quantity, m.search, m.adopted);
-      if (m.status === 'failed') rm.notes = [...(rm.notes ?? []), `The mark failed: ${m.error?.message ?? 'failed'}.`];
-      return rm;
-    }),
-    ...(r.tender.tonnage ? { tonnage: r.tender.tonnage } : {}),
-    ...(rat && rat.skipped === undefined ? { rationalisation: rat } : {}),
-  };
-  return renderReport(input);
+  return scheduleReport(r, { generatedAt });
 }
 
 function summary(r: ScheduleRunResult): string {
