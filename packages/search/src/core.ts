@@ -10,6 +10,9 @@ import {
   minIyForDeflectionAt,
   panelsOf,
   patchUtilisation,
+  patchBendingFloor,
+  grossProps,
+  material,
   maxCompressionFlangeAreaFIB,
   minFlangeForceForBending,
   resolveBearing,
@@ -61,6 +64,7 @@ export interface PruneStats {
   flangeInducedBuckling: number;
   deflection: number;
   patchLoading: number;
+  patchBending: number;
   /** failed a layout-free check with another stiffener layout or end post of the same plates */
   sameFlanges: number;
   webOnly: number;
@@ -188,7 +192,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
   const { p, webs, groups, flanges, groupStart, L, Lmax, supports } = prep;
   const o = p.options;
   const sp = p.space;
-  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 };
+  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, patchBending: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 };
   let fullEvaluations = 0;
   let spaceSize = 0;
   const minThroat = o.weldThroats[0]!;
@@ -257,6 +261,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
   const deflFloor = p.load.deflectionFloor(gLoAll, gMax);
   // concentrated forces do not depend on the self-weight: the patch-loading check is exact here
   const forces = p.load.effects(gLoAll).forces;
+  const sagAtForces = forces.length && p.load.sagFloorAt ? p.load.sagFloorAt(forces.map((f) => f.x), gLoAll, gMax) : [];
 
   // web-level pass: cheap bounds, and the order of visit
   interface WebPlan {
@@ -310,6 +315,12 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
     const fibBot = dem.hogAlways ? maxCompressionFlangeAreaFIB({ hw: w.hw, tw: w.tw, fyfMin: 1, k: kFibMax, E: o.E }) : Infinity;
     const bearingCache = new Map<number, BearingFlat>();
     const webPanels = panelsOf(supports, parts.a).panels;
+    // patch loading reads the web and the top flange only: once per top-flange option on this web
+    const patchU = new Float64Array(flanges.length).fill(-1);
+    const patchOf = (ti: number): number => {
+      if (patchU[ti]! < 0) patchU[ti] = patchUtilisation(forces, w, flanges[ti]!, webPanels, o.E, o.factors.gammaM1);
+      return patchU[ti]!;
+    };
 
     // group pass: cheap per-group data only; candidates are generated when a group is reached
     interface GroupPlan {
@@ -412,7 +423,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
           pruned.deflection++;
           continue;
         }
-        if (forces.length > 0 && patchUtilisation(forces, w, T, webPanels, o.E, o.factors.gammaM1) > 1 + 1e-9) {
+        if (forces.length > 0 && patchOf(pr.ti) > 1 + 1e-9) {
           pruned.patchLoading++;
           continue;
         }
@@ -434,6 +445,13 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
           continue;
         }
         const section = buildSection(w, parts, T, B);
+        if (sagAtForces.some((m) => m > 0)) {
+          const Mel = grossProps(section, material(section, o)).Mel;
+          if (patchBendingFloor(forces, w, T, webPanels, o.E, o.factors.gammaM1, sagAtForces, Mel / o.factors.gammaM0) > 1 + 1e-9) {
+            pruned.patchBending++;
+            continue;
+          }
+        }
         const effects = p.load.effects(g);
         const fail = firstFailure(section, effects, o);
         fullEvaluations++;

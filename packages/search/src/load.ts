@@ -18,6 +18,11 @@ export interface LoadModel {
   deflectionFloor(gLo: number, gHi: number): DeflectionFloor[];
   /** the downward SLS deflection terms as bend = bA + g·bB, shear = sA + g·sB per point, with limits (mm) */
   deflectionAffine?: DeflectionAffine;
+  /**
+   * For each x: a lower bound, for every g in [gLo, gHi], on the largest sagging MEd among the
+   * stations at exactly that x (0 when none is guaranteed, or no station stands there).
+   */
+  sagFloorAt?(xs: readonly number[], gLo: number, gHi: number): number[];
 }
 
 export interface DeflectionAffine {
@@ -151,6 +156,7 @@ export function analysisLoadModel(a: Analysis): LoadModel {
     demandLowerBound: (gLo, gHi) => analysisDemandBound(a, gLo, gHi),
     deflectionFloor: (gLo, gHi) => analysisDeflectionFloor(a, gLo, gHi),
     deflectionAffine: analysisDeflectionAffine(a),
+    sagFloorAt: (xs, gLo, gHi) => xs.map((x) => analysisSagFloorAt(a, x, gLo, gHi)),
   };
 }
 
@@ -184,4 +190,21 @@ export function analysisDeflectionFloor(a: Analysis, gLo: number, gHi: number): 
     }
   }
   return out;
+}
+
+/** The largest sagging moment guaranteed at station x for g in [gLo, gHi] (see LoadModel.sagFloorAt). */
+export function analysisSagFloorAt(a: Analysis, x: number, gLo: number, gHi: number): number {
+  const nK = a.stationX.length;
+  let best = 0;
+  for (let k = 0; k < nK; k++) {
+    if (Math.abs(a.stationX[k]! - x) > 1e-6) continue;
+    for (let c = 0; c < a.combinations.length; c++) {
+      const mg = a.gammaG[c]! * a.Mg[k]!;
+      for (let t = 0; t < 4; t++) {
+        const M = a.A[(c * nK + k) * 8 + 2 * t]!;
+        best = Math.max(best, Math.min(M + gLo * mg, M + gHi * mg));
+      }
+    }
+  }
+  return best;
 }

@@ -2,7 +2,8 @@ import { describe, expect } from 'vitest';
 import { fc, test } from '@fast-check/vitest';
 import { FLAT_BARS, type GradeName } from '@platesmith/catalogue';
 import { defaultOptions } from '@platesmith/checks';
-import { bruteForce, DEFAULT_COST, search, type Evaluated, type SpaceSpec } from '../src/index.js';
+import { analyse } from '@platesmith/actions';
+import { analysisLoadModel, bruteForce, DEFAULT_COST, search, stiffenerStations, type Evaluated, type SpaceSpec } from '../src/index.js';
 import { simpleSpanModel } from './fixtures.js';
 
 /**
@@ -63,5 +64,39 @@ describe('search = brute force', () => {
     expect(frontKey(fast.pareto)).toEqual(frontKey(brute.front));
     expect(fast.lightest?.value ?? null).toEqual(brute.front.at(-1)?.value ?? null);
     expect(fast.stats.fullEvaluations).toBeLessThanOrEqual(brute.evaluations);
+  });
+});
+
+describe('search = brute force, with loads analysed by the actions package (point loads, continuous spans)', () => {
+  const arb = fc.record({
+    space: spaceArb,
+    spans: fc.constantFrom([10000], [14000], [9000, 12000]).map((s) => [...s]),
+    g: fc.double({ min: 5, max: 30, noNaN: true }),
+    q: fc.double({ min: 5, max: 40, noNaN: true }),
+    P: fc.constantFrom(0, 150, 400),
+    objective: fc.constantFrom('mass', 'mass', 'cost') as fc.Arbitrary<'mass' | 'cost'>,
+  });
+  test.prop([arb], { numRuns: 60 })('Pareto set and optimum equal exhaustive enumeration', ({ space, spans, g, q, P, objective }) => {
+    const L = spans.reduce((a, b) => a + b, 0);
+    const a = analyse({
+      spans,
+      actions: [
+        { kind: 'permanent', load: 'udl', value: g },
+        { kind: 'variable', load: 'udl', value: q, category: 'B' },
+        ...(P > 0 ? [{ kind: 'variable' as const, load: 'point' as const, value: P * 1e3, at: spans[0]! / 2, ss: 150, category: 'E' }] : []),
+      ],
+      combination: '6.10',
+      extraStations: stiffenerStations(spans, space.panels),
+    });
+    const sp: SpaceSpec = {
+      hw: space.hw, tw: space.tw, bf: space.bf, tf: space.tf, symmetric: space.symmetric, panels: space.panels, flats: space.flats,
+      sides: [2], endPosts: [...space.endPosts], webGrades: ['S355'], flangeGrades: space.flangeGrades, minDepth: 0, maxDepth: space.maxDepth, rules: {},
+    };
+    const supports = [0, ...spans.map((_, i) => spans.slice(0, i + 1).reduce((s, x) => s + x, 0))];
+    const options = defaultOptions(L, { supports, restraint: { kind: 'at', at: [0, L / 2, L] } });
+    const problem = { space: sp, options, load: analysisLoadModel(a), objective, cost: DEFAULT_COST };
+    const fast = search(problem);
+    const brute = bruteForce(problem);
+    expect(frontKey(fast.pareto)).toEqual(frontKey(brute.front));
   });
 });

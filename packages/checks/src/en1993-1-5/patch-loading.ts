@@ -67,28 +67,29 @@ export function patchResistance(p: PatchInput): PatchResult {
   const Fcr = (0.9 * k * p.E * p.tw ** 3) / p.hw;
   const m1 = (p.fyf * p.bf) / (p.fyw * p.tw);
   const le = p.type === 'c' ? Math.min((k * p.E * p.tw ** 2) / (2 * p.fyw * p.hw), p.ss + c) : null;
-  const lyOf = (m2: number): number => {
-    const l610 = Math.min(p.ss + 2 * p.tf * (1 + Math.sqrt(m1 + m2)), p.a);
-    if (le === null) return l610;
-    const l611 = le + p.tf * Math.sqrt(m1 / 2 + (le / p.tf) ** 2 + m2);
-    const l612 = le + p.tf * Math.sqrt(m1 + m2);
-    return Math.min(l610, l611, l612);
-  };
-  const lam = (ly: number): number => Math.sqrt((ly * p.tw * p.fyw) / Fcr);
   let m2 = 0.02 * (p.hw / p.tf) ** 2;
-  let ly = lyOf(m2);
-  let lambdaF = lam(ly);
+  let ly = loadedLength(p, m1, m2, le);
+  let lambdaF = Math.sqrt((ly * p.tw * p.fyw) / Fcr);
   let m2Branch: PatchResult['m2Branch'] = 'lambdaF>0.5';
   if (lambdaF <= 0.5) {
     m2 = 0;
-    ly = lyOf(0);
-    lambdaF = lam(ly);
+    ly = loadedLength(p, m1, 0, le);
+    lambdaF = Math.sqrt((ly * p.tw * p.fyw) / Fcr);
     m2Branch = 'lambdaF<=0.5';
   }
   const chiF = Math.min(1, 0.5 / lambdaF);
   const Leff = chiF * ly;
   const FRd = (p.fyw * Leff * p.tw) / p.gammaM1;
   return { kF: k, Fcr, m1, m2, m2Branch, le, ly, lambdaF, chiF, Leff, FRd };
+}
+
+/** ℓy: eq. 6.10 (≤ a) for types (a) and (b); for (c) the least of eqs. 6.10–6.12 (6.5(3) as corrected). */
+function loadedLength(p: PatchInput, m1: number, m2: number, le: number | null): number {
+  const l610 = Math.min(p.ss + 2 * p.tf * (1 + Math.sqrt(m1 + m2)), p.a);
+  if (le === null) return l610;
+  const l611 = le + p.tf * Math.sqrt(m1 / 2 + (le / p.tf) ** 2 + m2);
+  const l612 = le + p.tf * Math.sqrt(m1 + m2);
+  return Math.min(l610, l611, l612);
 }
 
 /** The web panel (between supports and stiffeners) containing x; its length a. */
@@ -163,9 +164,42 @@ export function patchUtilisation(
 ): number {
   let u = 0;
   for (const f of forces) {
-    const panel = panels.find((q) => f.x >= q.x0 && f.x <= q.x1) ?? panels[panels.length - 1]!;
-    const r = patchResistance({ type: 'a', hw: web.hw, tw: web.tw, bf: top.b, tf: top.t, fyw: web.fyw, fyf: top.fy, ss: f.ss, a: panel.a, E, gammaM1 });
+    const r = patchResistance({ type: 'a', hw: web.hw, tw: web.tw, bf: top.b, tf: top.t, fyw: web.fyw, fyf: top.fy, ss: f.ss, a: panelAt(panels, f.x).a, E, gammaM1 });
     u = Math.max(u, Math.abs(f.F) / r.FRd);
+  }
+  return u;
+}
+
+/** The panel containing x (the last one when none does). */
+function panelAt<P extends { x0: number; x1: number }>(panels: readonly P[], x: number): P {
+  for (const q of panels) if (x >= q.x0 && x <= q.x1) return q;
+  return panels[panels.length - 1]!;
+}
+
+/**
+ * A bound for the search: a lower bound on the 'patch-bending' utilisation (EN 1993-1-5 7.2,
+ * (η2 + 0.8 η1)/1.4) from the exact η2 of each force and a lower bound of η1:
+ * sag[i] ≤ the sagging MEd at force i (N·mm; ≤ 0 when the loaded flange may be in tension, which
+ * skips the force) and MelRd ≥ the resistance 7.2 uses (Mel,Rd, or Meff,Rd ≤ Mel,Rd for Class 4).
+ * A value above 1 means the section fails 'patch-bending'.
+ */
+export function patchBendingFloor(
+  forces: readonly { x: number; F: number; ss: number }[],
+  web: { hw: number; tw: number; fyw: number },
+  top: { b: number; t: number; fy: number },
+  panels: readonly { x0: number; x1: number; a: number }[],
+  E: number,
+  gammaM1: number,
+  sag: readonly number[],
+  MelRd: number,
+): number {
+  let u = 0;
+  for (let i = 0; i < forces.length; i++) {
+    const f = forces[i]!;
+    const M = sag[i] ?? 0;
+    if (!(M > 0)) continue;
+    const r = patchResistance({ type: 'a', hw: web.hw, tw: web.tw, bf: top.b, tf: top.t, fyw: web.fyw, fyf: top.fy, ss: f.ss, a: panelAt(panels, f.x).a, E, gammaM1 });
+    u = Math.max(u, patchBendingInteraction(M / MelRd, Math.abs(f.F) / r.FRd).utilisation);
   }
   return u;
 }
