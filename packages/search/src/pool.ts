@@ -41,7 +41,7 @@ export async function pingPool(pool: SearchPool, signal?: AbortSignal): Promise<
  * The exact search on the pool: the web configurations are cut into contiguous slices (a few per
  * thread, for balance), each worker returns its slice's exact front, and the fronts are merged.
  */
-export async function searchOnPool(pool: SearchPool, task: SearchTask, signal?: AbortSignal): Promise<SearchResult> {
+export async function searchOnPool(pool: SearchPool, task: SearchTask, signal?: AbortSignal, onSlice?: (done: number, total: number) => void): Promise<SearchResult> {
   const t0 = performance.now();
   assertSpace(task.space);
   const prep = prepareSearch(problemOf(task));
@@ -55,8 +55,14 @@ export async function searchOnPool(pool: SearchPool, task: SearchTask, signal?: 
     const b = Math.floor(((k + 1) * n) / nSlices);
     if (b > a) slices.push(Array.from({ length: b - a }, (_, i) => a + i));
   }
+  let done = 0;
   const results = await Promise.all(
-    slices.map((webIdx) => pool.piscina.run({ kind: 'slice', task, webIdx } satisfies WorkerMessage, signal ? { signal } : {}) as Promise<SliceResult>),
+    slices.map((webIdx) =>
+      (pool.piscina.run({ kind: 'slice', task, webIdx } satisfies WorkerMessage, signal ? { signal } : {}) as Promise<SliceResult>).then((r) => {
+        onSlice?.(++done, slices.length);
+        return r;
+      }),
+    ),
   );
   return mergeSlices(results, performance.now() - t0, pool.threads, n, spaceSize(task.space));
 }

@@ -16,3 +16,9 @@ export function fmt(v: number, digits = 3): string {
   if (a !== 0 && (a >= 1e6 || a < 1e-3)) return v.toExponential(3);
   return Number(v.toPrecision(Math.max(digits, Math.ceil(Math.log10(a + 1)) ))).toString();
 }
+
+/** [#####.....] 12/40 */
+export function progressBar(done: number, total: number, width = 24): string {
+  const n = total > 0 ? Math.round((done / total) * width) : width;
+  return `[${'#'.repeat(n)}${'.'.repeat(width - n)}] ${done}/${total}`;
+}

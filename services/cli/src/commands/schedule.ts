@@ -15,7 +15,7 @@ import { formatIssues, parseWith } from '@platesmith/schema';
 import { createSearchPool, searchOnPool } from '@platesmith/search/pool';
 import { EXIT, InputError, type Out } from '../io.js';
 import { caution } from '../render.js';
-import { fmt, table } from '../table.js';
+import { fmt, progressBar, table } from '../table.js';
 
 export const SCHEDULE_USAGE = `platesmith schedule FILE [options]
   FILE                   a schedule: .json ({ defaults, girders }) or .csv (one row per mark); - for standard input
@@ -223,7 +223,10 @@ export async function runScheduleCommand(argv: readonly string[], io: Out): Prom
       onProgress: (p) => {
         if (a.quiet || !p.finished) return;
         const left = p.estimateMs === null ? '' : `, about ${Math.ceil(p.estimateMs / 1000)} s left`;
-        io.err(`[${p.marksDone}/${p.marksTotal}] ${p.finished.mark} ${p.finished.status} (${(p.elapsedMs / 1000).toFixed(1)} s${left})`);
+        const line = `${p.finished.mark} ${p.finished.status} (${(p.elapsedMs / 1000).toFixed(1)} s${left})`;
+        // a progress bar on a terminal; plain lines when standard error is a file or a pipe
+        if (process.stderr.isTTY) process.stderr.write(`\r${progressBar(p.marksDone, p.marksTotal)} ${line}`.padEnd(100) + (p.marksDone === p.marksTotal ? '\n' : ''));
+        else io.err(`[${p.marksDone}/${p.marksTotal}] ${line}`);
       },
     });
     result = finishSchedule(schedule, run.marks);
@@ -238,3 +241,4 @@ export async function runScheduleCommand(argv: readonly string[], io: Out): Prom
   else io.out(`${summary(result)}\n\n${caution()}`);
   return failsRun(result) ? EXIT.fails : EXIT.ok;
 }
+

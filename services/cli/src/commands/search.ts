@@ -2,7 +2,7 @@ import { createSearchPool, searchOnPool } from '@platesmith/search/pool';
 import { formatIssues, parseWith, publishSearch, SearchInput, toSearchTask, type PublishedSearch } from '@platesmith/schema';
 import { EXIT, InputError, type Out } from '../io.js';
 import { caution } from '../render.js';
-import { fmt, table } from '../table.js';
+import { fmt, progressBar, table } from '../table.js';
 
 export async function solve(input: unknown, threads?: number): Promise<PublishedSearch> {
   const parsed = parseWith(SearchInput, input);
@@ -10,7 +10,11 @@ export async function solve(input: unknown, threads?: number): Promise<Published
   const task = toSearchTask(parsed.value);
   const pool = createSearchPool(threads !== undefined ? { threads } : {});
   try {
-    const r = await searchOnPool(pool, task);
+    // a progress bar on a terminal (slices of the space finished)
+    const tty = process.stderr.isTTY === true;
+    const r = await searchOnPool(pool, task, undefined, (done, total) => {
+      if (tty) process.stderr.write(`\r${progressBar(done, total)} slices of the space searched` + (done === total ? '\n' : ''));
+    });
     return publishSearch(r, task.objective, task.analysis.length);
   } finally {
     await pool.close();
