@@ -163,11 +163,20 @@ export function patchUtilisation(
   gammaM1: number,
 ): number {
   let u = 0;
-  for (const f of forces) {
-    const r = patchResistance({ type: 'a', hw: web.hw, tw: web.tw, bf: top.b, tf: top.t, fyw: web.fyw, fyf: top.fy, ss: f.ss, a: panelAt(panels, f.x).a, E, gammaM1 });
-    u = Math.max(u, Math.abs(f.F) / r.FRd);
-  }
+  for (const f of forces) u = Math.max(u, Math.abs(f.F) / forceFRd(f, web, top, panels, E, gammaM1));
   return u;
+}
+
+/** FRd (N) of one force on a web and top flange given as plain numbers, load type (a). */
+function forceFRd(
+  f: { x: number; ss: number },
+  web: { hw: number; tw: number; fyw: number },
+  top: { b: number; t: number; fy: number },
+  panels: readonly { x0: number; x1: number; a: number }[],
+  E: number,
+  gammaM1: number,
+): number {
+  return patchResistance({ type: 'a', hw: web.hw, tw: web.tw, bf: top.b, tf: top.t, fyw: web.fyw, fyf: top.fy, ss: f.ss, a: panelAt(panels, f.x).a, E, gammaM1 }).FRd;
 }
 
 /** The panel containing x (the last one when none does). */
@@ -198,8 +207,7 @@ export function patchBendingFloor(
     const f = forces[i]!;
     const M = sag[i] ?? 0;
     if (!(M > 0)) continue;
-    const r = patchResistance({ type: 'a', hw: web.hw, tw: web.tw, bf: top.b, tf: top.t, fyw: web.fyw, fyf: top.fy, ss: f.ss, a: panelAt(panels, f.x).a, E, gammaM1 });
-    u = Math.max(u, patchBendingInteraction(M / MelRd, Math.abs(f.F) / r.FRd).utilisation);
+    u = Math.max(u, patchBendingInteraction(M / MelRd, Math.abs(f.F) / forceFRd(f, web, top, panels, E, gammaM1)).utilisation);
   }
   return u;
 }
