@@ -154,7 +154,7 @@ export type CheckId =
 export type CheckValue = number | string | boolean;
 
 /**
- * One check's verdict (DESIGN.md). Internal units in `values` (N, mm, N·mm, MPa);
+ * One check's verdict (the public check-result contract). Internal units in `values` (N, mm, N·mm, MPa);
  * the schema converts to kN, kNm at the boundary. A check that does not apply has
  * applies: false, a reason, utilisation 0 and passes true.
  */
