@@ -22,3 +22,20 @@ export function withBearing(ctx: CheckContext, bearing: BearingStiffener): Check
   const fyBearing = fy(ctx.s.grade.stiffener, bearing.ts, ctx.o.fySource, 'section.bearing.thickness');
   return { ...ctx, bearing, m: { ...ctx.m, fyBearing } };
 }
+
+/**
+ * Memoises a quantity that depends only on the section (the context) and the compression side:
+ * computed once per context and side, however many stations and checks ask for it.
+ */
+export function perSide<T>(compute: (ctx: CheckContext, side: 'top' | 'bot') => T): (ctx: CheckContext, side: 'top' | 'bot') => T {
+  const cache = new WeakMap<CheckContext, { top?: T; bot?: T }>();
+  return (ctx, side) => {
+    let c = cache.get(ctx);
+    if (!c) {
+      c = {};
+      cache.set(ctx, c);
+    }
+    if (!(side in c)) c[side] = compute(ctx, side);
+    return c[side] as T;
+  };
+}

@@ -3,6 +3,7 @@ import type { FlangeSide } from '../section.js';
 import type { CheckContext, CheckResult, CheckValue, Effects, Station } from '../types.js';
 import { notApplicable, verdict } from '../result.js';
 import { pickM, envelopeAt, envelopeOf, type SignBending } from './bending.js';
+import { perSide } from '../context.js';
 
 /**
  * Lateral-torsional buckling of a welded (mono-)symmetric I-beam, EN 1993-1-1:2005 6.3.2.
@@ -322,18 +323,5 @@ export function ltbCheck(ctx: CheckContext, e: Effects, per: ReadonlyMap<FlangeS
   return verdict('lateral-torsional-buckling', clause, best.u, best.at, best.values);
 }
 
-const ZJ = new WeakMap<CheckContext, Map<FlangeSide, number>>();
-/** zj depends on the section and the compression side only: once per context. */
-function zjCached(ctx: CheckContext, side: FlangeSide): number {
-  let m = ZJ.get(ctx);
-  if (!m) {
-    m = new Map();
-    ZJ.set(ctx, m);
-  }
-  let v = m.get(side);
-  if (v === undefined) {
-    v = wagnerZj(ctx, side);
-    m.set(side, v);
-  }
-  return v;
-}
+/** zj depends on the section and the compression side only. */
+const zjCached = perSide(wagnerZj);

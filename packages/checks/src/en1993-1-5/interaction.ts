@@ -1,5 +1,6 @@
 import { compressionSide, elastic, firstYieldMoment, plastic, rectsEffectiveFlanges } from '../section.js';
 import { classifySection } from '../en1993-1-1/classification.js';
+import { perSide } from '../context.js';
 import type { CheckContext, Station } from '../types.js';
 import { classificationThroat, momentsAt, type PanelShear } from './shear-buckling.js';
 import { vplRd } from './shear-plastic.js';
@@ -103,18 +104,5 @@ export function stationInteraction628(ctx: CheckContext, st: Station): StationIn
   };
 }
 
-const CLASS = new WeakMap<CheckContext, Map<string, number>>();
 /** Section class for a compression side, once per context. */
-function classOf(ctx: CheckContext, side: 'top' | 'bot'): number {
-  let m = CLASS.get(ctx);
-  if (!m) {
-    m = new Map();
-    CLASS.set(ctx, m);
-  }
-  let c = m.get(side);
-  if (c === undefined) {
-    c = classifySection(ctx, side).sectionClass;
-    m.set(side, c);
-  }
-  return c;
-}
+const classOf = perSide((ctx, side) => classifySection(ctx, side).sectionClass);

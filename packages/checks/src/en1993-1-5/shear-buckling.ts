@@ -1,4 +1,5 @@
 import { compressionSide, epsilon, flangeAndPlasticMoments } from '../section.js';
+import { perSide } from '../context.js';
 import type { CheckContext, EndPost, Panel, Station } from '../types.js';
 
 /**
@@ -173,21 +174,14 @@ export function classificationThroat(weldThroats: readonly number[]): number {
  * flange is in compression, the smaller of the two sides (conservative, and symmetric under a flip).
  */
 export function momentsAt(ctx: CheckContext, MEd: number): { MfRd: number; MplRd: number } {
-  let hit = MOMENTS.get(ctx);
-  if (!hit) {
-    const { s, o, m } = ctx;
-    const throat = classificationThroat(o.weldThroats);
-    const top = flangeAndPlasticMoments(s, m, 'top', throat, o.factors.gammaM0);
-    const bot = flangeAndPlasticMoments(s, m, 'bot', throat, o.factors.gammaM0);
-    hit = { top, bot, zero: { MfRd: Math.min(top.MfRd, bot.MfRd), MplRd: Math.min(top.MplRd, bot.MplRd) } };
-    MOMENTS.set(ctx, hit);
-  }
-  if (MEd === 0) return hit.zero;
-  return compressionSide(MEd) === 'top' ? hit.top : hit.bot;
+  if (MEd !== 0) return momentsFor(ctx, compressionSide(MEd));
+  const t = momentsFor(ctx, 'top');
+  const b = momentsFor(ctx, 'bot');
+  return { MfRd: Math.min(t.MfRd, b.MfRd), MplRd: Math.min(t.MplRd, b.MplRd) };
 }
 
 /** Mf,Rd and Mpl,Rd depend only on the section and the compression side: once per context. */
-const MOMENTS = new WeakMap<CheckContext, { top: { MfRd: number; MplRd: number }; bot: { MfRd: number; MplRd: number }; zero: { MfRd: number; MplRd: number } }>();
+const momentsFor = perSide((ctx, side) => flangeAndPlasticMoments(ctx.s, ctx.m, side, classificationThroat(ctx.o.weldThroats), ctx.o.factors.gammaM0));
 
 /** One station judged in one panel by 5.5(1): η3 = VEd / Vb,Rd. */
 export interface StationShear {
