@@ -2,7 +2,7 @@ import { withBearing, prepare } from './context.js';
 import { sizeBearing } from './bearing-sizing.js';
 import { bendingChecks, bendingThunks } from './en1993-1-1/bending-family.js';
 import { BEARING_DEPENDENT, shearChecks, shearThunks } from './en1993-1-5/shear-family.js';
-import type { CheckOptions, CheckResult, Effects, GirderVerdict, Section } from './types.js';
+import type { BearingStiffener, CheckId, CheckOptions, CheckResult, Effects, GirderVerdict, Section } from './types.js';
 
 /** The order in which checks are reported (check ids are a public contract). */
 export const CHECK_ORDER = [
@@ -35,14 +35,21 @@ export function checkGirder(section: Section, effects: Effects, options: CheckOp
   const ctx0 = prepare(section, options);
   const sized = section.bearing === undefined;
   const ctx = sized ? withBearing(ctx0, sizeBearing(ctx0, effects)) : ctx0;
-  const all: CheckResult[] = [...bendingChecks(ctx, effects), ...shearChecks(ctx, effects)];
-  all.sort((p, q) => RANK.get(p.id)! - RANK.get(q.id)!);
+  return assembleVerdict([...bendingChecks(ctx, effects), ...shearChecks(ctx, effects)], ctx.bearing, sized);
+}
+
+/**
+ * The verdict of a section from one result per check id (in any order): results sorted in
+ * CHECK_ORDER, `governing` the applicable check of highest utilisation (the earlier wins ties).
+ */
+export function assembleVerdict(results: readonly CheckResult[], bearing: BearingStiffener, bearingSized: boolean): GirderVerdict {
+  const all = [...results].sort((p, q) => RANK.get(p.id)! - RANK.get(q.id)!);
   let governing = all[0]!;
   for (const c of all) {
     if (!c.applies) continue;
     if (!governing.applies || c.utilisation > governing.utilisation) governing = c;
   }
-  return { passes: all.every((c) => c.passes), governing, checks: all, bearing: ctx.bearing, bearingSized: sized };
+  return { passes: all.every((c) => c.passes), governing, checks: all, bearing, bearingSized };
 }
 
 /**
@@ -50,7 +57,7 @@ export function checkGirder(section: Section, effects: Effects, options: CheckOp
  * optimum, and the cheap ones, first (measured on the reference problems); those that read the
  * bearing stiffeners last, since sizing them costs a few checks of its own.
  */
-const JUDGE_ORDER = [
+const JUDGE_ORDER: readonly CheckId[] = [
   'deflection',
   'patch-loading',
   'lateral-torsional-buckling',
@@ -75,21 +82,54 @@ const JUDGE_ORDER = [
  * it, then asks checkGirder for the full results of those that pass).
  */
 export function firstFailure(section: Section, effects: Effects, options: CheckOptions): CheckResult | null {
+  return firstFailureAmong(section, effects, options, JUDGE_ORDER);
+}
+
+/**
+ * The first failing check among `ids` (tried in JUDGE_ORDER), or null when all of them pass. The
+ * search runs the checks that do not read the stiffener layout once per set of plates, and the
+ * rest once per layout: a candidate passes iff both parts pass (the two parts cover CHECK_ORDER).
+ */
+export function firstFailureAmong(section: Section, effects: Effects, options: CheckOptions, ids: readonly CheckId[], out?: Judged): CheckResult | null {
   const ctx0 = prepare(section, options);
   const t0 = { ...bendingThunks(ctx0, effects), ...shearThunks(ctx0, effects) };
   let tb: typeof t0 | null = null;
-  for (const id of JUDGE_ORDER) {
+  let bearing = ctx0.bearing;
+  for (const id of ids) {
     let r: CheckResult;
     if (BEARING_DEPENDENT.has(id)) {
       if (!tb) {
         const ctx = section.bearing === undefined ? withBearing(ctx0, sizeBearing(ctx0, effects)) : ctx0;
+        bearing = ctx.bearing;
         tb = { ...bendingThunks(ctx, effects), ...shearThunks(ctx, effects) };
       }
       r = tb[id]();
     } else r = t0[id]();
+    out?.results.push(r);
     if (!r.passes) return r;
   }
+  if (out) {
+    out.bearing = bearing;
+    out.bearingSized = tb !== null && section.bearing === undefined;
+  }
   return null;
+}
+
+/**
+ * What firstFailureAmong judged: every result it computed and, when all passed, the bearing
+ * stiffeners the checks used. The results of two calls whose ids cover CHECK_ORDER (the second
+ * reading the bearing stiffeners) give the same verdict as checkGirder, through assembleVerdict.
+ */
+export interface Judged {
+  results: CheckResult[];
+  bearing?: BearingStiffener;
+  bearingSized?: boolean;
+}
+
+/** `ids` in the order judgeGirder tries them (for firstFailureAmong). */
+export function inJudgeOrder(ids: Iterable<string>): CheckId[] {
+  const want = new Set(ids);
+  return JUDGE_ORDER.filter((id) => want.has(id));
 }
 
 /** Whether the section passes every check (checkGirder(...).passes, found early). */

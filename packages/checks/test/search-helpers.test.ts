@@ -1,6 +1,6 @@
 import { describe, expect } from 'vitest';
 import { fc, test } from '@fast-check/vitest';
-import { checkGirder, defaultOptions, firstFailure, judgeGirder, minIyForDeflection, panelsOf, patchUtilisation, prepare, type Effects, type Section } from '../src/index.js';
+import { assembleVerdict, CHECK_ORDER, checkGirder, defaultOptions, firstFailure, firstFailureAmong, inJudgeOrder, judgeGirder, type Judged, minIyForDeflection, panelsOf, patchUtilisation, prepare, type Effects, type Section } from '../src/index.js';
 
 /**
  * Properties of the functions the search relies on (no published values: these are consistency
@@ -59,6 +59,22 @@ describe('functions the search relies on', () => {
     expect(judgeGirder(s, e, o)).toBe(v.passes);
     const f = firstFailure(s, e, o);
     if (f) expect(v.checks.find((c) => c.id === f.id)?.passes).toBe(false);
+  });
+
+  test.prop([sectionArb, loadArb], { numRuns: 300 })('two firstFailureAmong calls covering every check give checkGirder\'s verdict exactly', (r, l) => {
+    const s = sectionOf(r);
+    const e = effectsOf(l.L, l.w, l.P, l.sag);
+    const o = defaultOptions(l.L, { restraint: { kind: 'at', at: [0, l.L / 2, l.L] } });
+    // the split the search uses: checks that do not read the stiffeners, then the rest
+    const first = inJudgeOrder(['deflection', 'lateral-torsional-buckling', 'bending', 'shear', 'flange-induced-buckling', 'web-flange-weld', 'classification']);
+    const rest = inJudgeOrder(CHECK_ORDER.filter((id) => !first.includes(id)));
+    const a: Judged = { results: [] };
+    const b: Judged = { results: [] };
+    const v = checkGirder(s, e, o);
+    const fa = firstFailureAmong(s, e, o, first, a);
+    const fb = fa ? null : firstFailureAmong(s, e, o, rest, b);
+    expect(fa === null && fb === null).toBe(v.passes);
+    if (v.passes) expect(assembleVerdict([...a.results, ...b.results], b.bearing!, b.bearingSized!)).toEqual(v);
   });
 
   test.prop([sectionArb, loadArb], { numRuns: 300 })('patchUtilisation equals the patch-loading check', (r, l) => {

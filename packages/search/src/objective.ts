@@ -72,10 +72,16 @@ export interface WebParts {
 }
 
 export function webParts(w: WebConfig, L: number, supports: readonly number[], Lmax: number): WebParts {
+  const count = w.panels === 0 || !w.flat ? 0 : panelsOf(supports, Lmax / w.panels).stiffenerXs.length;
+  return webPartsWith(w, L, count, Lmax);
+}
+
+/** webParts with the number of intermediate stiffener positions already known (the same on every web of a space). */
+export function webPartsWith(w: WebConfig, L: number, count: number, Lmax: number): WebParts {
   const webMass = w.hw * w.tw * L * KG_PER_MM3;
   if (w.panels === 0 || !w.flat) return { webMass, stiffMass: 0, stiffCount: 0, a: null };
   const a = Lmax / w.panels;
-  const n = panelsOf(supports, a).stiffenerXs.length;
+  const n = count;
   return { webMass, stiffMass: n * w.sides * w.flat.b * w.flat.t * w.hw * KG_PER_MM3, stiffCount: n * w.sides, a };
 }
 

@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import { availableParallelism } from 'node:os';
 import { Piscina } from 'piscina';
 import { prepareSearch } from './core.js';
@@ -6,6 +7,7 @@ import { assertSpace, spaceSize } from './space.js';
 import { problemOf, type SearchTask } from './task.js';
 import type { SliceResult } from './core.js';
 import type { WorkerMessage } from './worker.js';
+import { createSharedStairs, depthGrid } from './shared-bound.js';
 
 /**
  * The worker pool for searches: created once per process and reused. Runs from TypeScript
@@ -38,27 +40,35 @@ export async function pingPool(pool: SearchPool, signal?: AbortSignal): Promise<
 }
 
 /**
- * The exact search on the pool: the web configurations are cut into contiguous slices (a few per
- * thread, for balance), each worker returns its slice's exact front, and the fronts are merged.
+ * The exact search on the pool: the web plates are dealt round-robin into one slice per thread
+ * (each slice holds every stiffener layout of its plates, which share checks), each worker returns
+ * its slice's exact front, and the fronts are merged. While they run the workers share a staircase
+ * of feasible values by depth (shared-bound.ts) so that one worker's light sections prune the
+ * others' nodes at once.
  */
 export async function searchOnPool(pool: SearchPool, task: SearchTask, signal?: AbortSignal, onSlice?: (done: number, total: number) => void): Promise<SearchResult> {
   const t0 = performance.now();
   assertSpace(task.space);
   const prep = prepareSearch(problemOf(task));
   const n = prep.webs.length;
-  // contiguous runs of the web list keep the layouts of one web plate together (they share
-  // failures of layout-free checks); several slices per thread let the pool balance the load
-  const nSlices = Math.max(1, Math.min(n, pool.threads * 6));
-  const slices: number[][] = [];
-  for (let k = 0; k < nSlices; k++) {
-    const a = Math.floor((k * n) / nSlices);
-    const b = Math.floor(((k + 1) * n) / nSlices);
-    if (b > a) slices.push(Array.from({ length: b - a }, (_, i) => a + i));
-  }
+  const plates: number[][] = [];
+  let last = '';
+  prep.webs.forEach((w, i) => {
+    const k = `${w.grade}|${w.hw}|${w.tw}`;
+    if (k !== last) plates.push([]);
+    last = k;
+    plates[plates.length - 1]!.push(i);
+  });
+  // one slice per thread (more slices explore more before the shared staircase prunes them: measured slower)
+  const nSlices = Math.max(1, Math.min(plates.length, pool.threads));
+  const slices: number[][] = Array.from({ length: nSlices }, () => []);
+  plates.forEach((pl, i) => slices[i % nSlices]!.push(...pl));
+  const shared = createSharedStairs(depthGrid(prep));
+  const searchId = randomUUID();
   let done = 0;
   const results = await Promise.all(
     slices.map((webIdx) =>
-      (pool.piscina.run({ kind: 'slice', task, webIdx } satisfies WorkerMessage, signal ? { signal } : {}) as Promise<SliceResult>).then((r) => {
+      (pool.piscina.run({ kind: 'slice', task, webIdx, shared, searchId } satisfies WorkerMessage, signal ? { signal } : {}) as Promise<SliceResult>).then((r) => {
         onSlice?.(++done, slices.length);
         return r;
       }),

@@ -1,5 +1,7 @@
-import { prepareSearch, searchSlice, type SliceResult } from './core.js';
+import { prepareSearch, type Prepared, type SliceResult } from './core.js';
+import { searchSlice } from './best-first.js';
 import { problemOf, type SearchTask } from './task.js';
+import { SharedStairs, type SharedStairsData } from './shared-bound.js';
 
 /**
  * Worker-thread entry (piscina): a plain message in, a plain SliceResult out. Domain failures
@@ -9,6 +11,10 @@ export interface SliceMessage {
   kind: 'slice';
   task: SearchTask;
   webIdx: number[];
+  /** the staircase shared by the workers of one search (absent: this slice prunes on its own) */
+  shared?: SharedStairsData;
+  /** the same for every slice of one search: lets a worker prepare the search once */
+  searchId?: string;
 }
 
 export interface PingMessage {
@@ -29,6 +35,18 @@ export default function run(msg: WorkerMessage): SliceResult | 'pong' {
     if (msg.how === 'exit') process.exit(3);
     throw new Error('deliberate worker failure');
   }
-  const prep = prepareSearch(problemOf(msg.task));
-  return searchSlice(prep, msg.webIdx);
+  return searchSlice(preparedFor(msg), msg.webIdx, undefined, msg.shared ? new SharedStairs(msg.shared) : undefined);
+}
+
+/** The last searches prepared in this worker (a search's slices all carry its id). */
+const prepared = new Map<string, Prepared>();
+function preparedFor(msg: SliceMessage): Prepared {
+  if (msg.searchId === undefined) return prepareSearch(problemOf(msg.task));
+  let hit = prepared.get(msg.searchId);
+  if (!hit) {
+    hit = prepareSearch(problemOf(msg.task));
+    prepared.set(msg.searchId, hit);
+    while (prepared.size > 2) prepared.delete(prepared.keys().next().value!);
+  }
+  return hit;
 }

@@ -21,6 +21,7 @@ const spaceArb = fc.record({
   symmetric: fc.boolean(),
   panels: pick([0, 2, 3, 5]),
   flats: fc.subarray([...FLAT_BARS].slice(0, 6), { minLength: 1, maxLength: 2 }),
+  sides: fc.subarray([1, 2] as const, { minLength: 1 }),
   endPosts: fc.subarray(['rigid', 'non-rigid'] as const, { minLength: 1 }),
   flangeGrades: fc.subarray(['S275', 'S355'] as GradeName[], { minLength: 1 }),
   maxDepth: fc.constantFrom(Infinity, 1200, 1400),
@@ -49,7 +50,7 @@ describe('search = brute force', () => {
       symmetric: space.symmetric,
       panels: space.panels,
       flats: space.flats,
-      sides: [2],
+      sides: [...space.sides],
       endPosts: [...space.endPosts],
       webGrades: ['S355'],
       flangeGrades: space.flangeGrades,
@@ -90,7 +91,7 @@ describe('search = brute force, with loads analysed by the actions package (poin
     });
     const sp: SpaceSpec = {
       hw: space.hw, tw: space.tw, bf: space.bf, tf: space.tf, symmetric: space.symmetric, panels: space.panels, flats: space.flats,
-      sides: [2], endPosts: [...space.endPosts], webGrades: ['S355'], flangeGrades: space.flangeGrades, minDepth: 0, maxDepth: space.maxDepth, rules: {},
+      sides: [...space.sides], endPosts: [...space.endPosts], webGrades: ['S355'], flangeGrades: space.flangeGrades, minDepth: 0, maxDepth: space.maxDepth, rules: {},
     };
     const supports = [0, ...spans.map((_, i) => spans.slice(0, i + 1).reduce((s, x) => s + x, 0))];
     const options = defaultOptions(L, { supports, restraint: { kind: 'at', at: [0, L / 2, L] } });

@@ -1,0 +1,753 @@
+import {
+  assembleVerdict,
+  CHECK_ORDER,
+  checkGirder,
+  flatTorsion,
+  firstFailureAmong,
+  flangeOutstand,
+  grossProps,
+  inJudgeOrder,
+  iyOfPlates,
+  lightestFittingBearing,
+  material,
+  maxCompressionFlangeAreaFIB,
+  minFlangeForceForBending,
+  minIyForDeflection,
+  minIyForDeflectionAt,
+  panelsOf,
+  patchBendingFloor,
+  patchUtilisation,
+  resolveBearing,
+  webShearCapacityBound,
+  type CheckResult,
+  type EndPost,
+  type Effects,
+  type Judged,
+  type Section,
+} from '@platesmith/checks';
+import { fy, STEEL_DENSITY } from '@platesmith/catalogue';
+import {
+  better,
+  G_ACC,
+  priceCost,
+  selfWeightOf,
+  settle,
+  type BearingFlat,
+  type CandidateKey,
+  type Evaluated,
+  type Prepared,
+  type PruneStats,
+  type SliceResult,
+} from './core.js';
+import { bearingPairs, buildSection, C2, flangeMass, webPartsWith, type WebParts } from './objective.js';
+import type { FlangeOption, WebConfig } from './space.js';
+
+const KG_PER_MM3 = STEEL_DENSITY * 1e-9;
+
+/**
+ * Checks that read nothing of the intermediate stiffeners, the end post or the bearing
+ * stiffeners: judged once per set of plates (web plate and flanges). With the self-weight
+ * convention of selfWeightOf every stiffener layout of those plates has the same effects, so the
+ * verdict of these checks is the same for all of them.
+ */
+const PLATE_IDS = inJudgeOrder(['deflection', 'lateral-torsional-buckling', 'bending', 'shear', 'flange-induced-buckling', 'web-flange-weld', 'classification']);
+/** The other checks: judged per stiffener layout. PLATE_IDS and LAYOUT_IDS together are CHECK_ORDER. */
+const LAYOUT_IDS = (() => {
+  // stiffener stiffness first: cheap, and its failure is shared by every flange on the web
+  const rest = inJudgeOrder(CHECK_ORDER.filter((id) => !PLATE_IDS.includes(id) && id !== 'stiffener-stiffness'));
+  return ['stiffener-stiffness' as const, ...rest];
+})();
+/**
+ * Layout checks that read the panel layout (stiffener positions, end-post type) but not the flats
+ * (EN 1993-1-5 5.2–5.5 with Table 5.1, 6, 7.1, 7.2): a failure fails every flat and every number
+ * of sides with the same panels and end post, on the same plates.
+ */
+const PANEL_ONLY: ReadonlySet<string> = new Set(['shear-buckling', 'bending-shear', 'patch-loading', 'patch-bending']);
+
+/**
+ * A failed check whose inputs are the web and its intermediate stiffeners only fails every flange
+ * on that web: stiffener stiffness (EN 1993-1-5 9.3.3(3): a, hw, tw, the flats and 15εtw of web)
+ * and the torsional requirement of the intermediate flats (9.2.1(8)). The torsion of the bearing
+ * flats is not web-only: they are sized to fit the flanges.
+ */
+function failsWebOnly(c: CheckResult): boolean {
+  return !c.passes && (c.id === 'stiffener-stiffness' || (c.id === 'stiffener-torsion' && c.values['stiffener'] === 'intermediate'));
+}
+
+/** One web plate (grade, hw, tw) with all its stiffener layouts and end posts in the slice. */
+interface Plate {
+  w: WebConfig;
+  layouts: number[];
+  parts: WebParts[];
+  webMass: number;
+  /** least (intermediate stiffeners + bearing flats) kg over the layouts, with the least bearing any sizing returns */
+  minLayoutKg: number;
+  /** per end post: least intermediate-stiffener kg over its layouts */
+  minStiff: Map<EndPost, number>;
+  panelCounts: number[];
+  Mneed: number;
+  IyReq: number;
+  fibTop: number;
+  fibBot: number;
+  /** patch-loading utilisation per (top flange option, panel count) */
+  patch: Map<number, number>;
+  fit: Map<number, BearingFlat | null>;
+  /** layouts in ascending order of their own kg (stiffeners and least bearing flats), per bearing floor */
+  orders: Map<string, { order: Int32Array; add: Float64Array }>;
+}
+
+/** One set of plates (web plate, top and bottom flange): its layouts are judged from here. */
+interface Plates {
+  plate: Plate;
+  ti: number;
+  bi: number;
+  T: FlangeOption;
+  B: FlangeOption;
+  d: number;
+  g: number;
+  fit: BearingFlat | null;
+  /** panel counts whose patch-loading bounds pass */
+  okPanels: Set<number>;
+  effects?: Effects;
+  /** the results of the layout-free checks (all passed) */
+  plateResults?: Judged['results'];
+  order?: Int32Array;
+  lbs?: Float64Array;
+  k: number;
+  layoutCalls: number;
+  panelDead: Set<string>;
+}
+
+interface Pairs {
+  ti: Int32Array;
+  bi: Int32Array;
+  kg: Float64Array;
+}
+
+type Node =
+  | { kind: 0; lb: number; seq: number; plate: Plate; pairs: Pairs; k: number; d: number; Freq: number; fibT: number; fibB: number }
+  | { kind: 1; lb: number; seq: number; ps: Plates }
+  | { kind: 2; lb: number; seq: number; ps: Plates };
+
+/** A binary min-heap on (lb, seq). */
+class Heap {
+  private a: Node[] = [];
+  get size(): number {
+    return this.a.length;
+  }
+  peekLb(): number {
+    return this.a.length ? this.a[0]!.lb : Infinity;
+  }
+  push(n: Node): void {
+    const a = this.a;
+    a.push(n);
+    let i = a.length - 1;
+    while (i > 0) {
+      const p = (i - 1) >> 1;
+      if (!less(a[i]!, a[p]!)) break;
+      [a[i], a[p]] = [a[p]!, a[i]!];
+      i = p;
+    }
+  }
+  pop(): Node | undefined {
+    const a = this.a;
+    if (a.length === 0) return undefined;
+    const top = a[0]!;
+    const last = a.pop()!;
+    if (a.length > 0) {
+      a[0] = last;
+      let i = 0;
+      for (;;) {
+        const l = 2 * i + 1;
+        const r = l + 1;
+        let m = i;
+        if (l < a.length && less(a[l]!, a[m]!)) m = l;
+        if (r < a.length && less(a[r]!, a[m]!)) m = r;
+        if (m === i) break;
+        [a[i], a[m]] = [a[m]!, a[i]!];
+        i = m;
+      }
+    }
+    return top;
+  }
+}
+function less(x: Node, y: Node): boolean {
+  return x.lb < y.lb || (x.lb === y.lb && x.seq < y.seq);
+}
+
+interface Miss {
+  key: CandidateKey;
+  section: Section;
+  depth: number;
+  g: number;
+  lb: number;
+}
+
+/**
+ * A value below which no feasible candidate of `slice` lies, known from elsewhere (other workers'
+ * feasible points): `bestAt(d)` is a value some feasible candidate at depth ≤ d has. Used for
+ * strict pruning only (lb > bestAt(d)), so sharing it never changes the answer.
+ */
+export interface OuterBound {
+  bestAt(d: number): number;
+  offer(d: number, value: number): void;
+}
+
+/**
+ * Exact search over the web configurations `webIdx` (a slice of prep.webs): the Pareto set of
+ * overall depth against the objective, for that slice.
+ *
+ * Best first: every candidate belongs to a node whose lower bound on the objective is known — a
+ * run of flange pairs on one web plate (ascending plate mass), one set of plates, or the stiffener
+ * layouts of one set of plates (ascending lower bound) — and the node of least bound is expanded
+ * next. A node is dropped when the staircase of feasible points already found has, at its depth or
+ * shallower, a value its bound cannot beat: nothing in it is on the Pareto set. The checks that do
+ * not read the stiffener layout are judged once per set of plates; the rest once per layout, with
+ * failures that only depend on the panels, or only on the web and its stiffeners, shared.
+ * Bounds from the check library (shear, bending, flange-induced buckling, deflection, patch
+ * loading) exclude candidates that every passing section would satisfy.
+ */
+export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: { aborted: boolean }, outer?: OuterBound): SliceResult {
+  const { p, webs, groups, flanges, groupStart, L, Lmax, supports } = prep;
+  const o = p.options;
+  const sp = p.space;
+  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, patchBending: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 };
+  let fullEvaluations = 0;
+  let spaceSize = 0;
+  const minThroat = Math.min(...o.weldThroats);
+  // the throat settle() falls back on, as the brute-force reference passes it
+  const throat0 = o.weldThroats[0]!;
+  const failedBy: Record<string, number> = {};
+  const isMass = p.objective === 'mass';
+
+  // staircase of feasible points found so far: depth ascending, value strictly descending
+  const stairs: Evaluated[] = [];
+  const prunes = (d: number, lb: number): boolean => {
+    for (const s of stairs) {
+      if (s.depth > d) break;
+      if (s.value < lb) return true;
+      if (s.value === lb && s.depth < d) return true;
+    }
+    return outer !== undefined && outer.bestAt(d) < lb;
+  };
+  const admit = (e: Evaluated): void => {
+    outer?.offer(e.depth, e.value);
+    for (let i = stairs.length - 1; i >= 0; i--) {
+      const s = stairs[i]!;
+      const dominated = s.depth >= e.depth && (e.value < s.value || (e.value === s.value && (e.depth < s.depth || better(e.value, e.key, s.value, s.key))));
+      if (dominated) stairs.splice(i, 1);
+    }
+    for (const s of stairs) {
+      if (s.depth <= e.depth && (s.value < e.value || (s.value === e.value && (s.depth < e.depth || better(s.value, s.key, e.value, e.key))))) return;
+    }
+    let i = 0;
+    while (i < stairs.length && stairs[i]!.depth < e.depth) i++;
+    stairs.splice(i, 0, e);
+  };
+  // failed candidates kept for the nearest-miss report: the heaviest (closest to passing, as a rule)
+  const misses: Miss[] = [];
+  const keepMiss = (m: Miss): void => {
+    if (misses.length < 24) misses.push(m);
+    else {
+      let i = 0;
+      for (let j = 1; j < misses.length; j++) if (misses[j]!.lb < misses[i]!.lb) i = j;
+      if (m.lb > misses[i]!.lb) misses[i] = m;
+    }
+  };
+
+  // the objective's floor for a candidate of at least `kg` (exact for mass; for cost see costFloor)
+  const cm = p.cost;
+  const gradeMin = Math.min(...[...sp.webGrades, ...sp.flangeGrades].map((g) => cm.gradeFactor[g]));
+  const rateMin = cm.km * gradeMin * Math.min(1, cm.thickFactor);
+  const weldFloorMin = 1.3 * C2[cm.flangeWeld] * minThroat * minThroat * 4 * L;
+  const paint = cm.painted ? cm.thetaSp * 3e-6 + cm.thetaP * (3e-6 + 4.15e-6) : 0;
+  /**
+   * A lower bound on the Farkas–Jármai cost of any candidate of at least `kg` whose painted surface
+   * is at least `As` (mm²): every rate at its least, κ ≥ 3 parts, the flange welds at the least
+   * throat, no stiffener welds (each term of costOf is non-decreasing in what is dropped).
+   */
+  const floorOf = (kg0: number, As: number): number => {
+    // summed in another order than the exact value: lowered by a hair so that it is never above it
+    const kg = kg0 * (1 - 1e-12);
+    return isMass ? kg : rateMin * kg + cm.kfOverKm * cm.km * (cm.thetaD * Math.sqrt(3 * kg) + weldFloorMin + paint * As);
+  };
+
+  const tfSorted = [...new Set(groups.map((g) => g.t))].sort((x, y) => x - y);
+  const tfMin = tfSorted[0] ?? 0;
+  const tfMax = tfSorted[tfSorted.length - 1] ?? 0;
+  const gMax = maxMassPerLength(prep) * G_ACC;
+  const nFlange = flanges.length;
+  const kFibMax = o.kFib === 'auto' ? 0.55 : o.kFib;
+  let lightestFlange = Infinity;
+  for (const f of flanges) lightestFlange = Math.min(lightestFlange, flangeMass(f, L));
+  const fyfMax = Math.max(...groups.map((g) => g.fy));
+  let minStockBearing = Infinity;
+  for (const f of o.bearingFlats) minStockBearing = Math.min(minStockBearing, f.b * f.t);
+  let minFlatArea = Infinity;
+  for (const f of sp.flats) minFlatArea = Math.min(minFlatArea, f.b * f.t);
+  /** the least bearing-flat area (mm²) the sizing can return on a web of thickness tw (a stock flat, or a default of resolveBearing) */
+  const bearingAreaFloor = (tw: number): number => {
+    let a = Math.min(minStockBearing, 40 * tw);
+    for (const f of sp.flats) a = Math.min(a, f.b * Math.max(f.t, tw));
+    return a;
+  };
+  const bearingFlatCount = (ep: EndPost): number => bearingPairs(ep, supports) * 2;
+  const flangeForce = (w: WebConfig, MEd: number, hMax: number, tfTop: number, fyf: number) =>
+    minFlangeForceForBending({ hw: w.hw, tw: w.tw, fyw: w.fyw, MEd, gammaM0: o.factors.gammaM0, hMax, symmetric: sp.symmetric, tfMax: tfTop, fyfMax: fyf });
+
+  // stiffener counts and web panels per number of panels (the same on every web)
+  const stiffCount = new Map<number, number>();
+  const panelsByCount = new Map<number, { x0: number; x1: number; a: number }[]>();
+  for (const n of new Set(sp.panels)) {
+    const r = panelsOf(supports, n > 0 ? Lmax / n : null);
+    stiffCount.set(n, n > 0 ? r.stiffenerXs.length : 0);
+    panelsByCount.set(n, r.panels);
+  }
+
+  // demand bounds valid for every candidate of the slice: self-weight from the lightest web plate
+  // and the two lightest flanges up to the heaviest conceivable girder
+  let lightestWebKg = Infinity;
+  for (const wi of webIdx) lightestWebKg = Math.min(lightestWebKg, webs[wi]!.hw * webs[wi]!.tw * L * KG_PER_MM3);
+  const gLoAll = ((lightestWebKg + 2 * lightestFlange) * G_ACC) / L;
+  const dem = p.load.demandLowerBound(gLoAll, gMax);
+  const deflFloor = p.load.deflectionFloor(gLoAll, gMax);
+  // concentrated forces do not depend on the self-weight: the patch-loading bound is exact here
+  const forces = p.load.effects(gLoAll).forces;
+  const sagAtForces = forces.length && p.load.sagFloorAt ? p.load.sagFloorAt(forces.map((f) => f.x), gLoAll, gMax) : [];
+  const anySag = sagAtForces.some((m) => m > 0);
+  const Mneed = Math.max(dem.Msag, dem.Mhog);
+
+  // web plates: the layouts of each (grade, hw, tw) in the slice
+  const byPlate = new Map<string, number[]>();
+  for (const wi of webIdx) {
+    const w = webs[wi]!;
+    const k = `${w.grade}|${w.hw}|${w.tw}`;
+    const l = byPlate.get(k);
+    if (l) l.push(wi);
+    else byPlate.set(k, [wi]);
+  }
+
+  const heap = new Heap();
+  const webDead = new Set<number>();
+  let seq = 0;
+  const pairCache = new Map<number, Pairs>();
+  const pairsOf = (gt: number, gb: number): Pairs => {
+    const key = gt * groups.length + gb;
+    let hit = pairCache.get(key);
+    if (!hit) {
+      const t0 = groupStart[gt]!;
+      const b0 = groupStart[gb]!;
+      const nt = groups[gt]!.options.length;
+      const nb = groups[gb]!.options.length;
+      const list: { ti: number; bi: number; kg: number }[] = [];
+      if (sp.symmetric) for (let i = 0; i < nt; i++) list.push({ ti: t0 + i, bi: t0 + i, kg: flangeMass(flanges[t0 + i]!, L) + flangeMass(flanges[t0 + i]!, L) });
+      else for (let i = 0; i < nt; i++) for (let j = 0; j < nb; j++) list.push({ ti: t0 + i, bi: b0 + j, kg: flangeMass(flanges[t0 + i]!, L) + flangeMass(flanges[b0 + j]!, L) });
+      list.sort((x, y) => x.kg - y.kg || x.ti - y.ti || x.bi - y.bi);
+      hit = { ti: Int32Array.from(list, (x) => x.ti), bi: Int32Array.from(list, (x) => x.bi), kg: Float64Array.from(list, (x) => x.kg) };
+      pairCache.set(key, hit);
+    }
+    return hit;
+  };
+  const groupPairs = sp.symmetric ? groups.map((_, i) => [i, i] as const) : groups.flatMap((_, i) => groups.map((__, j) => [i, j] as const));
+  const pairsPerWeb = sp.symmetric ? nFlange : nFlange * nFlange;
+
+  for (const layouts of byPlate.values()) {
+    const w = webs[layouts[0]!]!;
+    const nL = layouts.length;
+    const total = pairsPerWeb * nL;
+    spaceSize += total;
+    if (w.hw + 2 * tfMin > sp.maxDepth) {
+      pruned.depth += total;
+      continue;
+    }
+    if (webShearCapacityBound(w.hw, w.tw, w.fyw, o.eta, o.factors.gammaM0, o.factors.gammaM1) < dem.V) {
+      pruned.shear += total;
+      continue;
+    }
+    const IyReq = minIyForDeflection(deflFloor, w.hw * w.tw, o.E, o.G);
+    if (IyReq === Infinity) {
+      pruned.deflection += total;
+      continue;
+    }
+    const minStiff = new Map<EndPost, number>();
+    for (const wi of layouts) {
+      const lw = webs[wi]!;
+      // the intermediate stiffeners' kg, as webPartsWith computes it
+      const kg = lw.panels === 0 || !lw.flat ? 0 : (stiffCount.get(lw.panels) ?? 0) * lw.sides * lw.flat.b * lw.flat.t * lw.hw * KG_PER_MM3;
+      minStiff.set(lw.endPost, Math.min(minStiff.get(lw.endPost) ?? Infinity, kg));
+    }
+    const aFloor = bearingAreaFloor(w.tw);
+    let minLayoutKg = Infinity;
+    for (const [ep, s] of minStiff) minLayoutKg = Math.min(minLayoutKg, s + bearingFlatCount(ep) * aFloor * w.hw * KG_PER_MM3);
+    const fib = (always: boolean) => (always ? maxCompressionFlangeAreaFIB({ hw: w.hw, tw: w.tw, fyfMin: 1, k: kFibMax, E: o.E }) : Infinity);
+    const plate: Plate = {
+      w,
+      layouts,
+      parts: [],
+      webMass: w.hw * w.tw * L * KG_PER_MM3,
+      minLayoutKg,
+      minStiff,
+      panelCounts: [...new Set(layouts.map((wi) => webs[wi]!.panels))],
+      Mneed,
+      IyReq,
+      fibTop: fib(dem.sagAlways),
+      fibBot: fib(dem.hogAlways),
+      patch: new Map(),
+      fit: new Map(),
+      orders: new Map(),
+    };
+    for (const [gt, gb] of groupPairs) {
+      const GT = groups[gt]!;
+      const GB = groups[gb]!;
+      const nPairs = (sp.symmetric ? GT.options.length : GT.options.length * GB.options.length) * nL;
+      const d = w.hw + GT.t + GB.t;
+      if (d < sp.minDepth || d > sp.maxDepth) {
+        pruned.depth += nPairs;
+        continue;
+      }
+      const r = sp.rules;
+      if (r.tfMaxOverTw !== undefined && (GT.t > r.tfMaxOverTw * w.tw || GB.t > r.tfMaxOverTw * w.tw)) {
+        pruned.rules += nPairs;
+        continue;
+      }
+      const Freq = flangeForce(w, Mneed, d, Math.max(GT.t, GB.t), Math.max(GT.fy, GB.fy));
+      // the widest flanges of the group: if even they miss the bending or the deflection bound, all do
+      const Tw = GT.options[GT.options.length - 1]!;
+      const Bw = GB.options[GB.options.length - 1]!;
+      if (Tw.A * Tw.fy + Bw.A * Bw.fy < Freq) {
+        pruned.bending += nPairs;
+        continue;
+      }
+      if (IyReq > 0 && iyOfPlates(w.hw, w.tw, Tw.b, Tw.t, Bw.b, Bw.t) * (1 + 1e-9) < IyReq) {
+        pruned.deflection += nPairs;
+        continue;
+      }
+      const pairs = pairsOf(gt, gb);
+      let k = 0;
+      if (sp.symmetric) {
+        // widths ascending: area, force and Iy all grow with the width, so the options below the
+        // bending and deflection bounds are a prefix, found by bisection
+        const iB = firstByForce(GT.options, Freq);
+        const iD = IyReq > 0 ? firstByIy(GT.options, w.hw, w.tw, IyReq) : 0;
+        pruned.bending += Math.min(iB, pairs.kg.length) * nL;
+        pruned.deflection += Math.max(0, Math.min(iD, pairs.kg.length) - Math.min(iB, pairs.kg.length)) * nL;
+        k = Math.min(Math.max(iB, iD), pairs.kg.length);
+      }
+      if (k >= pairs.kg.length) continue;
+      // flange area: at least the lightest remaining pair, and at least what the bending bound needs
+      const kgFloor = Math.max(pairs.kg[k]!, ((Freq / Math.max(GT.fy, GB.fy)) * L * KG_PER_MM3));
+      const lb = floorOf(plate.webMass + kgFloor + minLayoutKg, 0);
+      const fibT = plate.fibTop === Infinity ? Infinity : plate.fibTop / (GT.fy * GT.fy);
+      const fibB = plate.fibBot === Infinity ? Infinity : plate.fibBot / (GB.fy * GB.fy);
+      heap.push({ kind: 0, lb, seq: seq++, plate, pairs, k, d, Freq, fibT, fibB });
+    }
+  }
+
+  /** The per-layout quantities of a plate, made when the plate is first expanded (most never are). */
+  const ensureParts = (plate: Plate): WebParts[] => {
+    if (plate.parts.length === 0) {
+      plate.parts = plate.layouts.map((wi) => webPartsWith(webs[wi]!, L, stiffCount.get(webs[wi]!.panels) ?? 0, Lmax));
+      // the torsional requirement of intermediate flats (EN 1993-1-5 9.2.1(8)) reads the flat alone
+      for (const wi of plate.layouts) {
+        const lw = webs[wi]!;
+        if (!lw.flat || lw.panels === 0) continue;
+        const t = flatTorsion(lw.flat.b, lw.flat.t, fy(lw.grade, lw.flat.t, prep.fySource), o.E);
+        if (t.limit / t.ItOverIp > 1 + 1e-9) webDead.add(wi);
+      }
+    }
+    return plate.parts;
+  };
+  const patchOf = (plate: Plate, ti: number, n: number): number => {
+    const key = ti * 1024 + n;
+    let u = plate.patch.get(key);
+    if (u === undefined) {
+      u = patchUtilisation(forces, plate.w, flanges[ti]!, panelsByCount.get(n)!, o.E, o.factors.gammaM1);
+      plate.patch.set(key, u);
+    }
+    return u;
+  };
+  const fitOf = (plate: Plate, minB: number): BearingFlat | null => {
+    let hit = plate.fit.get(minB);
+    if (hit === undefined) {
+      const f = lightestFittingBearing(o.bearingFlats, minB, plate.w.tw);
+      hit = f ? { bs: f.b, ts: f.t } : null;
+      plate.fit.set(minB, hit);
+    }
+    return hit;
+  };
+  /** the least bearing flats a layout's sizing can return: the lightest stock flat that fits, or the section's default */
+  const bearingFloorOf = (ps: Plates, j: number): BearingFlat => {
+    if (ps.fit) return ps.fit;
+    const w = webs[ps.plate.layouts[j]!]!;
+    const s = buildSection(w, ps.plate.parts[j]!, ps.T, ps.B);
+    const d = resolveBearing(s, fy(s.grade.stiffener, s.stiffeners?.ts ?? s.tw, prep.fySource));
+    return { bs: d.bs, ts: d.ts };
+  };
+  const surfaceOf = (w: WebConfig, T: FlangeOption, B: FlangeOption): number => L * (T.b + (T.b - w.tw) + 2 * T.t + B.b + (B.b - w.tw) + 2 * B.t + 2 * w.hw);
+
+  /** Next flange pairs of a run: cheap bounds, then a node for the first set of plates they leave. */
+  const advancePairs = (c: Extract<Node, { kind: 0 }>): void => {
+    const { plate, pairs, d, Freq, fibT, fibB } = c;
+    ensureParts(plate);
+    const w = plate.w;
+    const nL = plate.layouts.length;
+    const n = pairs.kg.length;
+    while (c.k < n) {
+      const kg = plate.webMass + pairs.kg[c.k]!;
+      const floor = floorOf(kg + plate.minLayoutKg, 0);
+      if (prunes(d, floor)) {
+        pruned.incumbent += (n - c.k) * nL;
+        return;
+      }
+      if (floor > heap.peekLb()) {
+        c.lb = floor;
+        heap.push(c);
+        return;
+      }
+      const ti = pairs.ti[c.k]!;
+      const bi = pairs.bi[c.k]!;
+      c.k++;
+      const T = flanges[ti]!;
+      const B = flanges[bi]!;
+      if (T.A * T.fy + B.A * B.fy < Freq) {
+        pruned.bending += nL;
+        continue;
+      }
+      if (!fibOk(T, fibT, w.tw, throat0) || !fibOk(B, fibB, w.tw, throat0)) {
+        pruned.flangeInducedBuckling += nL;
+        continue;
+      }
+      const Iy = iyOfPlates(w.hw, w.tw, T.b, T.t, B.b, B.t) * (1 + 1e-9);
+      if (plate.IyReq > 0 && Iy < plate.IyReq) {
+        pruned.deflection += nL;
+        continue;
+      }
+      const g = selfWeightOf(prep, w, T, B);
+      // the deflection bound again, at these plates' own self-weight
+      const da = p.load.deflectionAffine;
+      if (da && Iy < minIyForDeflectionAt(g, da.bA, da.bB, da.sA, da.sB, da.limit, w.hw * w.tw, o.E, o.G)) {
+        pruned.deflection += nL;
+        continue;
+      }
+      // patch loading reads the web, the top flange and the panels: some panel count must pass it
+      const okPanels = new Set<number>();
+      let patchFails = false;
+      if (forces.length > 0) {
+        let MelRd = 0;
+        for (const np of plate.panelCounts) {
+          if (patchOf(plate, ti, np) > 1 + 1e-9) {
+            patchFails = true;
+            continue;
+          }
+          if (anySag) {
+            if (MelRd === 0) {
+              const s = buildSection(w, plate.parts[0]!, T, B);
+              MelRd = grossProps(s, material(s, o)).Mel / o.factors.gammaM0;
+            }
+            if (patchBendingFloor(forces, w, T, panelsByCount.get(np)!, o.E, o.factors.gammaM1, sagAtForces, MelRd) > 1 + 1e-9) continue;
+          }
+          okPanels.add(np);
+        }
+        if (okPanels.size === 0) {
+          if (patchFails) pruned.patchLoading += nL;
+          else pruned.patchBending += nL;
+          continue;
+        }
+      } else for (const np of plate.panelCounts) okPanels.add(np);
+      const fit = fitOf(plate, Math.min(T.b, B.b));
+      let layoutKg = Infinity;
+      if (fit) {
+        for (const [ep, s] of plate.minStiff) layoutKg = Math.min(layoutKg, s + bearingFlatCount(ep) * fit.bs * fit.ts * w.hw * KG_PER_MM3);
+      } else layoutKg = plate.minLayoutKg;
+      const lb = floorOf(kg + layoutKg, surfaceOf(w, T, B));
+      if (prunes(d, lb)) {
+        pruned.incumbent += nL;
+        continue;
+      }
+      const ps: Plates = { plate, ti, bi, T, B, d, g, fit, okPanels, k: 0, layoutCalls: 0, panelDead: new Set() };
+      heap.push({ kind: 1, lb, seq: seq++, ps });
+    }
+  };
+
+  /** The checks that do not read the layout, once for these plates; then their layouts, best first. */
+  const judgePlates = (nd: Extract<Node, { kind: 1 }>): void => {
+    const { ps } = nd;
+    const { plate, T, B, d } = ps;
+    const nL = plate.layouts.length;
+    if (prunes(d, nd.lb)) {
+      pruned.incumbent += nL;
+      return;
+    }
+    const effects = p.load.effects(ps.g);
+    const section = buildSection(webs[plate.layouts[0]!]!, plate.parts[0]!, T, B);
+    const judged: Judged = { results: [] };
+    const fail = firstFailureAmong(section, effects, o, PLATE_IDS, judged);
+    fullEvaluations++;
+    if (fail) {
+      failedBy[fail.id] = (failedBy[fail.id] ?? 0) + 1;
+      pruned.sameFlanges += nL - 1;
+      keepMiss({ key: [plate.layouts[0]!, ps.ti, ps.bi], section, depth: d, g: ps.g, lb: nd.lb });
+      return;
+    }
+    ps.effects = effects;
+    ps.plateResults = judged.results;
+    const lbs = new Float64Array(nL);
+    const kgPlates = flangeMass(T, L) + flangeMass(B, L);
+    let order: Int32Array;
+    if (isMass) {
+      // the order of the layouts depends on the plates only through the bearing floor: cached
+      const minB = Math.min(T.b, B.b);
+      const key = ps.fit ? `${ps.fit.bs}x${ps.fit.ts}` : `none:${minB}`;
+      let hit = plate.orders.get(key);
+      if (!hit) {
+        const add = new Float64Array(nL);
+        for (let j = 0; j < nL; j++) {
+          const w = webs[plate.layouts[j]!]!;
+          const b = bearingFloorOf(ps, j);
+          add[j] = plate.parts[j]!.stiffMass + bearingFlatCount(w.endPost) * b.bs * b.ts * w.hw * KG_PER_MM3;
+        }
+        const idx = Array.from({ length: nL }, (_, j) => j);
+        idx.sort((x, y) => add[x]! - add[y]! || plate.layouts[x]! - plate.layouts[y]!);
+        hit = { order: Int32Array.from(idx), add };
+        plate.orders.set(key, hit);
+      }
+      // a lower bound by a hair (summed in another order than the exact mass): never above it
+      const base = plate.webMass + kgPlates;
+      for (let j = 0; j < nL; j++) lbs[j] = (base + hit.add[j]!) * (1 - 1e-12);
+      order = hit.order;
+    } else {
+      const idx: number[] = [];
+      for (let j = 0; j < nL; j++) {
+        const w = webs[plate.layouts[j]!]!;
+        lbs[j] = priceCost(prep, w, plate.parts[j]!, T, B, bearingFloorOf(ps, j), minThroat);
+        idx.push(j);
+      }
+      idx.sort((x, y) => lbs[x]! - lbs[y]! || plate.layouts[x]! - plate.layouts[y]!);
+      order = Int32Array.from(idx);
+    }
+    ps.order = order;
+    ps.lbs = lbs;
+    if (order.length > 0) heap.push({ kind: 2, lb: lbs[order[0]!]!, seq: seq++, ps });
+  };
+
+  /** The layout checks for the next layouts of a set of plates, in ascending lower bound. */
+  const judgeLayouts = (nd: Extract<Node, { kind: 2 }>): void => {
+    const { ps } = nd;
+    const { plate, T, B, d } = ps;
+    const order = ps.order!;
+    const lbs = ps.lbs!;
+    const effects = ps.effects!;
+    while (ps.k < order.length) {
+      const j = order[ps.k]!;
+      const lb = lbs[j]!;
+      if (prunes(d, lb)) {
+        pruned.incumbent += order.length - ps.k;
+        ps.k = order.length;
+        return;
+      }
+      if (lb > heap.peekLb()) {
+        nd.lb = lb;
+        heap.push(nd);
+        return;
+      }
+      ps.k++;
+      const wi = plate.layouts[j]!;
+      if (webDead.has(wi)) {
+        pruned.webOnly++;
+        continue;
+      }
+      const w = webs[wi]!;
+      if (!ps.okPanels.has(w.panels)) {
+        pruned.patchLoading++;
+        continue;
+      }
+      const panelKey = `${w.panels}|${w.endPost}`;
+      if (ps.panelDead.has(panelKey)) {
+        pruned.sameFlanges++;
+        continue;
+      }
+      const parts = plate.parts[j]!;
+      const section = buildSection(w, parts, T, B);
+      const judged: Judged = { results: [] };
+      const fail = firstFailureAmong(section, effects, o, LAYOUT_IDS, judged);
+      // the first layout judged completes the judgement begun on the plates (counted there)
+      if (ps.layoutCalls++ > 0) fullEvaluations++;
+      const key: CandidateKey = [wi, ps.ti, ps.bi];
+      if (fail === null) {
+        // both parts passed: together they are checkGirder's verdict (a property test keeps them equal)
+        const verdict = assembleVerdict([...ps.plateResults!, ...judged.results], judged.bearing!, judged.bearingSized!);
+        const plates = parts.webMass + parts.stiffMass + (flangeMass(T, L) + flangeMass(B, L));
+        const { mass, value } = settle(prep, w, parts, T, B, plates, verdict, throat0);
+        admit({ key, section: { ...section, bearing: verdict.bearing }, depth: d, mass, value, verdict });
+        continue;
+      }
+      failedBy[fail.id] = (failedBy[fail.id] ?? 0) + 1;
+      keepMiss({ key, section, depth: d, g: ps.g, lb });
+      if (failsWebOnly(fail)) webDead.add(wi);
+      else if (PANEL_ONLY.has(fail.id)) ps.panelDead.add(panelKey);
+    }
+  };
+
+  for (;;) {
+    if (signal?.aborted) break;
+    const nd = heap.pop();
+    if (!nd) break;
+    if (nd.kind === 0) advancePairs(nd);
+    else if (nd.kind === 1) judgePlates(nd);
+    else judgeLayouts(nd);
+  }
+
+  // full results for the nearest misses (only worth it when nothing passed)
+  const nearMisses: Evaluated[] = stairs.length > 0 ? [] : misses
+    .map((mi) => {
+      const verdict = checkGirder(mi.section, p.load.effects(mi.g), o);
+      return { key: mi.key, section: { ...mi.section, bearing: verdict.bearing }, depth: mi.depth, mass: mi.lb, value: mi.lb, verdict };
+    })
+    .sort((x, y) => x.verdict.governing.utilisation - y.verdict.governing.utilisation)
+    .slice(0, 5);
+  return { front: [...stairs], nearMisses, spaceSize, fullEvaluations, pruned, failedBy };
+}
+
+/** An upper bound on the self-weight per length of any candidate, kg/mm (for the demand range). */
+function maxMassPerLength(prep: Prepared): number {
+  const sp = prep.p.space;
+  const hw = Math.max(...sp.hw);
+  const tw = Math.max(...sp.tw);
+  const Af = Math.max(...sp.bf) * Math.max(...sp.tf);
+  const flat = sp.flats.reduce((m, f) => Math.max(m, f.b * f.t), 0);
+  const minA = Math.min(...sp.panels.filter((n) => n > 0).map((n) => prep.Lmax / n), Infinity);
+  const stiffPerMm = minA === Infinity ? 0 : (2 * flat * hw) / minA;
+  // bearing stiffeners: at most 2 pairs per end, one per inner support, flats no larger than the flange outstand × 100 mm
+  const bearing = ((bearingPairs('rigid', prep.supports) * 2 * Math.max(flat, (Math.max(...sp.bf) / 2) * 150) * hw) / prep.L) * 1.5;
+  return KG_PER_MM3 * (hw * tw + 2 * Af + stiffPerMm + bearing);
+}
+
+function fibOk(f: FlangeOption, lim: number, tw: number, throat: number): boolean {
+  return lim === Infinity || f.A <= lim || flangeOutstand({ b: f.b, t: f.t }, tw, f.fy, throat).rho < 1;
+}
+
+/** First index of widths (ascending) whose symmetric pair of flanges reaches the force bound. */
+function firstByForce(options: readonly FlangeOption[], Freq: number): number {
+  let lo = 0;
+  let hi = options.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    const f = options[mid]!;
+    if (2 * f.A * f.fy >= Freq) hi = mid;
+    else lo = mid + 1;
+  }
+  return lo;
+}
+
+/** First index of widths (ascending) whose symmetric section reaches the deflection bound on Iy. */
+function firstByIy(options: readonly FlangeOption[], hw: number, tw: number, IyReq: number): number {
+  let lo = 0;
+  let hi = options.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    const f = options[mid]!;
+    if (iyOfPlates(hw, tw, f.b, f.t, f.b, f.t) * (1 + 1e-9) >= IyReq) hi = mid;
+    else lo = mid + 1;
+  }
+  return lo;
+}
