@@ -56,7 +56,7 @@ export const PublishedMissJson = z
 export const SearchStatsJson = z
   .object({
     spaceSize: z.number().meta({ description: 'candidates in the space, -' }),
-    fullEvaluations: z.number().meta({ description: 'candidates judged by every check, -' }),
+    fullEvaluations: z.number().meta({ description: 'candidates the check library judged, stopping at the first failed check (a set of plates judged once for all its stiffener layouts counts once), -' }),
     pruned: z
       .object({ depth: z.number(), rules: z.number(), shear: z.number(), bending: z.number(), flangeInducedBuckling: z.number(), deflection: z.number(), patchLoading: z.number(), patchBending: z.number(), sameFlanges: z.number(), webOnly: z.number(), incumbent: z.number() })
       .meta({ description: 'candidates pruned by each bound, -' }),

@@ -44,18 +44,11 @@ export interface PruneStats {
   deflection: number;
   patchLoading: number;
   patchBending: number;
-  /** failed a layout-free check with another stiffener layout or end post of the same plates */
+  /** the same plates failed a layout-free check (with any layout), or a panel-only check with the same panels and end post */
   sameFlanges: number;
+  /** the layout failed a check that reads only the web and its stiffeners (on any flanges) */
   webOnly: number;
   incumbent: number;
-}
-
-interface Miss {
-  key: CandidateKey;
-  section: Section;
-  depth: number;
-  g: number;
-  lb: number;
 }
 
 export interface SliceResult {
@@ -65,7 +58,7 @@ export interface SliceResult {
   spaceSize: number;
   fullEvaluations: number;
   pruned: PruneStats;
-  /** candidates judged in full that failed, by their governing check */
+  /** candidates judged that failed, by the first check that failed them */
   failedBy: Record<string, number>;
 }
 
