@@ -49,3 +49,23 @@ test('a client given its own x-request-id gets it back', async () => {
   const r = await srv.get('/health', { 'x-request-id': 'abc-123' });
   expect(r.headers.get('x-request-id')).toBe('abc-123');
 });
+
+test('searches beyond the admission limit get 503 POOL_SATURATED with Retry-After, and lose nothing', async () => {
+  const one = await start({ threads: 1, maxActiveSearches: 1 });
+  try {
+    // the default space on a 24 m span keeps the only admission slot busy for a while
+    const slow = one.post('/v1/searches', { spans: [24000], actions: PROBLEM.actions });
+    const t0 = Date.now();
+    while (one.app.searcher.active() < 1 && Date.now() - t0 < 10_000) await new Promise((r) => setTimeout(r, 5));
+    expect(one.app.searcher.active()).toBe(1);
+    const r = await one.post('/v1/searches', { ...PROBLEM, space: TINY_SPACE });
+    expect(r.status).toBe(503);
+    expect(r.headers.get('retry-after')).toBe('1');
+    expect(r.body).toMatchObject({ status: 503, code: 'POOL_SATURATED' });
+    // the admitted search is unaffected, and the slot is free again afterwards
+    expect((await slow).status).toBe(200);
+    expect((await one.post('/v1/searches', { ...PROBLEM, space: TINY_SPACE })).status).toBe(200);
+  } finally {
+    await one.close();
+  }
+});
