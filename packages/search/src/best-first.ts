@@ -106,8 +106,10 @@ interface Plates {
   d: number;
   g: number;
   fit: BearingFlat | null;
-  /** panel counts whose patch-loading bounds pass */
-  okPanels: Set<number>;
+  /** per panel count: whether the patch-loading bounds pass (memo of panelOk) */
+  panelOk: Map<number, boolean>;
+  /** Mel,Rd of the gross section (0 until needed) */
+  MelRd: number;
   effects?: Effects;
   /** the results of the layout-free checks (all passed) */
   plateResults?: Judged['results'];
@@ -329,6 +331,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
 
   const heap = new Heap();
   const webDead = new Set<number>();
+  const torsionFails = new Map<string, boolean>();
   let seq = 0;
   const pairCache = new Map<number, Pairs>();
   const pairsOf = (gt: number, gb: number): Pairs => {
@@ -387,7 +390,8 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       webMass: w.hw * w.tw * L * KG_PER_MM3,
       minLayoutKg,
       minStiff,
-      panelCounts: [...new Set(layouts.map((wi) => webs[wi]!.panels))],
+      // most panels first: the patch resistance grows as the panels shorten, so one passes soonest
+      panelCounts: [...new Set(layouts.map((wi) => webs[wi]!.panels))].sort((x, y) => y - x),
       Mneed,
       IyReq,
       fibTop: fib(dem.sagAlways),
@@ -451,8 +455,14 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       for (const wi of plate.layouts) {
         const lw = webs[wi]!;
         if (!lw.flat || lw.panels === 0) continue;
-        const t = flatTorsion(lw.flat.b, lw.flat.t, fy(lw.grade, lw.flat.t, prep.fySource), o.E);
-        if (t.limit / t.ItOverIp > 1 + 1e-9) webDead.add(wi);
+        const key = `${lw.grade}|${lw.flat.b}|${lw.flat.t}`;
+        let fails = torsionFails.get(key);
+        if (fails === undefined) {
+          const t = flatTorsion(lw.flat.b, lw.flat.t, fy(lw.grade, lw.flat.t, prep.fySource), o.E);
+          fails = t.limit / t.ItOverIp > 1 + 1e-9;
+          torsionFails.set(key, fails);
+        }
+        if (fails) webDead.add(wi);
       }
     }
     return plate.parts;
@@ -465,6 +475,23 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       plate.patch.set(key, u);
     }
     return u;
+  };
+  /** Whether a panel count passes the patch-loading bounds on these plates: 6.4 and the 7.2 floor (memoised). */
+  const panelOk = (ps: Plates, np: number): boolean => {
+    if (forces.length === 0) return true;
+    let ok = ps.panelOk.get(np);
+    if (ok === undefined) {
+      ok = patchOf(ps.plate, ps.ti, np) <= 1 + 1e-9;
+      if (ok && anySag) {
+        if (ps.MelRd === 0) {
+          const s = buildSection(ps.plate.w, ps.plate.parts[0]!, ps.T, ps.B);
+          ps.MelRd = grossProps(s, material(s, o)).Mel / o.factors.gammaM0;
+        }
+        ok = patchBendingFloor(forces, ps.plate.w, ps.T, panelsByCount.get(np)!, o.E, o.factors.gammaM1, sagAtForces, ps.MelRd) <= 1 + 1e-9;
+      }
+      ps.panelOk.set(np, ok);
+    }
+    return ok;
   };
   const fitOf = (plate: Plate, minB: number): BearingFlat | null => {
     let hit = plate.fit.get(minB);
@@ -530,30 +557,24 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
         continue;
       }
       // patch loading reads the web, the top flange and the panels: some panel count must pass it
-      const okPanels = new Set<number>();
-      let patchFails = false;
+      // (the first that does is enough here; the others are judged when a layout asks)
+      const ps: Plates = { plate, ti, bi, T, B, d, g, fit: null, panelOk: new Map(), MelRd: 0, k: 0, layoutCalls: 0, panelDead: new Set() };
       if (forces.length > 0) {
-        let MelRd = 0;
+        let any = false;
+        let patchFails = false;
         for (const np of plate.panelCounts) {
-          if (patchOf(plate, ti, np) > 1 + 1e-9) {
-            patchFails = true;
-            continue;
+          if (panelOk(ps, np)) {
+            any = true;
+            break;
           }
-          if (anySag) {
-            if (MelRd === 0) {
-              const s = buildSection(w, plate.parts[0]!, T, B);
-              MelRd = grossProps(s, material(s, o)).Mel / o.factors.gammaM0;
-            }
-            if (patchBendingFloor(forces, w, T, panelsByCount.get(np)!, o.E, o.factors.gammaM1, sagAtForces, MelRd) > 1 + 1e-9) continue;
-          }
-          okPanels.add(np);
+          if (patchOf(plate, ti, np) > 1 + 1e-9) patchFails = true;
         }
-        if (okPanels.size === 0) {
+        if (!any) {
           if (patchFails) pruned.patchLoading += nL;
           else pruned.patchBending += nL;
           continue;
         }
-      } else for (const np of plate.panelCounts) okPanels.add(np);
+      }
       const fit = fitOf(plate, Math.min(T.b, B.b));
       let layoutKg = Infinity;
       if (fit) {
@@ -564,7 +585,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
         pruned.incumbent += nL;
         continue;
       }
-      const ps: Plates = { plate, ti, bi, T, B, d, g, fit, okPanels, k: 0, layoutCalls: 0, panelDead: new Set() };
+      ps.fit = fit;
       heap.push({ kind: 1, lb, seq: seq++, ps });
     }
   };
@@ -657,7 +678,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
         continue;
       }
       const w = webs[wi]!;
-      if (!ps.okPanels.has(w.panels)) {
+      if (!panelOk(ps, w.panels)) {
         pruned.patchLoading++;
         continue;
       }

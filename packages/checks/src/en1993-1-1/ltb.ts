@@ -204,10 +204,16 @@ function segmentPoints(stations: readonly Station[], x0: number, x1: number, pic
   // the segment ends (interpolated) and every station strictly inside, in x order
   const env = envelopeOf(stations, pick);
   const out: { x: number; M: number }[] = [{ x: x0, M: envelopeAt(stations, x0, pick).value }];
-  for (let i = 0; i < env.xs.length; i++) {
-    const x = env.xs[i]!;
-    if (x > x0 && x < x1) out.push({ x, M: env.gov[i]! });
+  // xs ascending: bisect to the first station beyond x0, stop at x1
+  const xs = env.xs;
+  let lo = 0;
+  let hi = xs.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (xs[mid]! > x0) hi = mid;
+    else lo = mid + 1;
   }
+  for (let i = lo; i < xs.length && xs[i]! < x1; i++) out.push({ x: xs[i]!, M: env.gov[i]! });
   if (x1 !== x0) out.push({ x: x1, M: envelopeAt(stations, x1, pick).value });
   return out;
 }
