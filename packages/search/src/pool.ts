@@ -1,10 +1,9 @@
 import { randomUUID } from 'node:crypto';
 import { availableParallelism } from 'node:os';
 import { Piscina } from 'piscina';
-import { prepareSearch } from './core.js';
 import { mergeSlices, type SearchResult } from './search.js';
-import { assertSpace, spaceSize } from './space.js';
-import { problemOf, type SearchTask } from './task.js';
+import { assertSpace, flangeGroups, spaceSize, webPlateCounts } from './space.js';
+import type { SearchTask } from './task.js';
 import type { SliceResult } from './core.js';
 import type { WorkerMessage } from './worker.js';
 import { createSharedStairs, depthGrid } from './shared-bound.js';
@@ -49,21 +48,23 @@ export async function pingPool(pool: SearchPool, signal?: AbortSignal): Promise<
 export async function searchOnPool(pool: SearchPool, task: SearchTask, signal?: AbortSignal, onSlice?: (done: number, total: number) => void): Promise<SearchResult> {
   const t0 = performance.now();
   assertSpace(task.space);
-  const prep = prepareSearch(problemOf(task));
-  const n = prep.webs.length;
-  const plates: number[][] = [];
-  let last = '';
-  prep.webs.forEach((w, i) => {
-    const k = `${w.grade}|${w.hw}|${w.tw}`;
-    if (k !== last) plates.push([]);
-    last = k;
-    plates[plates.length - 1]!.push(i);
-  });
-  // one slice per thread (more slices explore more before the shared staircase prunes them: measured slower)
+  // plates as contiguous runs of web indices (webConfigs order), counted without building them
+  const fySource = task.options.fySource;
+  const groups = flangeGroups(task.space, fySource);
+  const counts = webPlateCounts(task.space, fySource);
+  const plates: [number, number][] = [];
+  let n = 0;
+  for (const c of counts) {
+    if (c > 0) plates.push([n, c]);
+    n += c;
+  }
   const nSlices = Math.max(1, Math.min(plates.length, pool.threads));
   const slices: number[][] = Array.from({ length: nSlices }, () => []);
-  plates.forEach((pl, i) => slices[i % nSlices]!.push(...pl));
-  const shared = createSharedStairs(depthGrid(prep));
+  plates.forEach(([a, c], i) => {
+    const sl = slices[i % nSlices]!;
+    for (let k = 0; k < c; k++) sl.push(a + k);
+  });
+  const shared = createSharedStairs(depthGrid(task.space, groups));
   const searchId = randomUUID();
   let done = 0;
   const results = await Promise.all(

@@ -1,5 +1,5 @@
 import type { OuterBound } from './best-first.js';
-import type { Prepared } from './core.js';
+import type { FlangeGroup, SpaceSpec } from './space.js';
 
 /**
  * The staircase the worker threads of one search share: for each overall depth of the space, an
@@ -20,9 +20,8 @@ export interface SharedStairsData {
 }
 
 /** Every overall depth h = hw + tf,top + tf,bot the space can produce, ascending. */
-export function depthGrid(prep: Prepared): number[] {
-  const sp = prep.p.space;
-  const tfs = [...new Set(prep.groups.map((g) => g.t))];
+export function depthGrid(sp: SpaceSpec, groups: readonly FlangeGroup[]): number[] {
+  const tfs = [...new Set(groups.map((g) => g.t))];
   const sums = new Set<number>();
   for (const a of tfs) for (const b of tfs) if (!sp.symmetric || a === b) sums.add(a + b);
   const out = new Set<number>();

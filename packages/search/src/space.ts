@@ -101,6 +101,27 @@ export function webConfigs(sp: SpaceSpec, fySource: FySource): WebConfig[] {
   return out;
 }
 
+/**
+ * The number of web configurations of each web plate (grade, hw, tw), in the order webConfigs
+ * lists them, without building them. Validates the web thicknesses as webConfigs does.
+ */
+export function webPlateCounts(sp: SpaceSpec, fySource: FySource): number[] {
+  const out: number[] = [];
+  for (const grade of sp.webGrades)
+    for (const _hw of sp.hw)
+      for (const tw of sp.tw) {
+        fy(grade, tw, fySource, 'space.webThickness');
+        let per = 0;
+        for (const _ep of sp.endPosts)
+          for (const panels of sp.panels) {
+            if (panels === 0) per += 1;
+            else per += sp.flats.filter((f) => !(sp.rules.stiffenerAtLeastWeb && f.t < tw)).length * sp.sides.length;
+          }
+        out.push(per);
+      }
+  return out;
+}
+
 /** Flange options grouped by (grade, thickness), widths ascending. */
 export interface FlangeGroup {
   grade: GradeName;

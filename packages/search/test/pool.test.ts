@@ -3,7 +3,8 @@ import { fc } from '@fast-check/vitest';
 import { FLAT_BARS } from '@platesmith/catalogue';
 import { defaultOptions } from '@platesmith/checks';
 import { analyse } from '@platesmith/actions';
-import { DEFAULT_COST, problemOf, search, stiffenerStations, type Evaluated, type SearchTask, type SpaceSpec } from '../src/index.js';
+import { DEFAULT_COST, defaultSpace, problemOf, search, stiffenerStations, webConfigs, type Evaluated, type SearchTask, type SpaceSpec } from '../src/index.js';
+import { webPlateCounts } from '../src/space.js';
 import { createSearchPool, searchOnPool, type SearchPool } from '../src/pool.js';
 import { createSharedStairs, SharedStairs } from '../src/shared-bound.js';
 
@@ -91,4 +92,22 @@ describe('shared staircase', () => {
       }),
     );
   });
+});
+
+test('webPlateCounts counts the web configurations of each plate as webConfigs lists them', () => {
+  fc.assert(
+    fc.property(fc.subarray([6, 8, 10, 12, 15, 20], { minLength: 1 }), fc.boolean(), fc.subarray([0, 2, 4, 8], { minLength: 1 }), fc.subarray([1, 2] as const, { minLength: 1 }), (tw, atLeastWeb, panels, sides) => {
+      const sp: SpaceSpec = { ...defaultSpace(), hw: [800, 1200], tw, panels, sides: [...sides], flats: [...FLAT_BARS].slice(0, 5), rules: { stiffenerAtLeastWeb: atLeastWeb } };
+      const webs = webConfigs(sp, 'product');
+      const runs: number[] = [];
+      let last = '';
+      for (const w of webs) {
+        const k = `${w.grade}|${w.hw}|${w.tw}`;
+        if (k !== last) runs.push(0);
+        last = k;
+        runs[runs.length - 1]!++;
+      }
+      expect(webPlateCounts(sp, 'product').filter((c) => c > 0)).toEqual(runs);
+    }),
+  );
 });
