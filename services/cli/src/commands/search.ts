@@ -59,7 +59,7 @@ export function renderSearch(r: PublishedSearch, title?: string): string {
     lines.push('', `Lightest${r.objective === 'cost' ? ' (cheapest)' : ''}: ${describe(l.section)} — ${fmt(l.mass, 5)} kg, depth ${l.depth} mm, governed by ${l.governing.id} (${l.governing.clause}) at ${l.governing.utilisation?.toFixed(3)}`);
   }
   const s = r.stats;
-  lines.push('', `Searched ${s.spaceSize.toExponential(2)} candidates exactly: ${s.fullEvaluations} judged in full (${((s.fullEvaluations / Math.max(1, s.spaceSize)) * 100).toPrecision(2)} %), the rest pruned by bounds (depth ${s.pruned.depth}, shear ${s.pruned.shear}, bending ${s.pruned.bending}, flange-induced buckling ${s.pruned.flangeInducedBuckling}, deflection ${s.pruned.deflection}, patch loading ${s.pruned.patchLoading}, same plates failed with another stiffener layout ${s.pruned.sameFlanges}, web-only ${s.pruned.webOnly}, incumbent ${s.pruned.incumbent}, rules ${s.pruned.rules}); ${s.wallMs.toFixed(0)} ms on ${s.workers} workers.`);
+  lines.push('', `Searched ${s.spaceSize.toExponential(2)} candidates exactly: ${s.fullEvaluations} judged (${((s.fullEvaluations / Math.max(1, s.spaceSize)) * 100).toPrecision(2)} %), the rest pruned by bounds (depth ${s.pruned.depth}, shear ${s.pruned.shear}, bending ${s.pruned.bending}, flange-induced buckling ${s.pruned.flangeInducedBuckling}, deflection ${s.pruned.deflection}, patch loading ${s.pruned.patchLoading}, shared with a failed candidate of the same plates ${s.pruned.sameFlanges}, stiffener layout failed on another flange ${s.pruned.webOnly}, incumbent ${s.pruned.incumbent}, rules ${s.pruned.rules}); ${s.wallMs.toFixed(0)} ms on ${s.workers} workers.`);
   return lines.join('\n');
 }
 
