@@ -17,7 +17,6 @@ import {
   panelsOf,
   patchBendingFloor,
   patchUtilisation,
-  resolveBearing,
   webShearCapacityBound,
   type CheckResult,
   type EndPost,
@@ -28,6 +27,7 @@ import {
 import { fy, STEEL_DENSITY } from '@platesmith/catalogue';
 import {
   better,
+  defaultBearing,
   G_ACC,
   priceCost,
   selfWeightOf,
@@ -506,9 +506,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
   const bearingFloorOf = (ps: Plates, j: number): BearingFlat => {
     if (ps.fit) return ps.fit;
     const w = webs[ps.plate.layouts[j]!]!;
-    const s = buildSection(w, ps.plate.parts[j]!, ps.T, ps.B);
-    const d = resolveBearing(s, fy(s.grade.stiffener, s.stiffeners?.ts ?? s.tw, prep.fySource));
-    return { bs: d.bs, ts: d.ts };
+    return defaultBearing(prep, buildSection(w, ps.plate.parts[j]!, ps.T, ps.B));
   };
   const surfaceOf = (w: WebConfig, T: FlangeOption, B: FlangeOption): number => L * (T.b + (T.b - w.tw) + 2 * T.t + B.b + (B.b - w.tw) + 2 * B.t + 2 * w.hw);
 

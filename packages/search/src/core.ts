@@ -150,13 +150,17 @@ function bearingFloor(prep: Prepared, w: WebConfig, parts: WebParts, T: FlangeOp
     const f = lightestFittingBearing(prep.p.options.bearingFlats, minB, w.tw);
     if (f) hit = { bs: f.b, ts: f.t };
     else {
-      const s = buildSection(w, parts, T, B);
-      const d = resolveBearing(s, fy(s.grade.stiffener, s.stiffeners?.ts ?? s.tw, prep.fySource));
-      hit = { bs: d.bs, ts: d.ts };
+      hit = defaultBearing(prep, buildSection(w, parts, T, B));
     }
     cache.set(minB, hit);
   }
   return hit;
+}
+
+/** The bearing flats the check library falls back on for a section when no stock flat fits (resolveBearing). */
+export function defaultBearing(prep: Prepared, s: Section): BearingFlat {
+  const d = resolveBearing(s, fy(s.grade.stiffener, s.stiffeners?.ts ?? s.tw, prep.fySource));
+  return { bs: d.bs, ts: d.ts };
 }
 
 export interface BearingFlat {
