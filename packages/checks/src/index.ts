@@ -63,10 +63,10 @@ export { rigidEndPost, bearingCrushing } from './en1993-1-5/end-post.js';
 // EN 1993-1-1 bending family and the clauses beneath it
 export { bendingChecks } from './en1993-1-1/bending-family.js';
 export { classifyOutstand, classifyWebBending, classifyWebBendingCompression, classifyInternalCompression, classifySection } from './en1993-1-1/classification.js';
-export { bendingForSign, envelopeAt, wplDoublySymmetric, iyDoublySymmetric, signsOf } from './en1993-1-1/bending.js';
+export { bendingForSign, envelopeAt, wplDoublySymmetric, iyDoublySymmetric, signsOf, type SignBending } from './en1993-1-1/bending.js';
 export { kSigmaInternal, kSigmaOutstand, lambdaP, rhoInternal, rhoOutstand, internalEffectiveWidths, effectiveSection } from './en1993-1-5/effective-section.js';
 export { kF, patchResistance, patchBendingInteraction, patchUtilisation, patchBendingFloor, type PatchType, type PatchInput, type PatchResult } from './en1993-1-5/patch-loading.js';
 export { fibLimit, kFibFor } from './en1993-1-5/flange-induced.js';
-export { mcr, chiLT, chiLTGeneral, momentFactors, c1EndMoments, kcEndMoments, ltbCurveWelded } from './en1993-1-1/ltb.js';
+export { mcr, chiLT, chiLTGeneral, momentFactors, c1EndMoments, kcEndMoments, ltbCurveWelded, ltbUtilisation, momentEnvelopeOf, type MomentEnvelope } from './en1993-1-1/ltb.js';
 export { fvwd, fwRd, shearFlow, pickThroat } from './en1993-1-8/weld.js';
 export { deflection, unitLoadIntegrals, minIyForDeflection, minIyForDeflectionAt, spanAt } from './sls/deflection.js';

@@ -127,7 +127,7 @@ export function envelopeAt(stations: readonly Station[], x: number, pick: (s: St
  * The stations either side of x in ascending xs and the interpolation weight: x = xs[lo] + t·(xs[hi] − xs[lo]);
  * t = 0 (and lo the station) at or beyond an end, or on a station.
  */
-function bracket(xs: Float64Array, x: number): [number, number, number] {
+export function bracket(xs: Float64Array, x: number): [number, number, number] {
   const n = xs.length;
   if (x <= xs[0]!) return [0, 0, 0];
   if (x >= xs[n - 1]!) return [n - 1, n - 1, 0];

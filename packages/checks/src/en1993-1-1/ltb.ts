@@ -2,7 +2,7 @@ import { chi, type BucklingCurve, ALPHA } from './buckling-curves.js';
 import type { FlangeSide } from '../section.js';
 import type { CheckContext, CheckResult, CheckValue, Effects, Station } from '../types.js';
 import { notApplicable, verdict } from '../result.js';
-import { pickM, envelopeAt, envelopeOf, type SignBending } from './bending.js';
+import { bracket, envelopeOf, type SignBending } from './bending.js';
 import { perSide } from '../context.js';
 
 /**
@@ -200,12 +200,34 @@ export function ltbCurveWelded(h: number, b: number): BucklingCurve {
 export const pickSag = (st: Station): number => Math.max(0, st.MEd);
 export const pickHog = (st: Station): number => Math.min(0, st.MEd);
 
-function segmentPoints(stations: readonly Station[], x0: number, x1: number, pick: (s: Station) => number): { x: number; M: number }[] {
+/**
+ * The signed moment envelopes lateral-torsional buckling reads: per distinct x (ascending) the
+ * largest sagging moment (≥ 0) and the largest hogging moment (≤ 0) of any station there, N·mm.
+ * From stations it is envelopeOf(·, pickSag / pickHog); a load model may build it directly.
+ */
+export interface MomentEnvelope {
+  xs: Float64Array;
+  sag: Float64Array;
+  hog: Float64Array;
+}
+
+export function momentEnvelopeOf(stations: readonly Station[]): MomentEnvelope {
+  const s = envelopeOf(stations, pickSag);
+  const h = envelopeOf(stations, pickHog);
+  return { xs: s.xs, sag: s.gov, hog: h.gov };
+}
+
+/** The envelope value at x, linear between the neighbouring distinct x (as envelopeAt). */
+function valueAt(xs: Float64Array, v: Float64Array, x: number): number {
+  const [lo, hi, t] = bracket(xs, x);
+  return t === 0 ? v[lo]! : v[lo]! + t * (v[hi]! - v[lo]!);
+}
+
+function segmentPoints(env: MomentEnvelope, v: Float64Array, x0: number, x1: number): { x: number; M: number }[] {
   // the segment ends (interpolated) and every station strictly inside, in x order
-  const env = envelopeOf(stations, pick);
-  const out: { x: number; M: number }[] = [{ x: x0, M: envelopeAt(stations, x0, pick).value }];
-  // xs ascending: bisect to the first station beyond x0, stop at x1
   const xs = env.xs;
+  const out: { x: number; M: number }[] = [{ x: x0, M: valueAt(xs, v, x0) }];
+  // xs ascending: bisect to the first station beyond x0, stop at x1
   let lo = 0;
   let hi = xs.length;
   while (lo < hi) {
@@ -213,8 +235,8 @@ function segmentPoints(stations: readonly Station[], x0: number, x1: number, pic
     if (xs[mid]! > x0) hi = mid;
     else lo = mid + 1;
   }
-  for (let i = lo; i < xs.length && xs[i]! < x1; i++) out.push({ x: xs[i]!, M: env.gov[i]! });
-  if (x1 !== x0) out.push({ x: x1, M: envelopeAt(stations, x1, pick).value });
+  for (let i = lo; i < xs.length && xs[i]! < x1; i++) out.push({ x: xs[i]!, M: v[i]! });
+  if (x1 !== x0) out.push({ x: x1, M: valueAt(xs, v, x1) });
   return out;
 }
 
@@ -234,8 +256,34 @@ function segmentPoints(stations: readonly Station[], x0: number, x1: number, pic
  */
 export function ltbCheck(ctx: CheckContext, e: Effects, per: ReadonlyMap<FlangeSide, SignBending>, bendingFor: (side: FlangeSide) => SignBending): CheckResult {
   const clause = 'EN 1993-1-1 6.3.2';
-  const { o, g, s } = ctx;
   if (e.stations.length === 0) return notApplicable('lateral-torsional-buckling', clause, 'no design moments given');
+  const skipped: string[] = [];
+  const best = ltbCore(ctx, momentEnvelopeOf(e.stations), (side) => per.get(side) ?? bendingFor(side), true, skipped);
+  if (!best) {
+    return notApplicable('lateral-torsional-buckling', clause, skipped.length ? `compression flange restrained continuously (${skipped.join('; ')})` : 'no design moments given');
+  }
+  return verdict('lateral-torsional-buckling', clause, best.u, best.at, best.values!);
+}
+
+/**
+ * The utilisation 'lateral-torsional-buckling' gives a section under a moment envelope — the same
+ * computation as ltbCheck, without the report values (0 when the check does not apply). A search
+ * that builds the envelope straight from its load model rejects candidates with it before any other
+ * check is run; equal to ltbCheck's utilisation whenever the envelope equals momentEnvelopeOf(stations).
+ */
+export function ltbUtilisation(ctx: CheckContext, env: MomentEnvelope, bendingFor: (side: FlangeSide) => SignBending): number {
+  if (env.xs.length === 0) return 0;
+  return ltbCore(ctx, env, bendingFor, false, null)?.u ?? 0;
+}
+
+function ltbCore(
+  ctx: CheckContext,
+  env: MomentEnvelope,
+  bendingFor: (side: FlangeSide) => SignBending,
+  detail: boolean,
+  skipped: string[] | null,
+): { u: number; at: number; values: Record<string, CheckValue> | null } | null {
+  const { o, g, s } = ctx;
   const sup = o.supports;
   const xStart = sup[0]!;
   const xEnd = sup[sup.length - 1]!;
@@ -243,31 +291,36 @@ export function ltbCheck(ctx: CheckContext, e: Effects, per: ReadonlyMap<FlangeS
   const lambda0 = rolled ? 0.4 : 0.2;
   const curve = ltbCurveWelded(g.h, Math.min(s.top.b, s.bot.b));
   const zg = loadHeightZg(ctx);
+  // the largest |MEd| of any station: the largest sagging or hogging value of the envelope
   let tiny = 0;
-  for (const st of e.stations) tiny = Math.max(tiny, Math.abs(st.MEd));
-  tiny = Math.max(1, 1e-9 * tiny);
-  let best: { u: number; at: number; values: Record<string, CheckValue> } | null = null;
-  const skipped: string[] = [];
+  let maxSag = 0;
+  let minHog = 0;
+  for (let i = 0; i < env.xs.length; i++) {
+    if (env.sag[i]! > maxSag) maxSag = env.sag[i]!;
+    if (env.hog[i]! < minHog) minHog = env.hog[i]!;
+  }
+  tiny = Math.max(1, 1e-9 * Math.max(maxSag, -minHog));
+  let best: { u: number; at: number; values: Record<string, CheckValue> | null } | null = null;
   for (const side of ['top', 'bot'] as const) {
     const line = side === 'top' ? o.restraint : o.restraintBottom;
     const sign = side === 'top' ? 'sagging' : 'hogging';
-    const has = e.stations.some((st) => (side === 'top' ? st.MEd > tiny : st.MEd < -tiny));
+    const has = side === 'top' ? maxSag > tiny : minHog < -tiny;
     if (!has) continue;
     if (line.kind === 'continuous') {
-      skipped.push(`${sign}: the ${side === 'top' ? 'top' : 'bottom'} flange is restrained continuously`);
+      skipped?.push(`${sign}: the ${side === 'top' ? 'top' : 'bottom'} flange is restrained continuously`);
       continue;
     }
     const cuts = [...new Set([...sup, ...line.at.filter((x) => x > xStart && x < xEnd)])].sort((a, b) => a - b);
-    const pick = side === 'top' ? pickSag : pickHog;
+    const v = side === 'top' ? env.sag : env.hog;
     for (let i = 0; i + 1 < cuts.length; i++) {
       const x0 = cuts[i]!;
       const x1 = cuts[i + 1]!;
-      const pts = segmentPoints(e.stations, x0, x1, pick);
+      const pts = segmentPoints(env, v, x0, x1);
       let gov = pts[0]!;
       for (const p of pts) if (Math.abs(p.M) > Math.abs(gov.M)) gov = p;
       const MEd = Math.abs(gov.M);
       if (MEd <= tiny) continue;
-      const b = per.get(side) ?? bendingFor(side);
+      const b = bendingFor(side);
       const mf = momentFactors(pts);
       const zj = zjCached(ctx, side);
       const Mcr = mcr({ E: o.E, G: o.G, Iz: g.Iz, It: g.It, Iw: g.Iw, L: x1 - x0, C1: mf.C1, C2: mf.C2, C3: mf.C3, zg, zj });
@@ -295,38 +348,37 @@ export function ltbCheck(ctx: CheckContext, e: Effects, per: ReadonlyMap<FlangeS
         best = {
           u,
           at: gov.x,
-          values: {
-            x0,
-            x1,
-            Lseg: x1 - x0,
-            momentShape: mf.shape,
-            psi: mf.psi,
-            C1: mf.C1,
-            C2: mf.C2,
-            C3: mf.C3,
-            zg,
-            zj,
-            Mcr,
-            lambdaLT,
-            lambdaLT0: lambda0,
-            curve,
-            phiLT,
-            f,
-            chiLT: chiV,
-            MbRd,
-            MEd,
-            sign,
-            method: rolled ? '6.3.2.3 rolled or equivalent welded' : '6.3.2.2 general case',
-            reductionIgnored: ignore,
-          },
+          values: !detail
+            ? null
+            : {
+                x0,
+                x1,
+                Lseg: x1 - x0,
+                momentShape: mf.shape,
+                psi: mf.psi,
+                C1: mf.C1,
+                C2: mf.C2,
+                C3: mf.C3,
+                zg,
+                zj,
+                Mcr,
+                lambdaLT,
+                lambdaLT0: lambda0,
+                curve,
+                phiLT,
+                f,
+                chiLT: chiV,
+                MbRd,
+                MEd,
+                sign,
+                method: rolled ? '6.3.2.3 rolled or equivalent welded' : '6.3.2.2 general case',
+                reductionIgnored: ignore,
+              },
         };
       }
     }
   }
-  if (!best) {
-    return notApplicable('lateral-torsional-buckling', clause, skipped.length ? `compression flange restrained continuously (${skipped.join('; ')})` : 'no design moments given');
-  }
-  return verdict('lateral-torsional-buckling', clause, best.u, best.at, best.values);
+  return best;
 }
 
 /** zj depends on the section and the compression side only. */
