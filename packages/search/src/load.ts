@@ -1,5 +1,5 @@
-import type { Effects } from '@platesmith/checks';
-import { spanAt } from '@platesmith/checks';
+import type { Effects, MomentEnvelope } from '@platesmith/checks';
+import { momentEnvelopeOf, spanAt } from '@platesmith/checks';
 import { designEffects, type Analysis } from '@platesmith/actions';
 
 /**
@@ -23,6 +23,11 @@ export interface LoadModel {
    * stations at exactly that x (0 when none is guaranteed, or no station stands there).
    */
   sagFloorAt?(xs: readonly number[], gLo: number, gHi: number): number[];
+  /**
+   * The signed moment envelopes of effects(g) (momentEnvelopeOf(effects(g).stations), bit for bit),
+   * built without the station objects: what lateral-torsional buckling reads.
+   */
+  momentEnvelope?(g: number): MomentEnvelope;
 }
 
 export interface DeflectionAffine {
@@ -69,7 +74,8 @@ export function fixedLoadModel(e: Effects): LoadModel {
     V = Math.max(V, Math.abs(s.VEd));
   }
   const bound = signed(Msag, Mhog, V, Msag > 0, Mhog > 0, Math.max(Msag, Mhog));
-  return { effects: () => e, demandLowerBound: () => bound, deflectionFloor: () => [] };
+  const env = momentEnvelopeOf(e.stations);
+  return { effects: () => e, demandLowerBound: () => bound, deflectionFloor: () => [], momentEnvelope: () => env };
 }
 
 /**
@@ -157,7 +163,137 @@ export function analysisLoadModel(a: Analysis): LoadModel {
     deflectionFloor: (gLo, gHi) => analysisDeflectionFloor(a, gLo, gHi),
     deflectionAffine: analysisDeflectionAffine(a),
     sagFloorAt: (xs, gLo, gHi) => xs.map((x) => analysisSagFloorAt(a, x, gLo, gHi)),
+    momentEnvelope: momentEnvelopeFor(a),
   };
+}
+
+/**
+ * analysisMomentEnvelope(a, ·) with the combinations folded per factor on g: for one γG the
+ * largest M of any combination at a station is the one with the largest A (rounding is monotone),
+ * so per station and distinct γG one A is kept for sagging and one for hogging, and the moment
+ * designEffects keeps beside the largest |V| is dropped when it lies between the station's least
+ * and largest M in its own combination (then it can never be the extreme). Same values, bit for
+ * bit; falls back to analysisMomentEnvelope when the analysis does not have that form.
+ */
+export function momentEnvelopeFor(a: Analysis): (g: number) => MomentEnvelope {
+  const nK = a.stationX.length;
+  const nC = a.gammaG.length;
+  const X = a.stationX;
+  const A = a.A;
+  let ok = nC > 0;
+  for (let k = 1; k < nK && ok; k++) if (X[k]! < X[k - 1]!) ok = false;
+  for (let c = 0; c < nC && ok; c++) {
+    for (let k = 0; k < nK; k++) {
+      const b = (c * nK + k) * 8;
+      const hi = A[b]!;
+      const lo = A[b + 2]!;
+      if (!(A[b + 4]! <= hi && A[b + 4]! >= lo && A[b + 6]! <= hi && A[b + 6]! >= lo)) {
+        ok = false;
+        break;
+      }
+    }
+  }
+  if (!ok) return (g) => analysisMomentEnvelope(a, g);
+  const gammas = [...new Set(a.gammaG)];
+  const nG = gammas.length;
+  const G = Float64Array.from(gammas);
+  const hiA = new Float64Array(nK * nG).fill(-Infinity);
+  const loA = new Float64Array(nK * nG).fill(Infinity);
+  for (let c = 0; c < nC; c++) {
+    const j = gammas.indexOf(a.gammaG[c]!);
+    for (let k = 0; k < nK; k++) {
+      const b = (c * nK + k) * 8;
+      hiA[k * nG + j] = Math.max(hiA[k * nG + j]!, A[b]!);
+      loA[k * nG + j] = Math.min(loA[k * nG + j]!, A[b + 2]!);
+    }
+  }
+  // distinct x, and the distinct-x index of each station
+  const slot = new Int32Array(nK);
+  const xsAll: number[] = [];
+  for (let k = 0; k < nK; k++) {
+    if (xsAll.length === 0 || xsAll[xsAll.length - 1] !== X[k]) xsAll.push(X[k]!);
+    slot[k] = xsAll.length - 1;
+  }
+  const xs = Float64Array.from(xsAll);
+  const nX = xs.length;
+  const Mg = a.Mg;
+  return (g) => {
+    const sag = new Float64Array(nX);
+    const hog = new Float64Array(nX);
+    for (let k = 0; k < nK; k++) {
+      const mg = g * Mg[k]!;
+      let M0 = -Infinity;
+      let M1 = Infinity;
+      for (let j = 0; j < nG; j++) {
+        const gg = G[j]!;
+        const m0 = hiA[k * nG + j]! + gg * mg;
+        if (m0 > M0) M0 = m0;
+        const m1 = loA[k * nG + j]! + gg * mg;
+        if (m1 < M1) M1 = m1;
+      }
+      const n = slot[k]!;
+      if (M0 > sag[n]!) sag[n] = M0;
+      if (M1 < hog[n]!) hog[n] = M1;
+    }
+    return { xs, sag, hog };
+  };
+}
+
+/**
+ * momentEnvelopeOf(designEffects(a, g).stations) without building the stations: per station the
+ * same three moments designEffects keeps (largest, least, and the one beside the largest |V|),
+ * computed with the same floating-point operations, then per distinct x the largest sagging and
+ * hogging value (envelopeOf's order: stations ascending in x, equal x merged).
+ */
+export function analysisMomentEnvelope(a: Analysis, g: number): MomentEnvelope {
+  const nK = a.stationX.length;
+  const X = a.stationX;
+  for (let k = 1; k < nK; k++) if (X[k]! < X[k - 1]!) return momentEnvelopeOf(designEffects(a, g).stations);
+  const nC = a.gammaG.length;
+  const A = a.A;
+  const xs = new Float64Array(nK);
+  const sag = new Float64Array(nK);
+  const hog = new Float64Array(nK);
+  let n = -1;
+  for (let k = 0; k < nK; k++) {
+    const mg = g * a.Mg[k]!;
+    const vg = g * a.Vg[k]!;
+    let M0 = -Infinity;
+    let M1 = Infinity;
+    let M2 = 0;
+    let aV2 = -1;
+    for (let c = 0; c < nC; c++) {
+      const gg = a.gammaG[c]!;
+      const b = (c * nK + k) * 8;
+      const m0 = A[b]! + gg * mg;
+      if (m0 > M0) M0 = m0;
+      const m1 = A[b + 2]! + gg * mg;
+      if (m1 < M1) M1 = m1;
+      const v2 = A[b + 5]! + gg * vg;
+      if (Math.abs(v2) > aV2) {
+        aV2 = Math.abs(v2);
+        M2 = A[b + 4]! + gg * mg;
+      }
+      const v3 = A[b + 7]! + gg * vg;
+      if (Math.abs(v3) > aV2) {
+        aV2 = Math.abs(v3);
+        M2 = A[b + 6]! + gg * mg;
+      }
+    }
+    const x = X[k]!;
+    if (n < 0 || xs[n] !== x) {
+      n++;
+      xs[n] = x;
+      sag[n] = 0;
+      hog[n] = 0;
+    }
+    // the largest of the three (≥ 0) and the least (≤ 0); a moment designEffects drops equals one it keeps
+    const hi = Math.max(M0, M1, M2);
+    const lo = Math.min(M0, M1, M2);
+    if (hi > sag[n]!) sag[n] = hi;
+    if (lo < hog[n]!) hog[n] = lo;
+  }
+  return { xs: xs.subarray(0, n + 1), sag: sag.subarray(0, n + 1), hog: hog.subarray(0, n + 1) };
 }
 
 /**
