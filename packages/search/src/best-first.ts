@@ -1,5 +1,6 @@
 import {
   assembleVerdict,
+  bendingForSign,
   CHECK_ORDER,
   checkGirder,
   flatTorsion,
@@ -9,7 +10,9 @@ import {
   inJudgeOrder,
   iyOfPlates,
   lightestFittingBearing,
+  ltbUtilisation,
   material,
+  momentEnvelopeOf,
   maxCompressionFlangeAreaFIB,
   minFlangeForceForBending,
   minIyForDeflection,
@@ -17,12 +20,14 @@ import {
   panelsOf,
   patchBendingFloor,
   patchUtilisation,
+  prepare,
   webShearCapacityBound,
   type CheckResult,
   type EndPost,
   type Effects,
   type Judged,
   type Section,
+  type SignBending,
 } from '@platesmith/checks';
 import { fy, STEEL_DENSITY } from '@platesmith/catalogue';
 import {
@@ -78,7 +83,8 @@ function failsWebOnly(c: CheckResult): boolean {
 interface Plate {
   w: WebConfig;
   layouts: number[];
-  parts: WebParts[];
+  /** per layout, made when first asked for (most plates never get that far): see partOf */
+  parts: (WebParts | undefined)[];
   webMass: number;
   /** least (intermediate stiffeners + bearing flats) kg over the layouts, with the least bearing any sizing returns */
   minLayoutKg: number;
@@ -213,7 +219,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
   const { p, webs, groups, flanges, groupStart, L, Lmax, supports } = prep;
   const o = p.options;
   const sp = p.space;
-  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, patchBending: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 };
+  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, patchBending: 0, lateralTorsional: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 };
   let fullEvaluations = 0;
   let spaceSize = 0;
   const minThroat = Math.min(...o.weldThroats);
@@ -320,13 +326,26 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
   const Mneed = Math.max(dem.Msag, dem.Mhog);
 
   // web plates: the layouts of each (grade, hw, tw) in the slice
-  const byPlate = new Map<string, number[]>();
-  for (const wi of webIdx) {
-    const w = webs[wi]!;
-    const k = `${w.grade}|${w.hw}|${w.tw}`;
-    const l = byPlate.get(k);
-    if (l) l.push(wi);
-    else byPlate.set(k, [wi]);
+  // (the layouts of one plate are consecutive in webConfigs' order: keyed only where a run breaks)
+  const byPlate: number[][] = [];
+  {
+    const index = new Map<string, number[]>();
+    let prev: WebConfig | null = null;
+    let cur: number[] | null = null;
+    for (const wi of webIdx) {
+      const w = webs[wi]!;
+      if (prev === null || cur === null || w.grade !== prev.grade || w.hw !== prev.hw || w.tw !== prev.tw) {
+        const k = `${w.grade}|${w.hw}|${w.tw}`;
+        cur = index.get(k) ?? null;
+        if (!cur) {
+          cur = [];
+          index.set(k, cur);
+          byPlate.push(cur);
+        }
+        prev = w;
+      }
+      cur.push(wi);
+    }
   }
 
   const heap = new Heap();
@@ -354,7 +373,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
   const groupPairs = sp.symmetric ? groups.map((_, i) => [i, i] as const) : groups.flatMap((_, i) => groups.map((__, j) => [i, j] as const));
   const pairsPerWeb = sp.symmetric ? nFlange : nFlange * nFlange;
 
-  for (const layouts of byPlate.values()) {
+  for (const layouts of byPlate) {
     const w = webs[layouts[0]!]!;
     const nL = layouts.length;
     const total = pairsPerWeb * nL;
@@ -372,13 +391,18 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       pruned.deflection += total;
       continue;
     }
-    const minStiff = new Map<EndPost, number>();
+    let minRigid = Infinity;
+    let minNonRigid = Infinity;
     for (const wi of layouts) {
       const lw = webs[wi]!;
       // the intermediate stiffeners' kg, as webPartsWith computes it
       const kg = lw.panels === 0 || !lw.flat ? 0 : (stiffCount.get(lw.panels) ?? 0) * lw.sides * lw.flat.b * lw.flat.t * lw.hw * KG_PER_MM3;
-      minStiff.set(lw.endPost, Math.min(minStiff.get(lw.endPost) ?? Infinity, kg));
+      if (lw.endPost === 'rigid') minRigid = Math.min(minRigid, kg);
+      else minNonRigid = Math.min(minNonRigid, kg);
     }
+    const minStiff = new Map<EndPost, number>();
+    if (minRigid < Infinity) minStiff.set('rigid', minRigid);
+    if (minNonRigid < Infinity) minStiff.set('non-rigid', minNonRigid);
     const aFloor = bearingAreaFloor(w.tw);
     let minLayoutKg = Infinity;
     for (const [ep, s] of minStiff) minLayoutKg = Math.min(minLayoutKg, s + bearingFlatCount(ep) * aFloor * w.hw * KG_PER_MM3);
@@ -447,25 +471,27 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
     }
   }
 
-  /** The per-layout quantities of a plate, made when the plate is first expanded (most never are). */
-  const ensureParts = (plate: Plate): WebParts[] => {
-    if (plate.parts.length === 0) {
-      plate.parts = plate.layouts.map((wi) => webPartsWith(webs[wi]!, L, stiffCount.get(webs[wi]!.panels) ?? 0, Lmax));
-      // the torsional requirement of intermediate flats (EN 1993-1-5 9.2.1(8)) reads the flat alone
-      for (const wi of plate.layouts) {
-        const lw = webs[wi]!;
-        if (!lw.flat || lw.panels === 0) continue;
-        const key = `${lw.grade}|${lw.flat.b}|${lw.flat.t}`;
-        let fails = torsionFails.get(key);
-        if (fails === undefined) {
-          const t = flatTorsion(lw.flat.b, lw.flat.t, fy(lw.grade, lw.flat.t, prep.fySource), o.E);
-          fails = t.limit / t.ItOverIp > 1 + 1e-9;
-          torsionFails.set(key, fails);
-        }
-        if (fails) webDead.add(wi);
-      }
+  /** The quantities of layout j of a plate, made when first asked for. */
+  const partOf = (plate: Plate, j: number): WebParts => {
+    let hit = plate.parts[j];
+    if (!hit) {
+      const w = webs[plate.layouts[j]!]!;
+      hit = webPartsWith(w, L, stiffCount.get(w.panels) ?? 0, Lmax);
+      plate.parts[j] = hit;
     }
-    return plate.parts;
+    return hit;
+  };
+  /** The torsional requirement of intermediate flats (EN 1993-1-5 9.2.1(8)) reads the flat alone: once per flat. */
+  const flatFailsTorsion = (w: WebConfig): boolean => {
+    if (!w.flat || w.panels === 0) return false;
+    const key = `${w.grade}|${w.flat.b}|${w.flat.t}`;
+    let fails = torsionFails.get(key);
+    if (fails === undefined) {
+      const t = flatTorsion(w.flat.b, w.flat.t, fy(w.grade, w.flat.t, prep.fySource), o.E);
+      fails = t.limit / t.ItOverIp > 1 + 1e-9;
+      torsionFails.set(key, fails);
+    }
+    return fails;
   };
   const patchOf = (plate: Plate, ti: number, n: number): number => {
     const key = ti * 1024 + n;
@@ -484,7 +510,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       ok = patchOf(ps.plate, ps.ti, np) <= 1 + 1e-9;
       if (ok && anySag) {
         if (ps.MelRd === 0) {
-          const s = buildSection(ps.plate.w, ps.plate.parts[0]!, ps.T, ps.B);
+          const s = buildSection(ps.plate.w, partOf(ps.plate, 0), ps.T, ps.B);
           ps.MelRd = grossProps(s, material(s, o)).Mel / o.factors.gammaM0;
         }
         ok = patchBendingFloor(forces, ps.plate.w, ps.T, panelsByCount.get(np)!, o.E, o.factors.gammaM1, sagAtForces, ps.MelRd) <= 1 + 1e-9;
@@ -506,14 +532,13 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
   const bearingFloorOf = (ps: Plates, j: number): BearingFlat => {
     if (ps.fit) return ps.fit;
     const w = webs[ps.plate.layouts[j]!]!;
-    return defaultBearing(prep, buildSection(w, ps.plate.parts[j]!, ps.T, ps.B));
+    return defaultBearing(prep, buildSection(w, partOf(ps.plate, j), ps.T, ps.B));
   };
   const surfaceOf = (w: WebConfig, T: FlangeOption, B: FlangeOption): number => L * (T.b + (T.b - w.tw) + 2 * T.t + B.b + (B.b - w.tw) + 2 * B.t + 2 * w.hw);
 
   /** Next flange pairs of a run: cheap bounds, then a node for the first set of plates they leave. */
   const advancePairs = (c: Extract<Node, { kind: 0 }>): void => {
     const { plate, pairs, d, Freq, fibT, fibB } = c;
-    ensureParts(plate);
     const w = plate.w;
     const nL = plate.layouts.length;
     const n = pairs.kg.length;
@@ -588,6 +613,20 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
     }
   };
 
+  /**
+   * Lateral-torsional buckling alone, from the load model's moment envelope at the plates' own
+   * self-weight (ltbUtilisation: the check's own computation, without building the effects): most
+   * light plates at shallow depths fail it, and this rejects them before the other checks run.
+   */
+  const envelopeOf = p.load.momentEnvelope?.bind(p.load) ?? ((g: number) => momentEnvelopeOf(p.load.effects(g).stations));
+  const ltbFails = (section: Section, g: number): boolean => {
+    const ctx = prepare(section, o);
+    const memo: Partial<Record<'top' | 'bot', SignBending>> = {};
+    const u = ltbUtilisation(ctx, envelopeOf(g), (side) => (memo[side] ??= bendingForSign(ctx, side)));
+    // the check fails above 1 + 1e-9; a hair more here leaves any round-off doubt to the check itself
+    return !(u <= (1 + 1e-9) * (1 + 1e-12));
+  };
+
   /** The checks that do not read the layout, once for these plates; then their layouts, best first. */
   const judgePlates = (nd: Extract<Node, { kind: 1 }>): void => {
     const { ps } = nd;
@@ -597,8 +636,13 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       pruned.incumbent += nL;
       return;
     }
+    const section = buildSection(webs[plate.layouts[0]!]!, partOf(plate, 0), T, B);
+    if (ltbFails(section, ps.g)) {
+      pruned.lateralTorsional += nL;
+      keepMiss({ key: [plate.layouts[0]!, ps.ti, ps.bi], section, depth: d, g: ps.g, lb: nd.lb });
+      return;
+    }
     const effects = p.load.effects(ps.g);
-    const section = buildSection(webs[plate.layouts[0]!]!, plate.parts[0]!, T, B);
     const judged: Judged = { results: [] };
     const fail = firstFailureAmong(section, effects, o, PLATE_IDS, judged);
     fullEvaluations++;
@@ -623,7 +667,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
         for (let j = 0; j < nL; j++) {
           const w = webs[plate.layouts[j]!]!;
           const b = bearingFloorOf(ps, j);
-          add[j] = plate.parts[j]!.stiffMass + bearingFlatCount(w.endPost) * b.bs * b.ts * w.hw * KG_PER_MM3;
+          add[j] = partOf(plate, j).stiffMass + bearingFlatCount(w.endPost) * b.bs * b.ts * w.hw * KG_PER_MM3;
         }
         const idx = Array.from({ length: nL }, (_, j) => j);
         idx.sort((x, y) => add[x]! - add[y]! || plate.layouts[x]! - plate.layouts[y]!);
@@ -638,7 +682,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       const idx: number[] = [];
       for (let j = 0; j < nL; j++) {
         const w = webs[plate.layouts[j]!]!;
-        lbs[j] = priceCost(prep, w, plate.parts[j]!, T, B, bearingFloorOf(ps, j), minThroat);
+        lbs[j] = priceCost(prep, w, partOf(plate, j), T, B, bearingFloorOf(ps, j), minThroat);
         idx.push(j);
       }
       idx.sort((x, y) => lbs[x]! - lbs[y]! || plate.layouts[x]! - plate.layouts[y]!);
@@ -671,11 +715,11 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       }
       ps.k++;
       const wi = plate.layouts[j]!;
-      if (webDead.has(wi)) {
+      const w = webs[wi]!;
+      if (webDead.has(wi) || flatFailsTorsion(w)) {
         pruned.webOnly++;
         continue;
       }
-      const w = webs[wi]!;
       if (!panelOk(ps, w.panels)) {
         pruned.patchLoading++;
         continue;
@@ -685,7 +729,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
         pruned.sameFlanges++;
         continue;
       }
-      const parts = plate.parts[j]!;
+      const parts = partOf(plate, j);
       const section = buildSection(w, parts, T, B);
       const judged: Judged = { results: [] };
       const fail = firstFailureAmong(section, effects, o, LAYOUT_IDS, judged);

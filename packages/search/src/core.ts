@@ -44,6 +44,8 @@ export interface PruneStats {
   deflection: number;
   patchLoading: number;
   patchBending: number;
+  /** the plates fail lateral-torsional buckling (EN 1993-1-1 6.3.2), found from the moment envelope before any other check */
+  lateralTorsional: number;
   /** the same plates failed a layout-free check (with any layout), or a panel-only check with the same panels and end post */
   sameFlanges: number;
   /** the layout failed a check that reads only the web and its stiffeners (on any flanges) */
