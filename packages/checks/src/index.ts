@@ -67,6 +67,6 @@ export { bendingForSign, envelopeAt, wplDoublySymmetric, iyDoublySymmetric, sign
 export { kSigmaInternal, kSigmaOutstand, lambdaP, rhoInternal, rhoOutstand, internalEffectiveWidths, effectiveSection } from './en1993-1-5/effective-section.js';
 export { kF, patchResistance, patchBendingInteraction, patchUtilisation, patchBendingFloor, type PatchType, type PatchInput, type PatchResult } from './en1993-1-5/patch-loading.js';
 export { fibLimit, kFibFor } from './en1993-1-5/flange-induced.js';
-export { mcr, chiLT, chiLTGeneral, momentFactors, c1EndMoments, kcEndMoments, ltbCurveWelded, ltbUtilisation, momentEnvelopeOf, type MomentEnvelope } from './en1993-1-1/ltb.js';
+export { mcr, chiLT, chiLTGeneral, momentFactors, c1EndMoments, kcEndMoments, ltbCurveWelded, ltbUtilisation, momentEnvelopeOf, wagnerZj, loadHeightZg, c3EndMoments, type MomentEnvelope } from './en1993-1-1/ltb.js';
 export { fvwd, fwRd, shearFlow, pickThroat } from './en1993-1-8/weld.js';
 export { deflection, unitLoadIntegrals, minIyForDeflection, minIyForDeflectionAt, spanAt } from './sls/deflection.js';

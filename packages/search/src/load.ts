@@ -28,6 +28,20 @@ export interface LoadModel {
    * built without the station objects: what lateral-torsional buckling reads.
    */
   momentEnvelope?(g: number): MomentEnvelope;
+  /**
+   * Bounds of the LTB moment envelopes for every self-weight g in [gLo, gHi]: per distinct x of
+   * momentEnvelope, the sagging moment lies in [sagLo, sagHi] and the hogging magnitude in
+   * [hogLo, hogHi] (N·mm, all ≥ 0).
+   */
+  momentEnvelopeRange?(gLo: number, gHi: number): MomentRange;
+}
+
+export interface MomentRange {
+  xs: Float64Array;
+  sagLo: Float64Array;
+  sagHi: Float64Array;
+  hogLo: Float64Array;
+  hogHi: Float64Array;
 }
 
 export interface DeflectionAffine {
@@ -164,6 +178,7 @@ export function analysisLoadModel(a: Analysis): LoadModel {
     deflectionAffine: analysisDeflectionAffine(a),
     sagFloorAt: (xs, gLo, gHi) => xs.map((x) => analysisSagFloorAt(a, x, gLo, gHi)),
     momentEnvelope: momentEnvelopeFor(a),
+    ...rangeOf(a),
   };
 }
 
@@ -176,6 +191,20 @@ export function analysisLoadModel(a: Analysis): LoadModel {
  * bit; falls back to analysisMomentEnvelope when the analysis does not have that form.
  */
 export function momentEnvelopeFor(a: Analysis): (g: number) => MomentEnvelope {
+  return foldedEnvelope(a)?.at ?? ((g) => analysisMomentEnvelope(a, g));
+}
+
+function rangeOf(a: Analysis): { momentEnvelopeRange?: (gLo: number, gHi: number) => MomentRange } {
+  const f = foldedEnvelope(a);
+  return f ? { momentEnvelopeRange: f.range } : {};
+}
+
+/**
+ * The folded form behind momentEnvelopeFor, and the envelope bounds over a range of g: each folded
+ * term hiA + γ·g·Mg is affine in g, so over [gLo, gHi] it lies between its values at the ends; the
+ * envelope (the largest term, or 0) lies between the largest lower end and the largest upper end.
+ */
+function foldedEnvelope(a: Analysis): { at: (g: number) => MomentEnvelope; range: (gLo: number, gHi: number) => MomentRange } | null {
   const nK = a.stationX.length;
   const nC = a.gammaG.length;
   const X = a.stationX;
@@ -193,7 +222,7 @@ export function momentEnvelopeFor(a: Analysis): (g: number) => MomentEnvelope {
       }
     }
   }
-  if (!ok) return (g) => analysisMomentEnvelope(a, g);
+  if (!ok) return null;
   const gammas = [...new Set(a.gammaG)];
   const nG = gammas.length;
   const G = Float64Array.from(gammas);
@@ -217,7 +246,36 @@ export function momentEnvelopeFor(a: Analysis): (g: number) => MomentEnvelope {
   const xs = Float64Array.from(xsAll);
   const nX = xs.length;
   const Mg = a.Mg;
-  return (g) => {
+  const range = (gLo: number, gHi: number): MomentRange => {
+    const sagLo = new Float64Array(nX);
+    const sagHi = new Float64Array(nX);
+    const hogLo = new Float64Array(nX);
+    const hogHi = new Float64Array(nX);
+    for (let k = 0; k < nK; k++) {
+      let s0 = 0;
+      let s1 = 0;
+      let h0 = 0;
+      let h1 = 0;
+      for (let j = 0; j < nG; j++) {
+        const gg = G[j]!;
+        const pa = hiA[k * nG + j]! + gg * (gLo * Mg[k]!);
+        const pb = hiA[k * nG + j]! + gg * (gHi * Mg[k]!);
+        s0 = Math.max(s0, Math.min(pa, pb));
+        s1 = Math.max(s1, pa, pb);
+        const qa = loA[k * nG + j]! + gg * (gLo * Mg[k]!);
+        const qb = loA[k * nG + j]! + gg * (gHi * Mg[k]!);
+        h0 = Math.max(h0, -Math.max(qa, qb));
+        h1 = Math.max(h1, -qa, -qb);
+      }
+      const n = slot[k]!;
+      sagLo[n] = Math.max(sagLo[n]!, s0);
+      sagHi[n] = Math.max(sagHi[n]!, s1);
+      hogLo[n] = Math.max(hogLo[n]!, h0);
+      hogHi[n] = Math.max(hogHi[n]!, h1);
+    }
+    return { xs, sagLo, sagHi, hogLo, hogHi };
+  };
+  const at = (g: number): MomentEnvelope => {
     const sag = new Float64Array(nX);
     const hog = new Float64Array(nX);
     for (let k = 0; k < nK; k++) {
@@ -237,6 +295,7 @@ export function momentEnvelopeFor(a: Analysis): (g: number) => MomentEnvelope {
     }
     return { xs, sag, hog };
   };
+  return { at, range };
 }
 
 /**

@@ -160,7 +160,7 @@ export function momentFactors(pts: readonly { x: number; M: number }[]): MomentF
  * rectangles), z from the centroid, positive towards the compression flange (ENV 1993-1-1 F.1.4
  * definition). Positive when the larger flange is in compression.
  */
-export function wagnerZj(ctx: CheckContext, side: FlangeSide): number {
+export function wagnerZj(ctx: { s: CheckContext['s']; g: Pick<CheckContext['g'], 'zElastic' | 'h' | 'Iy' | 'zShear'> }, side: FlangeSide): number {
   const { s, g } = ctx;
   const sgn = side === 'top' ? 1 : -1;
   const zc = g.zElastic;
@@ -184,7 +184,7 @@ export function wagnerZj(ctx: CheckContext, side: FlangeSide): number {
 }
 
 /** Load height above the shear centre (mm), positive destabilising, for downward (gravity) loads. */
-export function loadHeightZg(ctx: CheckContext): number {
+export function loadHeightZg(ctx: { o: Pick<CheckContext['o'], 'loadHeight'>; g: Pick<CheckContext['g'], 'h' | 'zShear'> }): number {
   const { o, g } = ctx;
   if (o.loadHeight === 'top-flange') return g.h - g.zShear;
   if (o.loadHeight === 'bottom-flange') return -g.zShear;
@@ -382,4 +382,4 @@ function ltbCore(
 }
 
 /** zj depends on the section and the compression side only. */
-const zjCached = perSide(wagnerZj);
+const zjCached = perSide((ctx, side) => wagnerZj(ctx, side));
