@@ -44,6 +44,7 @@ import {
   type PruneStats,
   type SliceResult,
 } from './core.js';
+import { ltbSetBound } from './ltb-bound.js';
 import { bearingPairs, buildSection, C2, flangeMass, webPartsWith, type WebParts } from './objective.js';
 import type { FlangeOption, WebConfig } from './space.js';
 
@@ -133,7 +134,23 @@ interface Pairs {
 }
 
 type Node =
-  | { kind: 0; lb: number; seq: number; plate: Plate; pairs: Pairs; k: number; d: number; Freq: number; fibT: number; fibB: number }
+  | {
+      kind: 0;
+      lb: number;
+      seq: number;
+      plate: Plate;
+      pairs: Pairs;
+      k: number;
+      d: number;
+      Freq: number;
+      fibT: number;
+      fibB: number;
+      gt: number;
+      gb: number;
+      /** per flange option fixed on one side: whether every pair of the run with it fails LTB (ltbSetBound) */
+      ltbTop?: Map<number, boolean>;
+      ltbBot?: Map<number, boolean>;
+    }
   | { kind: 1; lb: number; seq: number; ps: Plates }
   | { kind: 2; lb: number; seq: number; ps: Plates };
 
@@ -467,7 +484,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       const lb = floorOf(plate.webMass + kgFloor + minLayoutKg, 0);
       const fibT = plate.fibTop === Infinity ? Infinity : plate.fibTop / (GT.fy * GT.fy);
       const fibB = plate.fibBot === Infinity ? Infinity : plate.fibBot / (GB.fy * GB.fy);
-      heap.push({ kind: 0, lb, seq: seq++, plate, pairs, k, d, Freq, fibT, fibB });
+      heap.push({ kind: 0, lb, seq: seq++, plate, pairs, k, d, Freq, fibT, fibB, gt, gb });
     }
   }
 
@@ -536,6 +553,40 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
   };
   const surfaceOf = (w: WebConfig, T: FlangeOption, B: FlangeOption): number => L * (T.b + (T.b - w.tw) + 2 * T.t + B.b + (B.b - w.tw) + 2 * B.t + 2 * w.hw);
 
+  const ltbSet = p.load.momentEnvelopeRange ? ltbSetBound(o) : undefined;
+  /**
+   * Whether every pair of run c with flange option `fixed` on the top (or the bottom) fails
+   * lateral-torsional buckling, whatever the other flange of its group: ltbSetBound over the
+   * group's options, at the self-weights they give. Once per option and run.
+   */
+  const ltbDeadWith = (c: Extract<Node, { kind: 0 }>, top: boolean, fixed: number): boolean => {
+    if (!ltbSet!.bounds(top)) return false;
+    const memo = top ? (c.ltbTop ??= new Map()) : (c.ltbBot ??= new Map());
+    let dead = memo.get(fixed);
+    if (dead === undefined) {
+      const group = groups[top ? c.gb : c.gt]!;
+      const start = groupStart[top ? c.gb : c.gt]!;
+      const others = group.options.map((_, i) => start + i);
+      const w = c.plate.w;
+      const F = flanges[fixed]!;
+      let gLo = Infinity;
+      let gHi = -Infinity;
+      for (const k of others) {
+        const g = top ? selfWeightOf(prep, w, F, flanges[k]!) : selfWeightOf(prep, w, flanges[k]!, F);
+        gLo = Math.min(gLo, g);
+        gHi = Math.max(gHi, g);
+      }
+      const part = partOf(c.plate, 0);
+      const widest = flanges[others[others.length - 1]!]!;
+      const section = top ? buildSection(w, part, F, widest) : buildSection(w, part, widest, F);
+      const u = ltbSet!.lowerBound(section, top, others.map((k) => flanges[k]!.b), p.load.momentEnvelopeRange!(gLo, gHi));
+      // a bound: only a clear failure drops the set (the margin covers round-off)
+      dead = u > 1 + 1e-6;
+      memo.set(fixed, dead);
+    }
+    return dead;
+  };
+
   /** Next flange pairs of a run: cheap bounds, then a node for the first set of plates they leave. */
   const advancePairs = (c: Extract<Node, { kind: 0 }>): void => {
     const { plate, pairs, d, Freq, fibT, fibB } = c;
@@ -570,6 +621,11 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       const Iy = iyOfPlates(w.hw, w.tw, T.b, T.t, B.b, B.t) * (1 + 1e-9);
       if (plate.IyReq > 0 && Iy < plate.IyReq) {
         pruned.deflection += nL;
+        continue;
+      }
+      // mono-symmetric runs: a top flange (or a bottom one) with which every pair of the run fails LTB
+      if (ltbSet && !sp.symmetric && (ltbDeadWith(c, true, ti) || ltbDeadWith(c, false, bi))) {
+        pruned.lateralTorsional += nL;
         continue;
       }
       const g = selfWeightOf(prep, w, T, B);

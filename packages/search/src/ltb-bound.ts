@@ -1,0 +1,284 @@
+import {
+  c1EndMoments,
+  c3EndMoments,
+  chiLT,
+  chiLTGeneral,
+  loadHeightZg,
+  ltbCurveWelded,
+  material,
+  mcr,
+  wagnerZj,
+  ALPHA,
+  type BucklingCurve,
+  type CheckOptions,
+  type Section,
+} from '@platesmith/checks';
+import type { MomentRange } from './load.js';
+
+/**
+ * A lower bound on the utilisation of 'lateral-torsional-buckling' (EN 1993-1-1 6.3.2, as
+ * ltbCheck computes it) that holds for every section of a set at once — one flange fixed, the
+ * other any of a list of plates — whatever its self-weight in a range. The search uses it to drop
+ * every pair with that flange when the bound exceeds 1, without judging any of them.
+ *
+ * Why it is a bound, term by term (ltbCheck's computation in brackets):
+ * - MEd of a segment [max |M| over the segment's points]: at least the largest lower end of the
+ *   envelope bounds over the self-weight range (MomentRange), interpolated at the segment ends as
+ *   the check interpolates the envelope (a positive combination, so bounds carry over).
+ * - C1, C2, C3 [momentFactors of the envelope diagram]: the shapes the diagram can take anywhere
+ *   in the range are a subset of {end moments, uniform load, central point load, other}; a shape
+ *   is left out only when some station rules it out for every diagram within the bounds (its
+ *   deviation from the chord, its end moments or its fit exceed the check's tolerances beyond the
+ *   band). For end moments ψ ≥ ψlo (both ends of one sign), C1 ≤ C1(ψlo) and C3 ≥ C3(ψlo) — the
+ *   tabulated C1 falls and C3 rises as ψ goes from 0 to 1. Mcr is taken as the largest over the
+ *   shapes left: Mcr grows with C1 and falls as C2·zg − C3·zj grows (so C3 is taken at whichever
+ *   end of its range lowers that term).
+ * - Section properties (Iz, It, Iw, Mpl, zj, zg, h/b) are those of each plate of the set, by the
+ *   closed forms grossProps uses (to round-off; the search's margin on the bound is 1e-6).
+ * - Wy fy [Mpl, Mel or Meff by the class]: at most Mpl (Meff ≤ Mel ≤ Mpl).
+ * - Mb,Rd = χLT(λ̄LT)·Wy fy/γM1 with λ̄LT = √(Wy fy/Mcr) grows with Mcr (χ falls with λ̄) and with
+ *   Wy fy for a fixed Mcr (χ·λ̄² grows with λ̄ on both curves used; a test checks it on a fine
+ *   grid). Where the reduction may be ignored (MEd/Mcr ≤ λ̄LT,0² possible), Mb,Rd ≤ Wy fy/γM1.
+ * With the modification factor f of 6.3.2.3(2) (ltbModification) χ·λ̄² is not monotone; the bound
+ * is then not offered (undefined).
+ */
+export interface LtbSetBound {
+  /**
+   * A lower bound on the LTB utilisation of every section built from one fixed flange and any of
+   * `others` (plates of one thickness and grade) on the other side: `widest` is that set's section
+   * with the widest of them. Only the segments where the fixed flange is in compression are
+   * bounded (sagging for a fixed top flange); 0 when that flange is restrained continuously.
+   */
+  lowerBound(widest: Section, fixedTop: boolean, others: readonly number[], range: MomentRange): number;
+  /** whether lowerBound can be above 0 with this flange fixed (its compression flange is not restrained continuously) */
+  bounds(fixedTop: boolean): boolean;
+}
+
+interface Shape {
+  C1: number;
+  C2: number;
+  /** for end moments: the range of C3 (C3lo ≤ C3 ≤ 1) */
+  C3: number;
+  C3lo: number;
+}
+
+interface Segment {
+  top: boolean;
+  L: number;
+  MEdLo: number;
+  shapes: Shape[];
+}
+
+const TRANSVERSE: Shape = { C1: 1.0, C2: 0.63, C3: 1.0, C3lo: 1.0 };
+const UDL: Shape = { C1: 1.127, C2: 0.454, C3: 0.525, C3lo: 0.525 };
+const POINT: Shape = { C1: 1.348, C2: 0.63, C3: 1.73, C3lo: 1.73 };
+
+export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
+  if (o.ltbMethod === 'rolled-equivalent' && o.ltbModification) return undefined;
+  const rolled = o.ltbMethod === 'rolled-equivalent';
+  const lambda0 = rolled ? 0.4 : 0.2;
+  const sup = o.supports;
+  const xStart = sup[0]!;
+  const xEnd = sup[sup.length - 1]!;
+  const cutsOf = (line: CheckOptions['restraint']): number[] | null =>
+    line.kind === 'continuous' ? null : [...new Set([...sup, ...line.at.filter((x) => x > xStart && x < xEnd)])].sort((a, b) => a - b);
+  const cutsTop = cutsOf(o.restraint);
+  const cutsBot = cutsOf(o.restraintBottom);
+  /** χLT·Mk, the check's Mb,Rd·γM1 for Wy fy = Mk */
+  const reduced = (Mk: number, Mcr: number, curve: BucklingCurve): number => {
+    const lambdaLT = Math.sqrt(Mk / Mcr);
+    if (lambdaLT <= lambda0) return Mk;
+    const chi = rolled ? chiLT({ lambdaLT, alphaLT: ALPHA[curve], lambdaLT0: 0.4, beta: 0.75 }).chiLT : chiLTGeneral(lambdaLT, curve).chiLT;
+    return chi * Mk;
+  };
+
+  return {
+    bounds: (fixedTop) => (fixedTop ? cutsTop : cutsBot) !== null,
+    lowerBound(widest, fixedTop, others, range) {
+      let globalHi = 0;
+      for (let i = 0; i < range.xs.length; i++) globalHi = Math.max(globalHi, range.sagHi[i]!, range.hogHi[i]!);
+      const tiny = Math.max(1, 1e-9 * globalHi);
+      const segs: Segment[] = [];
+      for (const top of [fixedTop]) {
+        const cuts = top ? cutsTop : cutsBot;
+        if (!cuts) continue;
+        const lo = top ? range.sagLo : range.hogLo;
+        const hi = top ? range.sagHi : range.hogHi;
+        for (let i = 0; i + 1 < cuts.length; i++) {
+          const s = segmentBound(range.xs, lo, hi, cuts[i]!, cuts[i + 1]!);
+          // the check skips a segment (or a sign) whose moment is at most its round-off threshold
+          if (s.MEdLo > tiny * (1 + 1e-9)) segs.push({ top, L: cuts[i + 1]! - cuts[i]!, MEdLo: s.MEdLo, shapes: s.shapes });
+        }
+      }
+      if (segs.length === 0) return 0;
+      const m = material(widest, o);
+      // per segment, the largest Mb,Rd·γM1 any section of the set can have
+      const best = new Float64Array(segs.length);
+      for (const b of others) {
+        const sec: Section = fixedTop ? { ...widest, bot: { b, t: widest.bot.t } } : { ...widest, top: { b, t: widest.top.t } };
+        const p = stackProps(sec, m.fyTop, m.fyBot, m.fyw);
+        const zg = loadHeightZg({ o, g: p });
+        const curve = ltbCurveWelded(p.h, Math.min(sec.top.b, sec.bot.b));
+        let zjTop = Number.NaN;
+        let zjBot = Number.NaN;
+        for (let i = 0; i < segs.length; i++) {
+          const sg = segs[i]!;
+          let zj: number;
+          if (sg.top) zj = Number.isNaN(zjTop) ? (zjTop = wagnerZj({ s: sec, g: p }, 'top')) : zjTop;
+          else zj = Number.isNaN(zjBot) ? (zjBot = wagnerZj({ s: sec, g: p }, 'bot')) : zjBot;
+          let McrMax = 0;
+          for (const sh of sg.shapes) {
+            // the C3 of its range that makes C2·zg − C3·zj least
+            const C3 = zj > 0 ? sh.C3 : sh.C3lo;
+            McrMax = Math.max(McrMax, mcr({ E: o.E, G: o.G, Iz: p.Iz, It: p.It, Iw: p.Iw, L: sg.L, C1: sh.C1, C2: sh.C2, C3, zg, zj }));
+          }
+          const Mb = sg.MEdLo / McrMax <= lambda0 * lambda0 * (1 + 1e-9) ? p.Mpl : reduced(p.Mpl, McrMax, curve);
+          if (!(Mb < Infinity)) return 0;
+          best[i] = Math.max(best[i]!, Mb);
+        }
+      }
+      let u = 0;
+      for (let i = 0; i < segs.length; i++) u = Math.max(u, (segs[i]!.MEdLo * o.factors.gammaM1) / best[i]!);
+      return u;
+    },
+  };
+}
+
+/**
+ * The centroid, Iy, h and shear centre of a three-plate I (mm, mm⁴), as grossProps gives them
+ * (the shear centre of grossProps' formula; the centroid and Iy of the plate stack): what zg and
+ * zj read.
+ */
+function stackProps(
+  s: Section,
+  fyTop: number,
+  fyBot: number,
+  fyw: number,
+): { h: number; zElastic: number; Iy: number; zShear: number; Iz: number; It: number; Iw: number; Mpl: number } {
+  const tb = s.bot.t;
+  const h = s.hw + tb + s.top.t;
+  const plates = [
+    [s.bot.b, 0, tb, fyBot],
+    [s.tw, tb, tb + s.hw, fyw],
+    [s.top.b, tb + s.hw, h, fyTop],
+  ] as const;
+  let A = 0;
+  let S = 0;
+  for (const [b, z0, z1] of plates) {
+    A += b * (z1 - z0);
+    S += b * (z1 - z0) * ((z0 + z1) / 2);
+  }
+  const zc = S / A;
+  let Iy = 0;
+  for (const [b, z0, z1] of plates) {
+    const t = z1 - z0;
+    Iy += (b * t ** 3) / 12 + b * t * ((z0 + z1) / 2 - zc) ** 2;
+  }
+  const hs = s.hw + (s.top.t + s.bot.t) / 2;
+  const IzTop = (s.top.t * s.top.b ** 3) / 12;
+  const IzBot = (s.bot.t * s.bot.b ** 3) / 12;
+  // the plastic neutral axis halves the force; Mpl about it (as plastic() in the check library)
+  let F = 0;
+  for (const [b, z0, z1, f] of plates) F += b * (z1 - z0) * f;
+  let below = 0;
+  let zp = 0;
+  for (const [b, z0, z1, f] of plates) {
+    const fr = b * (z1 - z0) * f;
+    if (below + fr >= F / 2) {
+      zp = z0 + (F / 2 - below) / (b * f);
+      break;
+    }
+    below += fr;
+    zp = z1;
+  }
+  let Mpl = 0;
+  for (const [b, z0, z1, f] of plates) {
+    if (z1 <= zp) Mpl += b * f * (z1 - z0) * (zp - (z0 + z1) / 2);
+    else if (z0 >= zp) Mpl += b * f * (z1 - z0) * ((z0 + z1) / 2 - zp);
+    else Mpl += (b * f * ((zp - z0) ** 2 + (z1 - zp) ** 2)) / 2;
+  }
+  return {
+    h,
+    zElastic: zc,
+    Iy,
+    zShear: s.bot.t / 2 + (hs * IzTop) / (IzTop + IzBot),
+    Iz: IzTop + IzBot + (s.hw * s.tw ** 3) / 12,
+    It: (s.top.b * s.top.t ** 3 + s.bot.b * s.bot.t ** 3 + s.hw * s.tw ** 3) / 3,
+    Iw: (IzTop * IzBot * hs * hs) / (IzTop + IzBot),
+    Mpl,
+  };
+}
+
+/** The value at x of per-x values v over ascending xs, linear between neighbours (the check's interpolation). */
+function at(xs: Float64Array, v: Float64Array, x: number): number {
+  const n = xs.length;
+  if (x <= xs[0]!) return v[0]!;
+  if (x >= xs[n - 1]!) return v[n - 1]!;
+  let lo = 0;
+  let hi = n - 1;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (xs[mid]! < x) lo = mid;
+    else hi = mid;
+  }
+  if (xs[hi] === x) return v[hi]!;
+  const t = (x - xs[lo]!) / (xs[hi]! - xs[lo]!);
+  return v[lo]! + t * (v[hi]! - v[lo]!);
+}
+
+/** Bounds of one segment's moment and the moment shapes its diagram can take (magnitudes, one sign). */
+function segmentBound(xs: Float64Array, lo: Float64Array, hi: Float64Array, x0: number, x1: number): { MEdLo: number; shapes: Shape[] } {
+  const px: number[] = [x0];
+  const pl: number[] = [at(xs, lo, x0)];
+  const ph: number[] = [at(xs, hi, x0)];
+  for (let i = 0; i < xs.length; i++) {
+    if (xs[i]! > x0 && xs[i]! < x1) {
+      px.push(xs[i]!);
+      pl.push(lo[i]!);
+      ph.push(hi[i]!);
+    }
+  }
+  if (x1 !== x0) {
+    px.push(x1);
+    pl.push(at(xs, lo, x1));
+    ph.push(at(xs, hi, x1));
+  }
+  const n = px.length;
+  let MEdLo = 0;
+  let MmaxHi = 0;
+  for (let i = 0; i < n; i++) {
+    MEdLo = Math.max(MEdLo, pl[i]!);
+    MmaxHi = Math.max(MmaxHi, ph[i]!);
+  }
+  const band = 1e-9 * MmaxHi;
+  const shapes: Shape[] = [TRANSVERSE];
+  // end moments: unless some station lies off every possible chord by more than 1 % of the largest possible Mmax
+  let linear = true;
+  for (let i = 1; i + 1 < n && linear; i++) {
+    const t = x1 > x0 ? (px[i]! - x0) / (x1 - x0) : 0;
+    const chordHi = ph[0]! + t * (ph[n - 1]! - ph[0]!);
+    const chordLo = pl[0]! + t * (pl[n - 1]! - pl[0]!);
+    if (pl[i]! - chordHi > 0.01 * MmaxHi + band || chordLo - ph[i]! > 0.01 * MmaxHi + band) linear = false;
+  }
+  if (linear) {
+    const big = Math.max(ph[0]!, ph[n - 1]!);
+    const psiLo = big > 0 ? Math.min(1, Math.min(pl[0]!, pl[n - 1]!) / big) : 1;
+    shapes.push({ C1: c1EndMoments(psiLo), C2: 0, C3: 1, C3lo: c3EndMoments(psiLo) });
+  }
+  // uniform load / central point load: ends within 5 % and every point within 3 % of the shape
+  const endsSmall = pl[0]! <= 0.05 * MmaxHi + band && pl[n - 1]! <= 0.05 * MmaxHi + band;
+  if (endsSmall && x1 > x0 && MEdLo > 0) {
+    const fits = (shape: (xi: number) => number): boolean => {
+      for (let i = 0; i < n; i++) {
+        const f = shape((px[i]! - x0) / (x1 - x0));
+        if (pl[i]! / MmaxHi - f > 0.03 + 1e-9 || f - ph[i]! / MEdLo > 0.03 + 1e-9) return false;
+      }
+      return true;
+    };
+    if (fits((xi) => 4 * xi * (1 - xi))) shapes.push(UDL);
+    if (fits((xi) => 1 - Math.abs(2 * xi - 1))) shapes.push(POINT);
+  } else if (endsSmall) {
+    shapes.push(UDL, POINT);
+  }
+  return { MEdLo, shapes };
+}

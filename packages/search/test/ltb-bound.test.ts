@@ -1,0 +1,105 @@
+import { describe, expect, it } from 'vitest';
+import { fc, test } from '@fast-check/vitest';
+import { bendingForSign, chiLT, chiLTGeneral, defaultOptions, ltbUtilisation, prepare, ALPHA, type Section } from '@platesmith/checks';
+import { analyse } from '@platesmith/actions';
+import { analysisLoadModel } from '../src/index.js';
+import { ltbSetBound } from '../src/ltb-bound.js';
+
+/**
+ * Soundness of the lateral-torsional-buckling bound over a set of sections (consistency
+ * properties, no published source: they tie the search's bound to the check library).
+ */
+describe('premise: χLT·λ̄LT² grows with λ̄LT', () => {
+  // Mb,Rd = χ(λ̄)·Mk with λ̄² = Mk/Mcr is χ(λ̄)·λ̄²·Mcr: for a fixed Mcr it grows with Mk exactly
+  // when χ·λ̄² grows with λ̄. Checked on a fine grid for the curves the LTB check uses (6.3.2.2 with
+  // the column curves, 6.3.2.3 with λ̄LT,0 = 0.4, β = 0.75), welded I: curves c and d.
+  for (const curve of ['a', 'b', 'c', 'd'] as const) {
+    it(`curve ${curve}`, () => {
+      let prevG = 0;
+      let prevR = 0;
+      // the largest relative fall from one grid point to the next (round-off only: where χ = 1/λ̄²,
+      // χ·λ̄² is 1 within an ulp; the search's margin is 1e-6)
+      let worst = 0;
+      for (let i = 1; i <= 60000; i++) {
+        const l = i * 1e-4;
+        const g = chiLTGeneral(l, curve).chiLT * l * l;
+        const r = chiLT({ lambdaLT: l, alphaLT: ALPHA[curve], lambdaLT0: 0.4, beta: 0.75 }).chiLT * l * l;
+        worst = Math.max(worst, (prevG - g) / g, (prevR - r) / r);
+        prevG = g;
+        prevR = r;
+      }
+      expect(worst).toBeLessThan(1e-12);
+    });
+  }
+});
+
+const caseArb = fc.record({
+  spans: fc.constantFrom([12000], [20000], [9000, 12000], [16000, 20000, 16000]).map((s) => [...s]),
+  gk: fc.double({ min: 2, max: 30, noNaN: true }),
+  q: fc.double({ min: 2, max: 40, noNaN: true }),
+  P: fc.constantFrom(0, 150, 400),
+  hw: fc.constantFrom(600, 900, 1300),
+  tw: fc.constantFrom(8, 12),
+  fixedB: fc.constantFrom(200, 300, 450),
+  fixedT: fc.constantFrom(12, 20, 30),
+  otherT: fc.constantFrom(12, 20, 30),
+  others: fc.subarray([150, 200, 250, 300, 400, 500], { minLength: 1 }),
+  fixedTop: fc.boolean(),
+  restraint: fc.constantFrom(1, 2, 4),
+  bottom: fc.constantFrom(0, 1, 2),
+  loadHeight: fc.constantFrom('top-flange', 'shear-centre', 'bottom-flange') as fc.Arbitrary<'top-flange' | 'shear-centre' | 'bottom-flange'>,
+  method: fc.constantFrom('general', 'rolled-equivalent') as fc.Arbitrary<'general' | 'rolled-equivalent'>,
+  gSpread: fc.double({ min: 0, max: 6, noNaN: true }),
+  t: fc.array(fc.double({ min: 0, max: 1, noNaN: true }), { minLength: 3, maxLength: 3 }),
+});
+
+describe('ltbSetBound', () => {
+  test.prop([caseArb], { numRuns: 150 })('never above the LTB utilisation of any section of the set, at any self-weight of the range', (c) => {
+    const L = c.spans.reduce((x, y) => x + y, 0);
+    const supports = [0, ...c.spans.map((_, i) => c.spans.slice(0, i + 1).reduce((x, y) => x + y, 0))];
+    const at = (n: number) => (n === 0 ? { kind: 'continuous' as const } : { kind: 'at' as const, at: Array.from({ length: n * c.spans.length + 1 }, (_, i) => (L * i) / (n * c.spans.length)) });
+    const o = defaultOptions(L, { supports, restraint: at(c.restraint), restraintBottom: at(c.bottom), loadHeight: c.loadHeight, ltbMethod: c.method });
+    const a = analyse({
+      spans: c.spans,
+      actions: [
+        { kind: 'permanent', load: 'udl', value: c.gk },
+        { kind: 'variable', load: 'udl', value: c.q, category: 'B' },
+        ...(c.P > 0 ? [{ kind: 'variable' as const, load: 'point' as const, value: c.P * 1e3, at: c.spans[0]! / 2, ss: 150, category: 'E' }] : []),
+      ],
+      combination: '6.10',
+    });
+    const load = analysisLoadModel(a);
+    const sectionOf = (k: number): Section => {
+      const fixed = { b: c.fixedB, t: c.fixedT };
+      const other = { b: c.others[k]!, t: c.otherT };
+      return { hw: c.hw, tw: c.tw, top: c.fixedTop ? fixed : other, bot: c.fixedTop ? other : fixed, stiffeners: null, endPost: 'rigid', grade: { web: 'S355', top: 'S355', bot: 'S355', stiffener: 'S355' } };
+    };
+    const gLo = 2;
+    const gHi = 2 + c.gSpread;
+    const widest = sectionOf(c.others.indexOf(Math.max(...c.others)));
+    const bound = ltbSetBound(o)!.lowerBound(widest, c.fixedTop, c.others, load.momentEnvelopeRange!(gLo, gHi));
+    for (let k = 0; k < c.others.length; k++) {
+      const s = sectionOf(k);
+      const ctx = prepare(s, o);
+      for (const t of [0, 1, ...c.t]) {
+        const u = ltbUtilisation(ctx, load.momentEnvelope!(gLo + t * (gHi - gLo)), (side) => bendingForSign(ctx, side));
+        expect(bound).toBeLessThanOrEqual(u * (1 + 1e-9));
+      }
+    }
+  });
+
+  it('is not offered with the modification factor f of 6.3.2.3(2) (χ·λ̄² is then not monotone)', () => {
+    expect(ltbSetBound(defaultOptions(10000, { ltbMethod: 'rolled-equivalent', ltbModification: true }))).toBeUndefined();
+  });
+
+  it('bites: a narrow compression flange on a long unrestrained span fails for every tension flange', () => {
+    const L = 20000;
+    const o = defaultOptions(L, { restraint: { kind: 'at', at: [0, L] } });
+    const a = analyse({ spans: [L], actions: [{ kind: 'permanent', load: 'udl', value: 20 }, { kind: 'variable', load: 'udl', value: 20, category: 'B' }], combination: '6.10' });
+    const load = analysisLoadModel(a);
+    const widths = [200, 300, 400, 500];
+    const sectionOf = (k: number): Section => ({ hw: 1200, tw: 10, top: { b: 200, t: 15 }, bot: { b: widths[k]!, t: 25 }, stiffeners: null, endPost: 'rigid', grade: { web: 'S355', top: 'S355', bot: 'S355', stiffener: 'S355' } });
+    const bound = ltbSetBound(o)!.lowerBound(sectionOf(3), true, widths, load.momentEnvelopeRange!(2, 4));
+    expect(bound).toBeGreaterThan(1);
+  });
+});
