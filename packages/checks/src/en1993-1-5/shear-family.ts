@@ -104,7 +104,7 @@ export function shearBucklingCheck(ctx: CheckContext, panels: readonly PanelShea
 /** EN 1993-1-5 7.1 where the panel needs 5.1(2), else EN 1993-1-1 6.2.8. */
 export function bendingShearCheck(ctx: CheckContext, panels: readonly PanelShear[], stations: readonly Station[]): CheckResult {
   if (stations.length === 0) return notApplicable('bending-shear', 'EN 1993-1-5 7.1', NO_STATIONS);
-  let worst: StationInteraction | null = null;
+  let worst = null as StationInteraction | null;
   // 7.1(1) holds at every section but those within hw/2 of a support: add the sections at
   // support ± hw/2 (governing moment and largest |shear| interpolated between stations)
   const xA = ctx.o.supports[0]!;
@@ -116,17 +116,41 @@ export function bendingShearCheck(ctx: CheckContext, panels: readonly PanelShear
       extra.push({ x, MEd: envelopeAt(stations, x, pickM).value, VEd: absAt(stations, x, pickV) });
     }
   }
-  for (const st of extra.length ? [...stations, ...extra] : stations) {
-    const own = panels.filter((p) => st.x >= p.panel.x0 - 1e-9 && st.x <= p.panel.x1 + 1e-9);
-    const candidates: StationInteraction[] = [];
-    for (const ps of own.length > 0 ? own : panels) {
-      candidates.push(ps.needed ? stationInteraction71(ctx, ps, st) : stationInteraction628(ctx, st));
+  // the panels a station lies in (within 1e-9 mm of either edge), or every panel when none: with
+  // the panels in x order (as panelsOf gives them) a bisection finds the first, else a scan
+  let ordered = true;
+  for (let i = 1; i < panels.length; i++) if (panels[i]!.panel.x0 < panels[i - 1]!.panel.x0 || panels[i]!.panel.x1 < panels[i - 1]!.panel.x1) ordered = false;
+  const consider = (ps: PanelShear, st: Station): void => {
+    const c = ps.needed ? stationInteraction71(ctx, ps, st) : stationInteraction628(ctx, st);
+    if (c.required && (worst === null || c.utilisation > worst.utilisation)) worst = c;
+  };
+  const visit = (st: Station): void => {
+    const inside = (p: PanelShear) => st.x >= p.panel.x0 - 1e-9 && st.x <= p.panel.x1 + 1e-9;
+    let any = false;
+    if (ordered) {
+      let lo = 0;
+      let hi = panels.length;
+      while (lo < hi) {
+        const mid = (lo + hi) >> 1;
+        if (st.x <= panels[mid]!.panel.x1 + 1e-9) hi = mid;
+        else lo = mid + 1;
+      }
+      for (let i = lo; i < panels.length && panels[i]!.panel.x0 - 1e-9 <= st.x; i++) {
+        if (!inside(panels[i]!)) continue;
+        any = true;
+        consider(panels[i]!, st);
+      }
+    } else {
+      for (const ps of panels) {
+        if (!inside(ps)) continue;
+        any = true;
+        consider(ps, st);
+      }
     }
-    for (const c of candidates) {
-      if (!c.required) continue;
-      if (worst === null || c.utilisation > worst.utilisation) worst = c;
-    }
-  }
+    if (!any) for (const ps of panels) consider(ps, st);
+  };
+  for (const st of stations) visit(st);
+  for (const st of extra) visit(st);
   if (worst === null) {
     const anyNeeded = panels.some((p) => p.needed);
     return notApplicable(
