@@ -89,15 +89,26 @@ export function firstFailure(section: Section, effects: Effects, options: CheckO
  * The first failing check among `ids` (tried in JUDGE_ORDER), or null when all of them pass. The
  * search runs the checks that do not read the stiffener layout once per set of plates, and the
  * rest once per layout: a candidate passes iff both parts pass (the two parts cover CHECK_ORDER).
+ * `known`: results already computed for this very section and effects (by a caller that knows a
+ * check reads nothing that differs), used instead of running those checks again.
  */
-export function firstFailureAmong(section: Section, effects: Effects, options: CheckOptions, ids: readonly CheckId[], out?: Judged): CheckResult | null {
+export function firstFailureAmong(
+  section: Section,
+  effects: Effects,
+  options: CheckOptions,
+  ids: readonly CheckId[],
+  out?: Judged,
+  known?: ReadonlyMap<CheckId, CheckResult>,
+): CheckResult | null {
   const ctx0 = prepare(section, options);
   const t0 = { ...bendingThunks(ctx0, effects), ...shearThunks(ctx0, effects) };
   let tb: typeof t0 | null = null;
   let bearing = ctx0.bearing;
   for (const id of ids) {
     let r: CheckResult;
-    if (BEARING_DEPENDENT.has(id)) {
+    const given = known?.get(id);
+    if (given) r = given;
+    else if (BEARING_DEPENDENT.has(id)) {
       if (!tb) {
         const ctx = section.bearing === undefined ? withBearing(ctx0, sizeBearing(ctx0, effects)) : ctx0;
         bearing = ctx.bearing;

@@ -77,6 +77,27 @@ describe('functions the search relies on', () => {
     if (v.passes) expect(assembleVerdict([...a.results, ...b.results], b.bearing!, b.bearingSized!)).toEqual(v);
   });
 
+  test.prop([sectionArb, loadArb, fc.constantFrom(60, 100, 160, 200), fc.constantFrom(8, 12, 20), fc.constantFrom(1 as const, 2 as const)], { numRuns: 200 })(
+    'the panel-only checks read no flat: the same results on any flat and side, so results passed on one layout may be given as known',
+    (r, l, bs, ts, sides) => {
+      const base = sectionOf({ ...r, a: r.a ?? 2000 });
+      const other: Section = { ...base, stiffeners: { ...base.stiffeners!, bs, ts, sides } };
+      const e = effectsOf(l.L, l.w, l.P, l.sag);
+      const o = defaultOptions(l.L, { restraint: { kind: 'at', at: [0, l.L / 2, l.L] } });
+      const ids = ['shear-buckling', 'bending-shear', 'patch-loading', 'patch-bending'] as const;
+      const va = checkGirder(base, e, o);
+      const vb = checkGirder(other, e, o);
+      for (const id of ids) expect(vb.checks.find((c) => c.id === id)).toEqual(va.checks.find((c) => c.id === id));
+      // the search's second call, with those results given: the same outcome as checkGirder
+      const rest = inJudgeOrder(CHECK_ORDER.filter((id) => !['deflection', 'lateral-torsional-buckling', 'bending', 'shear', 'flange-induced-buckling', 'web-flange-weld', 'classification'].includes(id)));
+      const known = new Map(va.checks.filter((c) => (ids as readonly string[]).includes(c.id) && c.passes).map((c) => [c.id, c] as const));
+      const j: Judged = { results: [] };
+      const f = firstFailureAmong(other, e, o, rest, j, known);
+      const plain = firstFailureAmong(other, e, o, rest);
+      expect(f).toEqual(plain);
+    },
+  );
+
   test.prop([sectionArb, loadArb], { numRuns: 300 })('patchUtilisation equals the patch-loading check', (r, l) => {
     const s = sectionOf(r);
     const e = effectsOf(l.L, l.w, l.P, true);

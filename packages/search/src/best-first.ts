@@ -22,6 +22,7 @@ import {
   patchUtilisation,
   prepare,
   webShearCapacityBound,
+  type CheckId,
   type CheckResult,
   type EndPost,
   type Effects,
@@ -97,7 +98,7 @@ interface Plate {
   fibTop: number;
   fibBot: number;
   /** patch-loading utilisation per (top flange option, panel count) */
-  patch: Map<number, number>;
+  patch: Float64Array | null;
   fit: Map<number, BearingFlat | null>;
   /** layouts in ascending order of their own kg (stiffeners and least bearing flats), per bearing floor */
   orders: Map<string, { order: Int32Array; add: Float64Array }>;
@@ -125,6 +126,8 @@ interface Plates {
   k: number;
   layoutCalls: number;
   panelDead: Set<string>;
+  /** per panels and end post: the PANEL_ONLY results that passed on one layout (the same on every flat and side) */
+  panelPassed?: Map<string, Map<CheckId, CheckResult>>;
 }
 
 interface Pairs {
@@ -323,6 +326,8 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
   // stiffener counts and web panels per number of panels (the same on every web)
   const stiffCount = new Map<number, number>();
   const panelsByCount = new Map<number, { x0: number; x1: number; a: number }[]>();
+  const panelSlots = new Map<number, number>();
+  for (const n of new Set(sp.panels)) panelSlots.set(n, panelSlots.size);
   for (const n of new Set(sp.panels)) {
     const r = panelsOf(supports, n > 0 ? Lmax / n : null);
     stiffCount.set(n, n > 0 ? r.stiffenerXs.length : 0);
@@ -437,7 +442,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       IyReq,
       fibTop: fib(dem.sagAlways),
       fibBot: fib(dem.hogAlways),
-      patch: new Map(),
+      patch: null,
       fit: new Map(),
       orders: new Map(),
     };
@@ -511,11 +516,13 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
     return fails;
   };
   const patchOf = (plate: Plate, ti: number, n: number): number => {
-    const key = ti * 1024 + n;
-    let u = plate.patch.get(key);
-    if (u === undefined) {
+    // a table per plate (flange option × panel count), NaN until computed
+    const table = (plate.patch ??= new Float64Array(nFlange * panelSlots.size).fill(Number.NaN));
+    const key = ti * panelSlots.size + panelSlots.get(n)!;
+    let u = table[key]!;
+    if (Number.isNaN(u)) {
       u = patchUtilisation(forces, plate.w, flanges[ti]!, panelsByCount.get(n)!, o.E, o.factors.gammaM1);
-      plate.patch.set(key, u);
+      table[key] = u;
     }
     return u;
   };
@@ -788,7 +795,16 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       const parts = partOf(plate, j);
       const section = buildSection(w, parts, T, B);
       const judged: Judged = { results: [] };
-      const fail = firstFailureAmong(section, effects, o, LAYOUT_IDS, judged);
+      const known = ps.panelPassed?.get(panelKey);
+      const fail = firstFailureAmong(section, effects, o, LAYOUT_IDS, judged, known);
+      // the panel-only checks that passed here pass, with the same results, on every flat and side
+      for (const r of judged.results) {
+        if (!PANEL_ONLY.has(r.id) || !r.passes || known?.has(r.id)) continue;
+        const panelMap = (ps.panelPassed ??= new Map());
+        let got = panelMap.get(panelKey);
+        if (!got) panelMap.set(panelKey, (got = new Map()));
+        got.set(r.id, r);
+      }
       // the first layout judged completes the judgement begun on the plates (counted there)
       if (ps.layoutCalls++ > 0) fullEvaluations++;
       const key: CandidateKey = [wi, ps.ti, ps.bi];
