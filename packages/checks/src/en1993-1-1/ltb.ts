@@ -128,17 +128,33 @@ export interface MomentFactors {
  *   — a conservative choice, common practice, no source.
  */
 export function momentFactors(pts: readonly { x: number; M: number }[]): MomentFactors {
-  const n = pts.length;
-  const M0 = pts[0]!.M;
-  const M1 = pts[n - 1]!.M;
-  const x0 = pts[0]!.x;
-  const x1 = pts[n - 1]!.x;
-  const Mmax = Math.max(...pts.map((p) => Math.abs(p.M)));
-  if (Mmax === 0) return { shape: 'end-moments', psi: 1, C1: 1, C2: 0, C3: 1, kc: 1 };
+  return momentFactorsOf(
+    pts.map((p) => p.x),
+    pts.map((p) => p.M),
+    pts.length,
+  );
+}
+
+const UDL_FACTORS: MomentFactors = Object.freeze({ shape: 'udl-simply-supported', psi: 0, C1: 1.127, C2: 0.454, C3: 0.525, kc: 0.94 });
+const POINT_FACTORS: MomentFactors = Object.freeze({ shape: 'point-load-simply-supported', psi: 0, C1: 1.348, C2: 0.63, C3: 1.73, kc: 0.86 });
+const OTHER_FACTORS: MomentFactors = Object.freeze({ shape: 'transverse-with-end-moments', psi: 0, C1: 1.0, C2: 0.63, C3: 1.0, kc: 1.0 });
+const ZERO_FACTORS: MomentFactors = Object.freeze({ shape: 'end-moments', psi: 1, C1: 1, C2: 0, C3: 1, kc: 1 });
+const udlShape = (xi: number): number => 4 * xi * (1 - xi);
+const pointShape = (xi: number): number => 1 - Math.abs(2 * xi - 1);
+
+/** momentFactors of the first n points (xs ascending, moments Ms), without point objects. */
+function momentFactorsOf(xs: ArrayLike<number>, Ms: ArrayLike<number>, n: number): MomentFactors {
+  const M0 = Ms[0]!;
+  const M1 = Ms[n - 1]!;
+  const x0 = xs[0]!;
+  const x1 = xs[n - 1]!;
+  let Mmax = -Infinity;
+  for (let i = 0; i < n; i++) Mmax = Math.max(Mmax, Math.abs(Ms[i]!));
+  if (Mmax === 0) return ZERO_FACTORS;
   let dev = 0;
-  for (const p of pts) {
-    const lin = x1 > x0 ? M0 + ((M1 - M0) * (p.x - x0)) / (x1 - x0) : M0;
-    dev = Math.max(dev, Math.abs(p.M - lin));
+  for (let i = 0; i < n; i++) {
+    const lin = x1 > x0 ? M0 + ((M1 - M0) * (xs[i]! - x0)) / (x1 - x0) : M0;
+    dev = Math.max(dev, Math.abs(Ms[i]! - lin));
   }
   if (dev <= 0.01 * Mmax) {
     const big = Math.abs(M0) >= Math.abs(M1) ? M0 : M1;
@@ -148,11 +164,14 @@ export function momentFactors(pts: readonly { x: number; M: number }[]): MomentF
   }
   if (Math.abs(M0) <= 0.05 * Mmax && Math.abs(M1) <= 0.05 * Mmax && x1 > x0) {
     // the tabulated shapes only when the diagram is that shape (within 3 % of Mmax at every station)
-    const fits = (shape: (xi: number) => number) => pts.every((p) => Math.abs(Math.abs(p.M) / Mmax - shape((p.x - x0) / (x1 - x0))) <= 0.03);
-    if (fits((xi) => 4 * xi * (1 - xi))) return { shape: 'udl-simply-supported', psi: 0, C1: 1.127, C2: 0.454, C3: 0.525, kc: 0.94 };
-    if (fits((xi) => 1 - Math.abs(2 * xi - 1))) return { shape: 'point-load-simply-supported', psi: 0, C1: 1.348, C2: 0.63, C3: 1.73, kc: 0.86 };
+    const fits = (shape: (xi: number) => number): boolean => {
+      for (let i = 0; i < n; i++) if (!(Math.abs(Math.abs(Ms[i]!) / Mmax - shape((xs[i]! - x0) / (x1 - x0))) <= 0.03)) return false;
+      return true;
+    };
+    if (fits(udlShape)) return UDL_FACTORS;
+    if (fits(pointShape)) return POINT_FACTORS;
   }
-  return { shape: 'transverse-with-end-moments', psi: 0, C1: 1.0, C2: 0.63, C3: 1.0, kc: 1.0 };
+  return OTHER_FACTORS;
 }
 
 /**
@@ -223,10 +242,23 @@ function valueAt(xs: Float64Array, v: Float64Array, x: number): number {
   return t === 0 ? v[lo]! : v[lo]! + t * (v[hi]! - v[lo]!);
 }
 
-function segmentPoints(env: MomentEnvelope, v: Float64Array, x0: number, x1: number): { x: number; M: number }[] {
-  // the segment ends (interpolated) and every station strictly inside, in x order
+/** Scratch arrays of the segment points (grown as needed; the LTB computation is not re-entrant). */
+let PX = new Float64Array(64);
+let PM = new Float64Array(64);
+
+/**
+ * The points of a segment into PX, PM: its ends (interpolated) and every station strictly inside,
+ * in x order. Returns their number.
+ */
+function segmentPoints(env: MomentEnvelope, v: Float64Array, x0: number, x1: number): number {
   const xs = env.xs;
-  const out: { x: number; M: number }[] = [{ x: x0, M: valueAt(xs, v, x0) }];
+  if (PX.length < xs.length + 2) {
+    PX = new Float64Array(xs.length + 2);
+    PM = new Float64Array(xs.length + 2);
+  }
+  let n = 0;
+  PX[n] = x0;
+  PM[n++] = valueAt(xs, v, x0);
   // xs ascending: bisect to the first station beyond x0, stop at x1
   let lo = 0;
   let hi = xs.length;
@@ -235,9 +267,15 @@ function segmentPoints(env: MomentEnvelope, v: Float64Array, x0: number, x1: num
     if (xs[mid]! > x0) hi = mid;
     else lo = mid + 1;
   }
-  for (let i = lo; i < xs.length && xs[i]! < x1; i++) out.push({ x: xs[i]!, M: v[i]! });
-  if (x1 !== x0) out.push({ x: x1, M: valueAt(xs, v, x1) });
-  return out;
+  for (let i = lo; i < xs.length && xs[i]! < x1; i++) {
+    PX[n] = xs[i]!;
+    PM[n++] = v[i]!;
+  }
+  if (x1 !== x0) {
+    PX[n] = x1;
+    PM[n++] = valueAt(xs, v, x1);
+  }
+  return n;
 }
 
 /**
@@ -270,10 +308,12 @@ export function ltbCheck(ctx: CheckContext, e: Effects, per: ReadonlyMap<FlangeS
  * computation as ltbCheck, without the report values (0 when the check does not apply). A search
  * that builds the envelope straight from its load model rejects candidates with it before any other
  * check is run; equal to ltbCheck's utilisation whenever the envelope equals momentEnvelopeOf(stations).
+ * With `stopAbove`, it returns as soon as one segment's utilisation exceeds it (a value above it,
+ * not necessarily the largest): enough to know the check fails.
  */
-export function ltbUtilisation(ctx: CheckContext, env: MomentEnvelope, bendingFor: (side: FlangeSide) => SignBending): number {
+export function ltbUtilisation(ctx: CheckContext, env: MomentEnvelope, bendingFor: (side: FlangeSide) => SignBending, stopAbove = Infinity): number {
   if (env.xs.length === 0) return 0;
-  return ltbCore(ctx, env, bendingFor, false, null)?.u ?? 0;
+  return ltbCore(ctx, env, bendingFor, false, null, stopAbove)?.u ?? 0;
 }
 
 function ltbCore(
@@ -282,11 +322,10 @@ function ltbCore(
   bendingFor: (side: FlangeSide) => SignBending,
   detail: boolean,
   skipped: string[] | null,
+  stopAbove = Infinity,
+  reorder = !detail,
 ): { u: number; at: number; values: Record<string, CheckValue> | null } | null {
   const { o, g, s } = ctx;
-  const sup = o.supports;
-  const xStart = sup[0]!;
-  const xEnd = sup[sup.length - 1]!;
   const rolled = o.ltbMethod === 'rolled-equivalent';
   const lambda0 = rolled ? 0.4 : 0.2;
   const curve = ltbCurveWelded(g.h, Math.min(s.top.b, s.bot.b));
@@ -301,6 +340,7 @@ function ltbCore(
   }
   tiny = Math.max(1, 1e-9 * Math.max(maxSag, -minHog));
   let best: { u: number; at: number; values: Record<string, CheckValue> | null } | null = null;
+  const todo: { side: FlangeSide; x0: number; x1: number; MEd: number }[] = [];
   for (const side of ['top', 'bot'] as const) {
     const line = side === 'top' ? o.restraint : o.restraintBottom;
     const sign = side === 'top' ? 'sagging' : 'hogging';
@@ -310,18 +350,31 @@ function ltbCore(
       skipped?.push(`${sign}: the ${side === 'top' ? 'top' : 'bottom'} flange is restrained continuously`);
       continue;
     }
-    const cuts = [...new Set([...sup, ...line.at.filter((x) => x > xStart && x < xEnd)])].sort((a, b) => a - b);
-    const v = side === 'top' ? env.sag : env.hog;
-    for (let i = 0; i + 1 < cuts.length; i++) {
-      const x0 = cuts[i]!;
-      const x1 = cuts[i + 1]!;
-      const pts = segmentPoints(env, v, x0, x1);
-      let gov = pts[0]!;
-      for (const p of pts) if (Math.abs(p.M) > Math.abs(gov.M)) gov = p;
-      const MEd = Math.abs(gov.M);
+    const cuts = cutsOf(o, side);
+    for (let i = 0; i + 1 < cuts.length; i++) todo.push({ side, x0: cuts[i]!, x1: cuts[i + 1]!, MEd: 0 });
+  }
+  if (reorder) {
+    // the utilisation only: the most loaded segments first, so that a failure is found soonest
+    // (the largest of the segments' utilisations does not depend on the order)
+    for (const t of todo) {
+      const n = segmentPoints(env, t.side === 'top' ? env.sag : env.hog, t.x0, t.x1);
+      for (let k = 0; k < n; k++) t.MEd = Math.max(t.MEd, Math.abs(PM[k]!));
+    }
+    todo.sort((a, b) => b.MEd - a.MEd);
+  }
+  {
+    for (const t of todo) {
+      const { side, x0, x1 } = t;
+      const sign = side === 'top' ? 'sagging' : 'hogging';
+      const v = side === 'top' ? env.sag : env.hog;
+      const n = segmentPoints(env, v, x0, x1);
+      let gov = 0;
+      for (let k = 1; k < n; k++) if (Math.abs(PM[k]!) > Math.abs(PM[gov]!)) gov = k;
+      const MEd = Math.abs(PM[gov]!);
+      const govX = PX[gov]!;
       if (MEd <= tiny) continue;
       const b = bendingFor(side);
-      const mf = momentFactors(pts);
+      const mf = momentFactorsOf(PX, PM, n);
       const zj = zjCached(ctx, side);
       const Mcr = mcr({ E: o.E, G: o.G, Iz: g.Iz, It: g.It, Iw: g.Iw, L: x1 - x0, C1: mf.C1, C2: mf.C2, C3: mf.C3, zg, zj });
       const Mk = b.McRd * o.factors.gammaM0;
@@ -347,7 +400,7 @@ function ltbCore(
       if (!best || u > best.u) {
         best = {
           u,
-          at: gov.x,
+          at: govX,
           values: !detail
             ? null
             : {
@@ -376,9 +429,29 @@ function ltbCore(
               },
         };
       }
+      // a NaN is kept only when it comes first (the check's order): redo in that order
+      if (Number.isNaN(u) && reorder) return ltbCore(ctx, env, bendingFor, detail, skipped, stopAbove, false);
+      if (best.u > stopAbove) return best;
     }
   }
   return best;
+}
+
+/** The cuts of one flange's lateral restraints and the supports, ascending (once per options object). */
+const CUTS = new WeakMap<CheckContext['o'], { top?: number[]; bot?: number[] }>();
+function cutsOf(o: CheckContext['o'], side: FlangeSide): number[] {
+  let c = CUTS.get(o);
+  if (!c) CUTS.set(o, (c = {}));
+  let hit = c[side];
+  if (!hit) {
+    const line = side === 'top' ? o.restraint : o.restraintBottom;
+    const sup = o.supports;
+    const xStart = sup[0]!;
+    const xEnd = sup[sup.length - 1]!;
+    hit = [...new Set([...sup, ...(line.kind === 'continuous' ? [] : line.at.filter((x) => x > xStart && x < xEnd))])].sort((a, b) => a - b);
+    c[side] = hit;
+  }
+  return hit;
 }
 
 /** zj depends on the section and the compression side only. */
