@@ -685,9 +685,10 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
   const ltbFails = (section: Section, g: number): boolean => {
     const ctx = prepare(section, o);
     const memo: Partial<Record<'top' | 'bot', SignBending>> = {};
-    const u = ltbUtilisation(ctx, envelopeOf(g), (side) => (memo[side] ??= bendingForSign(ctx, side)));
     // the check fails above 1 + 1e-9; a hair more here leaves any round-off doubt to the check itself
-    return !(u <= (1 + 1e-9) * (1 + 1e-12));
+    const limit = (1 + 1e-9) * (1 + 1e-12);
+    const u = ltbUtilisation(ctx, envelopeOf(g), (side) => (memo[side] ??= bendingForSign(ctx, side)), limit);
+    return !(u <= limit);
   };
 
   /** The checks that do not read the layout, once for these plates; then their layouts, best first. */
