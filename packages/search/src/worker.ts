@@ -10,7 +10,9 @@ import { SharedStairs, type SharedStairsData } from './shared-bound.js';
 export interface SliceMessage {
   kind: 'slice';
   task: SearchTask;
-  webIdx: number[];
+  /** the web configurations of the slice: explicit indices, or runs [first index, count] */
+  webIdx?: number[];
+  runs?: [number, number][];
   /** the staircase shared by the workers of one search (absent: this slice prunes on its own) */
   shared?: SharedStairsData;
   /** the same for every slice of one search: lets a worker prepare the search once */
@@ -35,7 +37,9 @@ export default function run(msg: WorkerMessage): SliceResult | 'pong' {
     if (msg.how === 'exit') process.exit(3);
     throw new Error('deliberate worker failure');
   }
-  return searchSlice(preparedFor(msg), msg.webIdx, undefined, msg.shared ? new SharedStairs(msg.shared) : undefined);
+  const webIdx = msg.webIdx ?? [];
+  for (const [a, c] of msg.runs ?? []) for (let k = 0; k < c; k++) webIdx.push(a + k);
+  return searchSlice(preparedFor(msg), webIdx, undefined, msg.shared ? new SharedStairs(msg.shared) : undefined);
 }
 
 /** The last searches prepared in this worker (a search's slices all carry its id). */
