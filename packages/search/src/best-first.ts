@@ -561,13 +561,20 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
   const surfaceOf = (w: WebConfig, T: FlangeOption, B: FlangeOption): number => L * (T.b + (T.b - w.tw) + 2 * T.t + B.b + (B.b - w.tw) + 2 * B.t + 2 * w.hw);
 
   const ltbSet = p.load.momentEnvelopeRange ? ltbSetBound(o) : undefined;
+  // a sign of moment that no self-weight of the space produces needs no bound (no segment to bound)
+  const signPresent = { top: true, bot: true };
+  if (ltbSet) {
+    const all = p.load.momentEnvelopeRange!(0, gMax);
+    signPresent.top = all.sagHi.some((m) => m > 1);
+    signPresent.bot = all.hogHi.some((m) => m > 1);
+  }
   /**
    * Whether every pair of run c with flange option `fixed` on the top (or the bottom) fails
    * lateral-torsional buckling, whatever the other flange of its group: ltbSetBound over the
    * group's options, at the self-weights they give. Once per option and run.
    */
   const ltbDeadWith = (c: Extract<Node, { kind: 0 }>, top: boolean, fixed: number): boolean => {
-    if (!ltbSet!.bounds(top)) return false;
+    if (!ltbSet!.bounds(top) || !signPresent[top ? 'top' : 'bot']) return false;
     const memo = top ? (c.ltbTop ??= new Map()) : (c.ltbBot ??= new Map());
     let dead = memo.get(fixed);
     if (dead === undefined) {

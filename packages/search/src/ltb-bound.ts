@@ -7,7 +7,6 @@ import {
   ltbCurveWelded,
   material,
   mcr,
-  wagnerZj,
   ALPHA,
   type BucklingCurve,
   type CheckOptions,
@@ -124,8 +123,8 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
         for (let i = 0; i < segs.length; i++) {
           const sg = segs[i]!;
           let zj: number;
-          if (sg.top) zj = Number.isNaN(zjTop) ? (zjTop = wagnerZj({ s: sec, g: p }, 'top')) : zjTop;
-          else zj = Number.isNaN(zjBot) ? (zjBot = wagnerZj({ s: sec, g: p }, 'bot')) : zjBot;
+          if (sg.top) zj = Number.isNaN(zjTop) ? (zjTop = zjOf(sec, p, 1)) : zjTop;
+          else zj = Number.isNaN(zjBot) ? (zjBot = zjOf(sec, p, -1)) : zjBot;
           let McrMax = 0;
           for (const sh of sg.shapes) {
             // the C3 of its range that makes C2·zg − C3·zj least
@@ -149,64 +148,71 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
  * (the shear centre of grossProps' formula; the centroid and Iy of the plate stack): what zg and
  * zj read.
  */
-function stackProps(
+export function stackProps(
   s: Section,
   fyTop: number,
   fyBot: number,
   fyw: number,
 ): { h: number; zElastic: number; Iy: number; zShear: number; Iz: number; It: number; Iw: number; Mpl: number } {
+  // three rectangles from the bottom: bottom flange, web, top flange (width, z0, z1, fy)
   const tb = s.bot.t;
-  const h = s.hw + tb + s.top.t;
-  const plates = [
-    [s.bot.b, 0, tb, fyBot],
-    [s.tw, tb, tb + s.hw, fyw],
-    [s.top.b, tb + s.hw, h, fyTop],
-  ] as const;
-  let A = 0;
-  let S = 0;
-  for (const [b, z0, z1] of plates) {
-    A += b * (z1 - z0);
-    S += b * (z1 - z0) * ((z0 + z1) / 2);
-  }
-  const zc = S / A;
-  let Iy = 0;
-  for (const [b, z0, z1] of plates) {
-    const t = z1 - z0;
-    Iy += (b * t ** 3) / 12 + b * t * ((z0 + z1) / 2 - zc) ** 2;
-  }
-  const hs = s.hw + (s.top.t + s.bot.t) / 2;
-  const IzTop = (s.top.t * s.top.b ** 3) / 12;
-  const IzBot = (s.bot.t * s.bot.b ** 3) / 12;
+  const tt = s.top.t;
+  const h = s.hw + tb + tt;
+  const b0 = s.bot.b;
+  const b1 = s.tw;
+  const b2 = s.top.b;
+  const z1 = tb;
+  const z2 = tb + s.hw;
+  const A0 = b0 * tb;
+  const A1 = b1 * s.hw;
+  const A2 = b2 * tt;
+  const zc = (A0 * (tb / 2) + A1 * ((z1 + z2) / 2) + A2 * ((z2 + h) / 2)) / (A0 + A1 + A2);
+  const d0 = tb / 2 - zc;
+  const d1 = (z1 + z2) / 2 - zc;
+  const d2 = (z2 + h) / 2 - zc;
+  const Iy = (b0 * tb * tb * tb) / 12 + A0 * d0 * d0 + (b1 * s.hw * s.hw * s.hw) / 12 + A1 * d1 * d1 + (b2 * tt * tt * tt) / 12 + A2 * d2 * d2;
+  const hs = s.hw + (tt + tb) / 2;
+  const IzTop = (tt * b2 * b2 * b2) / 12;
+  const IzBot = (tb * b0 * b0 * b0) / 12;
   // the plastic neutral axis halves the force; Mpl about it (as plastic() in the check library)
-  let F = 0;
-  for (const [b, z0, z1, f] of plates) F += b * (z1 - z0) * f;
-  let below = 0;
-  let zp = 0;
-  for (const [b, z0, z1, f] of plates) {
-    const fr = b * (z1 - z0) * f;
-    if (below + fr >= F / 2) {
-      zp = z0 + (F / 2 - below) / (b * f);
-      break;
-    }
-    below += fr;
-    zp = z1;
-  }
-  let Mpl = 0;
-  for (const [b, z0, z1, f] of plates) {
-    if (z1 <= zp) Mpl += b * f * (z1 - z0) * (zp - (z0 + z1) / 2);
-    else if (z0 >= zp) Mpl += b * f * (z1 - z0) * ((z0 + z1) / 2 - zp);
-    else Mpl += (b * f * ((zp - z0) ** 2 + (z1 - zp) ** 2)) / 2;
-  }
+  const F0 = A0 * fyBot;
+  const F1 = A1 * fyw;
+  const F2 = A2 * fyTop;
+  const half = (F0 + F1 + F2) / 2;
+  let zp: number;
+  if (F0 >= half) zp = half / (b0 * fyBot);
+  else if (F0 + F1 >= half) zp = z1 + (half - F0) / (b1 * fyw);
+  else zp = z2 + (half - F0 - F1) / (b2 * fyTop);
+  const part = (b: number, f: number, lo: number, hi: number): number => {
+    if (hi <= zp) return b * f * (hi - lo) * (zp - (lo + hi) / 2);
+    if (lo >= zp) return b * f * (hi - lo) * ((lo + hi) / 2 - zp);
+    return (b * f * ((zp - lo) * (zp - lo) + (hi - zp) * (hi - zp))) / 2;
+  };
+  const Mpl = part(b0, fyBot, 0, z1) + part(b1, fyw, z1, z2) + part(b2, fyTop, z2, h);
   return {
     h,
     zElastic: zc,
     Iy,
-    zShear: s.bot.t / 2 + (hs * IzTop) / (IzTop + IzBot),
-    Iz: IzTop + IzBot + (s.hw * s.tw ** 3) / 12,
-    It: (s.top.b * s.top.t ** 3 + s.bot.b * s.bot.t ** 3 + s.hw * s.tw ** 3) / 3,
+    zShear: tb / 2 + (hs * IzTop) / (IzTop + IzBot),
+    Iz: IzTop + IzBot + (s.hw * s.tw * s.tw * s.tw) / 12,
+    It: (b2 * tt * tt * tt + b0 * tb * tb * tb + s.hw * s.tw * s.tw * s.tw) / 3,
     Iw: (IzTop * IzBot * hs * hs) / (IzTop + IzBot),
     Mpl,
   };
+}
+
+/** wagnerZj of the check library without its temporary objects (sgn +1: top flange in compression). */
+export function zjOf(s: Section, g: { zElastic: number; h: number; Iy: number; zShear: number }, sgn: 1 | -1): number {
+  const zc = g.zElastic;
+  const term = (z0: number, z1: number, b: number): number => {
+    const a = sgn * (z0 - zc);
+    const c = sgn * (z1 - zc);
+    const lo = Math.min(a, c);
+    const hi = Math.max(a, c);
+    return ((b * b * b) / 12) * (hi - lo) * ((lo + hi) / 2) + (b * (hi ** 4 - lo ** 4)) / 4;
+  };
+  const integral = term(0, s.bot.t, s.bot.b) + term(s.bot.t, s.bot.t + s.hw, s.tw) + term(s.bot.t + s.hw, g.h, s.top.b);
+  return sgn * (g.zShear - zc) - integral / (2 * g.Iy);
 }
 
 /** The value at x of per-x values v over ascending xs, linear between neighbours (the check's interpolation). */

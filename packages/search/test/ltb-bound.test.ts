@@ -3,7 +3,8 @@ import { fc, test } from '@fast-check/vitest';
 import { bendingForSign, chiLT, chiLTGeneral, defaultOptions, ltbUtilisation, prepare, ALPHA, type Section } from '@platesmith/checks';
 import { analyse } from '@platesmith/actions';
 import { analysisLoadModel } from '../src/index.js';
-import { ltbSetBound } from '../src/ltb-bound.js';
+import { grossProps, material, wagnerZj } from '@platesmith/checks';
+import { ltbSetBound, stackProps, zjOf } from '../src/ltb-bound.js';
 
 /**
  * Soundness of the lateral-torsional-buckling bound over a set of sections (consistency
@@ -51,6 +52,20 @@ const caseArb = fc.record({
   method: fc.constantFrom('general', 'rolled-equivalent') as fc.Arbitrary<'general' | 'rolled-equivalent'>,
   gSpread: fc.double({ min: 0, max: 6, noNaN: true }),
   t: fc.array(fc.double({ min: 0, max: 1, noNaN: true }), { minLength: 3, maxLength: 3 }),
+});
+
+describe('the bound\'s section properties', () => {
+  test.prop([fc.integer({ min: 400, max: 2400 }), fc.constantFrom(6, 10, 15), fc.integer({ min: 150, max: 700 }), fc.constantFrom(10, 25, 50), fc.integer({ min: 150, max: 700 }), fc.constantFrom(10, 25, 50)], { numRuns: 200 })(
+    'equal those of grossProps and wagnerZj (to round-off)',
+    (hw, tw, bt, tt, bb, tb) => {
+      const s: Section = { hw, tw, top: { b: bt, t: tt }, bot: { b: bb, t: tb }, stiffeners: null, endPost: 'rigid', grade: { web: 'S355', top: 'S355', bot: 'S460', stiffener: 'S355' } };
+      const m = material(s, defaultOptions(10000));
+      const g = grossProps(s, m);
+      const p = stackProps(s, m.fyTop, m.fyBot, m.fyw);
+      for (const k of ['h', 'zElastic', 'Iy', 'zShear', 'Iz', 'It', 'Iw', 'Mpl'] as const) expect(Math.abs(p[k] - g[k])).toBeLessThanOrEqual(1e-12 * Math.abs(g[k]));
+      for (const [side, sgn] of [['top', 1], ['bot', -1]] as const) expect(Math.abs(zjOf(s, p, sgn) - wagnerZj({ s, g }, side))).toBeLessThanOrEqual(1e-9 * g.h);
+    },
+  );
 });
 
 describe('ltbSetBound', () => {
