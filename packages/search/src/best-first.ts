@@ -150,9 +150,9 @@ type Node =
       fibB: number;
       gt: number;
       gb: number;
-      /** per flange option fixed on one side: whether every pair of the run with it fails LTB (ltbSetBound) */
-      ltbTop?: Map<number, boolean>;
-      ltbBot?: Map<number, boolean>;
+      /** per flange option of its group fixed on one side: 0 unknown, 1 every pair of the run with it fails LTB, 2 not shown (ltbSetBound) */
+      ltbTop?: Int8Array;
+      ltbBot?: Int8Array;
     }
   | { kind: 1; lb: number; seq: number; ps: Plates }
   | { kind: 2; lb: number; seq: number; ps: Plates };
@@ -575,9 +575,11 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
    */
   const ltbDeadWith = (c: Extract<Node, { kind: 0 }>, top: boolean, fixed: number): boolean => {
     if (!ltbSet!.bounds(top) || !signPresent[top ? 'top' : 'bot']) return false;
-    const memo = top ? (c.ltbTop ??= new Map()) : (c.ltbBot ??= new Map());
-    let dead = memo.get(fixed);
-    if (dead === undefined) {
+    const own = top ? c.gt : c.gb;
+    const memo = top ? (c.ltbTop ??= new Int8Array(groups[own]!.options.length)) : (c.ltbBot ??= new Int8Array(groups[own]!.options.length));
+    const slot = fixed - groupStart[own]!;
+    let known = memo[slot]!;
+    if (known === 0) {
       const group = groups[top ? c.gb : c.gt]!;
       const start = groupStart[top ? c.gb : c.gt]!;
       const others = group.options.map((_, i) => start + i);
@@ -595,10 +597,10 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       const section = top ? buildSection(w, part, F, widest) : buildSection(w, part, widest, F);
       const u = ltbSet!.lowerBound(section, top, others.map((k) => flanges[k]!.b), p.load.momentEnvelopeRange!(gLo, gHi));
       // a bound: only a clear failure drops the set (the margin covers round-off)
-      dead = u > 1 + 1e-6;
-      memo.set(fixed, dead);
+      known = u > 1 + 1e-6 ? 1 : 2;
+      memo[slot] = known;
     }
-    return dead;
+    return known === 1;
   };
 
   /** Next flange pairs of a run: cheap bounds, then a node for the first set of plates they leave. */
