@@ -1,4 +1,5 @@
 import {
+  bracket,
   c1EndMoments,
   c3EndMoments,
   chiLT,
@@ -217,19 +218,8 @@ export function zjOf(s: Section, g: { zElastic: number; h: number; Iy: number; z
 
 /** The value at x of per-x values v over ascending xs, linear between neighbours (the check's interpolation). */
 function at(xs: Float64Array, v: Float64Array, x: number): number {
-  const n = xs.length;
-  if (x <= xs[0]!) return v[0]!;
-  if (x >= xs[n - 1]!) return v[n - 1]!;
-  let lo = 0;
-  let hi = n - 1;
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if (xs[mid]! < x) lo = mid;
-    else hi = mid;
-  }
-  if (xs[hi] === x) return v[hi]!;
-  const t = (x - xs[lo]!) / (xs[hi]! - xs[lo]!);
-  return v[lo]! + t * (v[hi]! - v[lo]!);
+  const [lo, hi, t] = bracket(xs, x);
+  return t === 0 ? v[lo]! : v[lo]! + t * (v[hi]! - v[lo]!);
 }
 
 /** Bounds of one segment's moment and the moment shapes its diagram can take (magnitudes, one sign). */
