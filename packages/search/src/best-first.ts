@@ -45,7 +45,7 @@ import {
   type PruneStats,
   type SliceResult,
 } from './core.js';
-import { ltbSetBound } from './ltb-bound.js';
+import { ltbSetBound, type Segment } from './ltb-bound.js';
 import { bearingPairs, buildSection, C2, flangeMass, webPartsWith, type WebParts } from './objective.js';
 import type { FlangeOption, WebConfig } from './space.js';
 
@@ -153,6 +153,9 @@ type Node =
       /** per flange option of its group fixed on one side: 0 unknown, 1 every pair of the run with it fails LTB, 2 not shown (ltbSetBound) */
       ltbTop?: Int8Array;
       ltbBot?: Int8Array;
+      /** the LTB segments' bounds over the self-weights of every pair of the run, per compressed flange */
+      segsTop?: readonly Segment[];
+      segsBot?: readonly Segment[];
     }
   | { kind: 1; lb: number; seq: number; ps: Plates }
   | { kind: 2; lb: number; seq: number; ps: Plates };
@@ -581,21 +584,26 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
     let known = memo[slot]!;
     if (known === 0) {
       const group = groups[top ? c.gb : c.gt]!;
-      const start = groupStart[top ? c.gb : c.gt]!;
-      const others = group.options.map((_, i) => start + i);
       const w = c.plate.w;
       const F = flanges[fixed]!;
-      let gLo = Infinity;
-      let gHi = -Infinity;
-      for (const k of others) {
-        const g = top ? selfWeightOf(prep, w, F, flanges[k]!) : selfWeightOf(prep, w, flanges[k]!, F);
-        gLo = Math.min(gLo, g);
-        gHi = Math.max(gHi, g);
+      // one envelope range for the whole run: the self-weight grows with each flange's area, so
+      // the lightest and heaviest options of the two groups bound every pair's
+      let segs = top ? c.segsTop : c.segsBot;
+      if (!segs) {
+        const GT = groups[c.gt]!.options;
+        const GB = groups[c.gb]!.options;
+        const byArea = (os: readonly FlangeOption[]) => [os.reduce((a, b) => (b.A < a.A ? b : a)), os.reduce((a, b) => (b.A > a.A ? b : a))] as const;
+        const [tLo, tHi] = byArea(GT);
+        const [bLo, bHi] = byArea(GB);
+        const range = p.load.momentEnvelopeRange!(selfWeightOf(prep, w, tLo, bLo), selfWeightOf(prep, w, tHi, bHi));
+        segs = ltbSet!.segments(range, top);
+        if (top) c.segsTop = segs;
+        else c.segsBot = segs;
       }
       const part = partOf(c.plate, 0);
-      const widest = flanges[others[others.length - 1]!]!;
+      const widest = group.options.reduce((a, b) => (b.b > a.b ? b : a));
       const section = top ? buildSection(w, part, F, widest) : buildSection(w, part, widest, F);
-      const u = ltbSet!.lowerBound(section, top, others.map((k) => flanges[k]!.b), p.load.momentEnvelopeRange!(gLo, gHi));
+      const u = ltbSet!.over(segs, section, top, group.options.map((f) => f.b));
       // a bound: only a clear failure drops the set (the margin covers round-off)
       known = u > 1 + 1e-6 ? 1 : 2;
       memo[slot] = known;

@@ -50,6 +50,13 @@ export interface LtbSetBound {
    * bounded (sagging for a fixed top flange); 0 when that flange is restrained continuously.
    */
   lowerBound(widest: Section, fixedTop: boolean, others: readonly number[], range: MomentRange): number;
+  /**
+   * lowerBound in two steps: the segments' moment bounds and shapes for a self-weight range (they
+   * depend on the range and the side only, so one set serves every flange of a run whose range
+   * contains them all), then the bound over a set of sections.
+   */
+  segments(range: MomentRange, fixedTop: boolean): readonly Segment[];
+  over(segs: readonly Segment[], widest: Section, fixedTop: boolean, others: readonly number[]): number;
   /** whether lowerBound can be above 0 with this flange fixed (its compression flange is not restrained continuously) */
   bounds(fixedTop: boolean): boolean;
 }
@@ -62,7 +69,7 @@ interface Shape {
   C3lo: number;
 }
 
-interface Segment {
+export interface Segment {
   top: boolean;
   L: number;
   MEdLo: number;
@@ -95,6 +102,9 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
   return {
     bounds: (fixedTop) => (fixedTop ? cutsTop : cutsBot) !== null,
     lowerBound(widest, fixedTop, others, range) {
+      return this.over(this.segments(range, fixedTop), widest, fixedTop, others);
+    },
+    segments(range, fixedTop) {
       let globalHi = 0;
       for (let i = 0; i < range.xs.length; i++) globalHi = Math.max(globalHi, range.sagHi[i]!, range.hogHi[i]!);
       const tiny = Math.max(1, 1e-9 * globalHi);
@@ -110,6 +120,9 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
           if (s.MEdLo > tiny * (1 + 1e-9)) segs.push({ top, L: cuts[i + 1]! - cuts[i]!, MEdLo: s.MEdLo, shapes: s.shapes });
         }
       }
+      return segs;
+    },
+    over(segs, widest, fixedTop, others) {
       if (segs.length === 0) return 0;
       const m = material(widest, o);
       // per segment, the largest Mb,Rd·γM1 any section of the set can have
@@ -210,7 +223,9 @@ export function zjOf(s: Section, g: { zElastic: number; h: number; Iy: number; z
     const c = sgn * (z1 - zc);
     const lo = Math.min(a, c);
     const hi = Math.max(a, c);
-    return ((b * b * b) / 12) * (hi - lo) * ((lo + hi) / 2) + (b * (hi ** 4 - lo ** 4)) / 4;
+    const h2 = hi * hi;
+    const l2 = lo * lo;
+    return ((b * b * b) / 12) * (hi - lo) * ((lo + hi) / 2) + (b * (h2 * h2 - l2 * l2)) / 4;
   };
   const integral = term(0, s.bot.t, s.bot.b) + term(s.bot.t, s.bot.t + s.hw, s.tw) + term(s.bot.t + s.hw, g.h, s.top.b);
   return sgn * (g.zShear - zc) - integral / (2 * g.Iy);
