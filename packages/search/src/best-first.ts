@@ -156,6 +156,8 @@ type Node =
       /** the LTB segments' bounds over the self-weights of every pair of the run, per compressed flange */
       segsTop?: readonly Segment[];
       segsBot?: readonly Segment[];
+      /** symmetric runs: how many pairs the next LTB block bound tries to drop at once (0: no more tries) */
+      block?: number;
     }
   | { kind: 1; lb: number; seq: number; ps: Plates }
   | { kind: 2; lb: number; seq: number; ps: Plates };
@@ -588,18 +590,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       const F = flanges[fixed]!;
       // one envelope range for the whole run: the self-weight grows with each flange's area, so
       // the lightest and heaviest options of the two groups bound every pair's
-      let segs = top ? c.segsTop : c.segsBot;
-      if (!segs) {
-        const GT = groups[c.gt]!.options;
-        const GB = groups[c.gb]!.options;
-        const byArea = (os: readonly FlangeOption[]) => [os.reduce((a, b) => (b.A < a.A ? b : a)), os.reduce((a, b) => (b.A > a.A ? b : a))] as const;
-        const [tLo, tHi] = byArea(GT);
-        const [bLo, bHi] = byArea(GB);
-        const range = p.load.momentEnvelopeRange!(selfWeightOf(prep, w, tLo, bLo), selfWeightOf(prep, w, tHi, bHi));
-        segs = ltbSet!.segments(range, top);
-        if (top) c.segsTop = segs;
-        else c.segsBot = segs;
-      }
+      const segs = runSegments(c, top);
       const part = partOf(c.plate, 0);
       const widest = group.options.reduce((a, b) => (b.b > a.b ? b : a));
       const section = top ? buildSection(w, part, F, widest) : buildSection(w, part, widest, F);
@@ -609,6 +600,33 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       memo[slot] = known;
     }
     return known === 1;
+  };
+
+  /** The run's LTB segment bounds for one compressed flange (ltbDeadWith's, shared). */
+  const runSegments = (c: Extract<Node, { kind: 0 }>, top: boolean): readonly Segment[] => {
+    let segs = top ? c.segsTop : c.segsBot;
+    if (!segs) {
+      const w = c.plate.w;
+      const byArea = (os: readonly FlangeOption[]) => [os.reduce((a, b) => (b.A < a.A ? b : a)), os.reduce((a, b) => (b.A > a.A ? b : a))] as const;
+      const [tLo, tHi] = byArea(groups[c.gt]!.options);
+      const [bLo, bHi] = byArea(groups[c.gb]!.options);
+      const range = p.load.momentEnvelopeRange!(selfWeightOf(prep, w, tLo, bLo), selfWeightOf(prep, w, tHi, bHi));
+      segs = ltbSet!.segments(range, top);
+      if (top) c.segsTop = segs;
+      else c.segsBot = segs;
+    }
+    return segs;
+  };
+  /** Whether pairs k … k+m−1 of run c all fail LTB (ltbSetBound over their sections, either sign). */
+  const ltbBlockDead = (c: Extract<Node, { kind: 0 }>, k: number, m: number): boolean => {
+    const part = partOf(c.plate, 0);
+    const secs: Section[] = [];
+    for (let j = k; j < k + m; j++) secs.push(buildSection(c.plate.w, part, flanges[c.pairs.ti[j]!]!, flanges[c.pairs.bi[j]!]!));
+    for (const top of [true, false]) {
+      if (!ltbSet!.bounds(top) || !signPresent[top ? 'top' : 'bot']) continue;
+      if (ltbSet!.overSections(runSegments(c, top), secs) > 1 + 1e-6) return true;
+    }
+    return false;
   };
 
   /** Next flange pairs of a run: cheap bounds, then a node for the first set of plates they leave. */
@@ -628,6 +646,19 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
         c.lb = floor;
         heap.push(c);
         return;
+      }
+      // symmetric runs: a block of the next (lightest) pairs that all fail LTB is dropped at once
+      if (ltbSet && sp.symmetric && c.block !== 0) {
+        const m = Math.min(c.block ?? 1, n - c.k);
+        if (ltbBlockDead(c, c.k, m)) {
+          pruned.lateralTorsional += m * nL;
+          c.k += m;
+          c.block = Math.min(32, 2 * m);
+          continue;
+        }
+        // heavier pairs resist LTB better as a rule: after a block that is not all dead, one pair
+        // at a time; once a single pair is not shown dead, no more tries on this run
+        c.block = m > 1 ? 1 : 0;
       }
       const ti = pairs.ti[c.k]!;
       const bi = pairs.bi[c.k]!;

@@ -57,6 +57,11 @@ export interface LtbSetBound {
    */
   segments(range: MomentRange, fixedTop: boolean): readonly Segment[];
   over(segs: readonly Segment[], widest: Section, fixedTop: boolean, others: readonly number[]): number;
+  /**
+   * The bound over explicit sections (one web plate, flanges of one thickness and grade per side,
+   * any widths): each section's own properties, as in `over`.
+   */
+  overSections(segs: readonly Segment[], sections: readonly Section[]): number;
   /** whether lowerBound can be above 0 with this flange fixed (its compression flange is not restrained continuously) */
   bounds(fixedTop: boolean): boolean;
 }
@@ -123,12 +128,17 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
       return segs;
     },
     over(segs, widest, fixedTop, others) {
-      if (segs.length === 0) return 0;
-      const m = material(widest, o);
+      return this.overSections(
+        segs,
+        others.map((b): Section => (fixedTop ? { ...widest, bot: { b, t: widest.bot.t } } : { ...widest, top: { b, t: widest.top.t } })),
+      );
+    },
+    overSections(segs, sections) {
+      if (segs.length === 0 || sections.length === 0) return 0;
+      const m = material(sections[0]!, o);
       // per segment, the largest Mb,Rd·γM1 any section of the set can have
       const best = new Float64Array(segs.length);
-      for (const b of others) {
-        const sec: Section = fixedTop ? { ...widest, bot: { b, t: widest.bot.t } } : { ...widest, top: { b, t: widest.top.t } };
+      for (const sec of sections) {
         const p = stackProps(sec, m.fyTop, m.fyBot, m.fyw);
         const zg = loadHeightZg({ o, g: p });
         const curve = ltbCurveWelded(p.h, Math.min(sec.top.b, sec.bot.b));
