@@ -2,7 +2,7 @@
  * `pnpm bench`: figures for the search on the reference problems (bench/problems.ts), printed, not
  * asserted. Targets on 2 cores: symmetric problems under 200 ms each, the mono-symmetric one under
  * 2 s, full evaluations under 1/1000 of the space. `--json`: one JSON object per line.
- * Wall time: the median of 5 runs on the pool after 3 warm-up runs (the service is long-lived: the
+ * Wall time: the median of 5 runs on the pool after 8 warm-up runs (the service is long-lived: the
  * workers' compiled code is warm after a few searches), with the first, cold run printed beside it;
  * the mono-symmetric problem (minutes per run) is timed once after one warm-up run.
  */
@@ -28,7 +28,7 @@ try {
     const t = task(prob.input);
     const long = prob.name.includes('mono');
     const cold = await searchOnPool(pool, t);
-    for (let i = 1; i < (long ? 1 : 3); i++) await searchOnPool(pool, t); // warm-up: compiled code in the workers
+    for (let i = 1; i < (long ? 1 : 8); i++) await searchOnPool(pool, t); // warm-up: compiled code in the workers (about 8 searches)
     const timed: Awaited<ReturnType<typeof searchOnPool>>[] = [];
     for (let i = 0; i < (long ? 1 : 5); i++) timed.push(await searchOnPool(pool, t));
     timed.sort((a, b) => a.stats.wallMs - b.stats.wallMs);
