@@ -579,7 +579,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
    * group's options, at the self-weights they give. Once per option and run.
    */
   const ltbDeadWith = (c: Extract<Node, { kind: 0 }>, top: boolean, fixed: number): boolean => {
-    if (!ltbSet!.bounds(top) || !signPresent[top ? 'top' : 'bot']) return false;
+    if (!boundsSide(top)) return false;
     const own = top ? c.gt : c.gb;
     const memo = top ? (c.ltbTop ??= new Int8Array(groups[own]!.options.length)) : (c.ltbBot ??= new Int8Array(groups[own]!.options.length));
     const slot = fixed - groupStart[own]!;
@@ -588,8 +588,6 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       const group = groups[top ? c.gb : c.gt]!;
       const w = c.plate.w;
       const F = flanges[fixed]!;
-      // one envelope range for the whole run: the self-weight grows with each flange's area, so
-      // the lightest and heaviest options of the two groups bound every pair's
       const segs = runSegments(c, top);
       const part = partOf(c.plate, 0);
       const widest = group.options.reduce((a, b) => (b.b > a.b ? b : a));
@@ -602,7 +600,13 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
     return known === 1;
   };
 
-  /** The run's LTB segment bounds for one compressed flange (ltbDeadWith's, shared). */
+  /** Whether the set bound can bite with this flange in compression (a segment to bound, a moment of that sign). */
+  const boundsSide = (top: boolean): boolean => ltbSet!.bounds(top) && signPresent[top ? 'top' : 'bot'];
+  /**
+   * The run's LTB segment bounds for one compressed flange, once per run: one envelope range for
+   * all its pairs (the self-weight grows with each flange's area, so the lightest and heaviest
+   * options of the two groups bound every pair's).
+   */
   const runSegments = (c: Extract<Node, { kind: 0 }>, top: boolean): readonly Segment[] => {
     let segs = top ? c.segsTop : c.segsBot;
     if (!segs) {
@@ -623,7 +627,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
     const secs: Section[] = [];
     for (let j = k; j < k + m; j++) secs.push(buildSection(c.plate.w, part, flanges[c.pairs.ti[j]!]!, flanges[c.pairs.bi[j]!]!));
     for (const top of [true, false]) {
-      if (!ltbSet!.bounds(top) || !signPresent[top ? 'top' : 'bot']) continue;
+      if (!boundsSide(top)) continue;
       if (ltbSet!.overSections(runSegments(c, top), secs) > 1 + 1e-6) return true;
     }
     return false;

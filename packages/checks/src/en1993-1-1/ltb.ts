@@ -362,77 +362,75 @@ function ltbCore(
     }
     todo.sort((a, b) => b.MEd - a.MEd);
   }
-  {
-    for (const t of todo) {
-      const { side, x0, x1 } = t;
-      const sign = side === 'top' ? 'sagging' : 'hogging';
-      const v = side === 'top' ? env.sag : env.hog;
-      const n = segmentPoints(env, v, x0, x1);
-      let gov = 0;
-      for (let k = 1; k < n; k++) if (Math.abs(PM[k]!) > Math.abs(PM[gov]!)) gov = k;
-      const MEd = Math.abs(PM[gov]!);
-      const govX = PX[gov]!;
-      if (MEd <= tiny) continue;
-      const b = bendingFor(side);
-      const mf = momentFactorsOf(PX, PM, n);
-      const zj = zjCached(ctx, side);
-      const Mcr = mcr({ E: o.E, G: o.G, Iz: g.Iz, It: g.It, Iw: g.Iw, L: x1 - x0, C1: mf.C1, C2: mf.C2, C3: mf.C3, zg, zj });
-      const Mk = b.McRd * o.factors.gammaM0;
-      const lambdaLT = Math.sqrt(Mk / Mcr);
-      let chiV = 1;
-      let phiLT = Number.NaN;
-      let f = 1;
-      const ignore = lambdaLT <= lambda0 || MEd / Mcr <= lambda0 * lambda0;
-      if (!ignore) {
-        if (rolled) {
-          const r = chiLT({ lambdaLT, alphaLT: ALPHA[curve], lambdaLT0: 0.4, beta: 0.75, ...(o.ltbModification ? { kc: mf.kc } : {}) });
-          chiV = r.chiLT;
-          phiLT = r.phiLT;
-          f = r.f;
-        } else {
-          const r = chiLTGeneral(lambdaLT, curve);
-          chiV = r.chiLT;
-          phiLT = r.phiLT;
-        }
+  for (const t of todo) {
+    const { side, x0, x1 } = t;
+    const sign = side === 'top' ? 'sagging' : 'hogging';
+    const v = side === 'top' ? env.sag : env.hog;
+    const n = segmentPoints(env, v, x0, x1);
+    let gov = 0;
+    for (let k = 1; k < n; k++) if (Math.abs(PM[k]!) > Math.abs(PM[gov]!)) gov = k;
+    const MEd = Math.abs(PM[gov]!);
+    const govX = PX[gov]!;
+    if (MEd <= tiny) continue;
+    const b = bendingFor(side);
+    const mf = momentFactorsOf(PX, PM, n);
+    const zj = zjCached(ctx, side);
+    const Mcr = mcr({ E: o.E, G: o.G, Iz: g.Iz, It: g.It, Iw: g.Iw, L: x1 - x0, C1: mf.C1, C2: mf.C2, C3: mf.C3, zg, zj });
+    const Mk = b.McRd * o.factors.gammaM0;
+    const lambdaLT = Math.sqrt(Mk / Mcr);
+    let chiV = 1;
+    let phiLT = Number.NaN;
+    let f = 1;
+    const ignore = lambdaLT <= lambda0 || MEd / Mcr <= lambda0 * lambda0;
+    if (!ignore) {
+      if (rolled) {
+        const r = chiLT({ lambdaLT, alphaLT: ALPHA[curve], lambdaLT0: 0.4, beta: 0.75, ...(o.ltbModification ? { kc: mf.kc } : {}) });
+        chiV = r.chiLT;
+        phiLT = r.phiLT;
+        f = r.f;
+      } else {
+        const r = chiLTGeneral(lambdaLT, curve);
+        chiV = r.chiLT;
+        phiLT = r.phiLT;
       }
-      const MbRd = (chiV * Mk) / o.factors.gammaM1;
-      const u = MEd / MbRd;
-      if (!best || u > best.u) {
-        best = {
-          u,
-          at: govX,
-          values: !detail
-            ? null
-            : {
-                x0,
-                x1,
-                Lseg: x1 - x0,
-                momentShape: mf.shape,
-                psi: mf.psi,
-                C1: mf.C1,
-                C2: mf.C2,
-                C3: mf.C3,
-                zg,
-                zj,
-                Mcr,
-                lambdaLT,
-                lambdaLT0: lambda0,
-                curve,
-                phiLT,
-                f,
-                chiLT: chiV,
-                MbRd,
-                MEd,
-                sign,
-                method: rolled ? '6.3.2.3 rolled or equivalent welded' : '6.3.2.2 general case',
-                reductionIgnored: ignore,
-              },
-        };
-      }
-      // a NaN is kept only when it comes first (the check's order): redo in that order
-      if (Number.isNaN(u) && reorder) return ltbCore(ctx, env, bendingFor, detail, skipped, stopAbove, false);
-      if (best.u > stopAbove) return best;
     }
+    const MbRd = (chiV * Mk) / o.factors.gammaM1;
+    const u = MEd / MbRd;
+    if (!best || u > best.u) {
+      best = {
+        u,
+        at: govX,
+        values: !detail
+          ? null
+          : {
+              x0,
+              x1,
+              Lseg: x1 - x0,
+              momentShape: mf.shape,
+              psi: mf.psi,
+              C1: mf.C1,
+              C2: mf.C2,
+              C3: mf.C3,
+              zg,
+              zj,
+              Mcr,
+              lambdaLT,
+              lambdaLT0: lambda0,
+              curve,
+              phiLT,
+              f,
+              chiLT: chiV,
+              MbRd,
+              MEd,
+              sign,
+              method: rolled ? '6.3.2.3 rolled or equivalent welded' : '6.3.2.2 general case',
+              reductionIgnored: ignore,
+            },
+      };
+    }
+    // a NaN is kept only when it comes first (the check's order): redo in that order
+    if (Number.isNaN(u) && reorder) return ltbCore(ctx, env, bendingFor, detail, skipped, stopAbove, false);
+    if (best.u > stopAbove) return best;
   }
   return best;
 }
