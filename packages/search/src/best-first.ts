@@ -255,11 +255,18 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
 
   // staircase of feasible points found so far: depth ascending, value strictly descending
   const stairs: Evaluated[] = [];
+  // values fall strictly as depths rise, so of the points at depth ≤ d only the deepest can prune
   const prunes = (d: number, lb: number): boolean => {
-    for (const s of stairs) {
-      if (s.depth > d) break;
-      if (s.value < lb) return true;
-      if (s.value === lb && s.depth < d) return true;
+    let lo = 0;
+    let hi = stairs.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (stairs[mid]!.depth <= d) lo = mid + 1;
+      else hi = mid;
+    }
+    if (lo > 0) {
+      const s = stairs[lo - 1]!;
+      if (s.value < lb || (s.value === lb && s.depth < d)) return true;
     }
     return outer !== undefined && outer.bestAt(d) < lb;
   };
