@@ -227,6 +227,29 @@ export interface OuterBound {
 }
 
 /**
+ * A share of a slice's runs (one web plate, one thickness and grade per flange): the runs whose
+ * unitSlot is `slot` of `of`. Workers given the same web plates and different slots divide the
+ * work finely — a fixed pseudo-random deal of runs rather than of plates, so that each has about
+ * its share of the runs near the front at every bound (plates dealt in order give one worker
+ * every other web thickness, and with them most of the light sections).
+ */
+export interface SlicePart {
+  slot: number;
+  of: number;
+}
+
+/** The slot of the run (plate whose first web index is `wi`, flange groups gt, gb) among `of`: a fixed integer hash. */
+export function unitSlot(wi: number, gt: number, gb: number, of: number): number {
+  let h = Math.imul(wi, 0x9e3779b1) ^ Math.imul(gt + 1, 0x85ebca77) ^ Math.imul(gb + 1, 0xc2b2ae3d);
+  h ^= h >>> 16;
+  h = Math.imul(h, 0x7feb352d);
+  h ^= h >>> 15;
+  h = Math.imul(h, 0x846ca68b);
+  h ^= h >>> 16;
+  return (h >>> 0) % of;
+}
+
+/**
  * Exact search over the web configurations `webIdx` (a slice of prep.webs): the Pareto set of
  * overall depth against the objective, for that slice.
  *
@@ -240,7 +263,7 @@ export interface OuterBound {
  * Bounds from the check library (shear, bending, flange-induced buckling, deflection, patch
  * loading) exclude candidates that every passing section would satisfy.
  */
-export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: { aborted: boolean }, outer?: OuterBound): SliceResult {
+export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: { aborted: boolean }, outer?: OuterBound, part?: SlicePart): SliceResult {
   const { p, webs, groups, flanges, groupStart, L, Lmax, supports } = prep;
   const o = p.options;
   const sp = p.space;
@@ -407,10 +430,18 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
   const groupPairs = sp.symmetric ? groups.map((_, i) => [i, i] as const) : groups.flatMap((_, i) => groups.map((__, j) => [i, j] as const));
   const pairsPerWeb = sp.symmetric ? nFlange : nFlange * nFlange;
 
+  const groupSize = (gt: number, gb: number): number => (sp.symmetric ? groups[gt]!.options.length : groups[gt]!.options.length * groups[gb]!.options.length);
   for (const layouts of byPlate) {
     const w = webs[layouts[0]!]!;
     const nL = layouts.length;
-    const total = pairsPerWeb * nL;
+    // this slice's runs of the plate (all of them unless the plate is shared out by SlicePart)
+    const own = part ? groupPairs.filter(([gt, gb]) => unitSlot(layouts[0]!, gt, gb, part.of) === part.slot) : groupPairs;
+    if (own.length === 0) continue;
+    let total = pairsPerWeb * nL;
+    if (part) {
+      total = 0;
+      for (const [gt, gb] of own) total += groupSize(gt, gb) * nL;
+    }
     spaceSize += total;
     if (w.hw + 2 * tfMin > sp.maxDepth) {
       pruned.depth += total;
@@ -458,7 +489,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       fit: new Map(),
       orders: new Map(),
     };
-    for (const [gt, gb] of groupPairs) {
+    for (const [gt, gb] of own) {
       const GT = groups[gt]!;
       const GB = groups[gb]!;
       const nPairs = (sp.symmetric ? GT.options.length : GT.options.length * GB.options.length) * nL;

@@ -41,16 +41,16 @@ export async function pingPool(pool: SearchPool, signal?: AbortSignal): Promise<
 }
 
 /**
- * The exact search on the pool: the web plates are dealt round-robin into one slice per thread
- * (each slice holds every stiffener layout of its plates, which share checks), each worker returns
- * its slice's exact front, and the fronts are merged. While they run the workers share a staircase
- * of feasible values by depth (shared-bound.ts) so that one worker's light sections prune the
- * others' nodes at once.
+ * The exact search on the pool: one slice per thread, each taking a fixed share of the runs of
+ * flange pairs of every web plate (a run keeps every stiffener layout of its plates, which share
+ * checks), each worker returns its slice's exact front, and the fronts are merged. While they run
+ * the workers share a staircase of feasible values by depth (shared-bound.ts) so that one
+ * worker's light sections prune the others' nodes at once.
  */
 export async function searchOnPool(pool: SearchPool, task: SearchTask, signal?: AbortSignal, onSlice?: (done: number, total: number) => void): Promise<SearchResult> {
   const t0 = performance.now();
   assertSpace(task.space);
-  // plates as contiguous runs of web indices (webConfigs order), counted without building them
+  // plates as contiguous runs of web indices (webConfigs order), counted without building them: a short message
   const fySource = task.options.fySource;
   const groups = flangeGroups(task.space, fySource);
   const counts = webPlateCounts(task.space, fySource);
@@ -60,17 +60,16 @@ export async function searchOnPool(pool: SearchPool, task: SearchTask, signal?: 
     if (c > 0) plates.push([n, c]);
     n += c;
   }
-  const nSlices = Math.max(1, Math.min(plates.length, pool.threads));
-  // each slice as runs of consecutive web indices (one per plate): a short message
-  const slices: [number, number][][] = Array.from({ length: nSlices }, () => []);
-  plates.forEach((run, i) => slices[i % nSlices]!.push(run));
+  // every slice gets every plate and takes its own share of their runs (SlicePart): a fine,
+  // fixed deal, so that each worker has about its share of the light runs near the front
+  const nSlices = Math.max(1, pool.threads);
   const shared = createSharedStairs(depthGrid(task.space, groups));
   const searchId = randomUUID();
   let done = 0;
   const results = await Promise.all(
-    slices.map((runs) =>
-      (pool.piscina.run({ kind: 'slice', task, runs, shared, searchId } satisfies WorkerMessage, signal ? { signal } : {}) as Promise<SliceResult>).then((r) => {
-        onSlice?.(++done, slices.length);
+    Array.from({ length: nSlices }, (_, slot) =>
+      (pool.piscina.run({ kind: 'slice', task, runs: plates, shared, searchId, ...(nSlices > 1 ? { part: { slot, of: nSlices } } : {}) } satisfies WorkerMessage, signal ? { signal } : {}) as Promise<SliceResult>).then((r) => {
+        onSlice?.(++done, nSlices);
         return r;
       }),
     ),

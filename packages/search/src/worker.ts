@@ -1,5 +1,5 @@
 import { prepareSearch, type Prepared, type SliceResult } from './core.js';
-import { searchSlice } from './best-first.js';
+import { searchSlice, type SlicePart } from './best-first.js';
 import { problemOf, type SearchTask } from './task.js';
 import { SharedStairs, type SharedStairsData } from './shared-bound.js';
 
@@ -15,6 +15,8 @@ export interface SliceMessage {
   runs?: [number, number][];
   /** the staircase shared by the workers of one search (absent: this slice prunes on its own) */
   shared?: SharedStairsData;
+  /** this slice's share of the runs of its plates (SlicePart) */
+  part?: SlicePart;
   /** the same for every slice of one search: lets a worker prepare the search once */
   searchId?: string;
 }
@@ -39,7 +41,7 @@ export default function run(msg: WorkerMessage): SliceResult | 'pong' {
   }
   const webIdx = msg.webIdx ?? [];
   for (const [a, c] of msg.runs ?? []) for (let k = 0; k < c; k++) webIdx.push(a + k);
-  return searchSlice(preparedFor(msg), webIdx, undefined, msg.shared ? new SharedStairs(msg.shared) : undefined);
+  return searchSlice(preparedFor(msg), webIdx, undefined, msg.shared ? new SharedStairs(msg.shared) : undefined, msg.part);
 }
 
 /** The last searches prepared in this worker (a search's slices all carry its id). */

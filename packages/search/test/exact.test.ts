@@ -3,7 +3,7 @@ import { fc, test } from '@fast-check/vitest';
 import { FLAT_BARS, type GradeName } from '@platesmith/catalogue';
 import { defaultOptions } from '@platesmith/checks';
 import { analyse } from '@platesmith/actions';
-import { analysisLoadModel, bruteForce, DEFAULT_COST, search, stiffenerStations, type Evaluated, type SpaceSpec } from '../src/index.js';
+import { analysisLoadModel, bruteForce, DEFAULT_COST, mergeSlices, prepareSearch, search, searchSlice, spaceSize, stiffenerStations, type Evaluated, type SpaceSpec } from '../src/index.js';
 import { simpleSpanModel } from './fixtures.js';
 
 /**
@@ -65,6 +65,25 @@ describe('search = brute force', () => {
     expect(frontKey(fast.pareto)).toEqual(frontKey(brute.front));
     expect(fast.lightest?.value ?? null).toEqual(brute.front.at(-1)?.value ?? null);
     expect(fast.stats.fullEvaluations).toBeLessThanOrEqual(brute.evaluations);
+  });
+});
+
+describe('a search shared out over workers (SlicePart)', () => {
+  // consistency property: the parts divide the space (sizes add up) and their merged fronts are the whole search's
+  test.prop([problemArb, fc.integer({ min: 2, max: 4 })], { numRuns: 60 })('the merged parts give the same answer as one search', ({ space, L, q, P, objective, restrained }, of) => {
+    const sp: SpaceSpec = {
+      hw: space.hw, tw: space.tw, bf: space.bf, tf: space.tf, symmetric: space.symmetric, panels: space.panels, flats: space.flats,
+      sides: [...space.sides], endPosts: [...space.endPosts], webGrades: ['S355'], flangeGrades: space.flangeGrades, minDepth: 0, maxDepth: space.maxDepth, rules: {},
+    };
+    const options = defaultOptions(L, restrained ? {} : { restraint: { kind: 'at', at: [0, L / 2, L] } });
+    const problem = { space: sp, options, load: simpleSpanModel(L, q, P, q / 1.4), objective, cost: DEFAULT_COST };
+    const one = search(problem);
+    const prep = prepareSearch(problem);
+    const all = prep.webs.map((_, i) => i);
+    const parts = Array.from({ length: of }, (_, slot) => searchSlice(prep, all, undefined, undefined, { slot, of }));
+    expect(parts.reduce((n, r) => n + r.spaceSize, 0)).toBe(spaceSize(sp));
+    const merged = mergeSlices(parts, 0, of, prep.webs.length, spaceSize(sp));
+    expect(frontKey(merged.pareto)).toEqual(frontKey(one.pareto));
   });
 });
 
