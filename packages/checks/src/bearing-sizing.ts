@@ -37,3 +37,40 @@ export function lightestFittingBearing(flats: readonly { b: number; t: number }[
   for (const f of flats) if (f.b <= outstand && (best === null || f.b * f.t < best.b * best.t)) best = f;
   return best;
 }
+
+/**
+ * The bearing flats sizeBearing can accept for a support reaction, from what reads only the flat
+ * and the reaction: of its candidates (options.bearingFlats), those that meet the torsional
+ * requirement of 9.2.1(8) (the same computation as sizeBearing's) and do not crush under the
+ * largest reaction (9.4: 2·(bs − snipe)·ts·fy/γM0 ≥ R, with a margin of 1e-6 for round-off).
+ * Every flat sizeBearing returns for a section that passes every check is among them, so the
+ * lightest of them that fits the flanges is a floor on its bearing flats (a bound for the search).
+ */
+export interface BearingCandidates {
+  /** the lightest flat that fits within the narrower flange outstand and meets both criteria; null when none does */
+  lightestFor(minFlangeWidth: number, tw: number, Rmax: number): { b: number; t: number } | null;
+}
+
+export function bearingCandidates(flats: readonly { b: number; t: number }[], fyOf: (t: number) => number, o: { E: number; snipe: number; factors: { gammaM0: number } }): BearingCandidates {
+  const list = flats
+    .map((f) => {
+      let fyB: number;
+      try {
+        fyB = fyOf(f.t);
+      } catch {
+        // no strength for this thickness: the sizing reports that itself; the flat is not excluded here
+        return { b: f.b, t: f.t, A: f.b * f.t, torsionOk: true, FbRd: Infinity };
+      }
+      const tors = flatTorsion(f.b, f.t, fyB, o.E);
+      return { b: f.b, t: f.t, A: f.b * f.t, torsionOk: !(tors.ItOverIp < tors.limit), FbRd: (2 * Math.max(0, f.b - o.snipe) * f.t * fyB) / o.factors.gammaM0 };
+    })
+    .filter((f) => f.torsionOk)
+    .sort((p, q) => p.A - q.A || p.b - q.b);
+  return {
+    lightestFor(minFlangeWidth, tw, Rmax) {
+      const outstand = (minFlangeWidth - tw) / 2;
+      for (const f of list) if (f.b <= outstand && Rmax <= f.FbRd * (1 + 1e-6)) return { b: f.b, t: f.t };
+      return null;
+    },
+  };
+}

@@ -1,7 +1,7 @@
 export type * from './types.js';
 export { checkGirder, judgeGirder, firstFailure, firstFailureAmong, assembleVerdict, inJudgeOrder, CHECK_ORDER, type Judged } from './girder.js';
 export { prepare, withBearing } from './context.js';
-export { sizeBearing, lightestFittingBearing } from './bearing-sizing.js';
+export { sizeBearing, lightestFittingBearing, bearingCandidates, type BearingCandidates } from './bearing-sizing.js';
 export { defaultOptions, FACTOR_SETS, E_STEEL, G_STEEL } from './options.js';
 export {
   epsilon,

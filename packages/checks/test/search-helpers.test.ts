@@ -1,6 +1,7 @@
 import { describe, expect } from 'vitest';
 import { fc, test } from '@fast-check/vitest';
-import { assembleVerdict, CHECK_ORDER, checkGirder, defaultOptions, firstFailure, firstFailureAmong, inJudgeOrder, judgeGirder, type Judged, minIyForDeflection, panelsOf, patchUtilisation, prepare, type Effects, type Section } from '../src/index.js';
+import { fy } from '@platesmith/catalogue';
+import { assembleVerdict, bearingCandidates, bearingCrushing, CHECK_ORDER, flatTorsion, checkGirder, defaultOptions, firstFailure, firstFailureAmong, inJudgeOrder, judgeGirder, type Judged, minIyForDeflection, panelsOf, patchUtilisation, prepare, type Effects, type Section } from '../src/index.js';
 
 /**
  * Properties of the functions the search relies on (no published values: these are consistency
@@ -124,3 +125,58 @@ describe('functions the search relies on', () => {
     if (defl.passes) expect(ctx.g.Iy).toBeGreaterThanOrEqual(need * (1 - 1e-9));
   });
 });
+
+/** area of the lightest stock bearing flat that fits the narrower outstand (what the floor was before the reaction was read) */
+const lightestFitting = (flats: readonly { b: number; t: number }[], r: { bt: number; bb: number; tw: number }): number =>
+  Math.min(...flats.filter((f) => f.b <= (Math.min(r.bt, r.bb) - r.tw) / 2).map((f) => f.b * f.t));
+
+describe('bearing floor (bearingCandidates)', () => {
+  let checked = 0;
+  let bitten = 0;
+  // consistency property: the floor the search puts on the bearing flats is never above what the sizing returns for a section whose bearing checks pass
+  test.prop([sectionArb, loadArb, fc.double({ min: 0.2, max: 6, noNaN: true })], { numRuns: 300 })('is at most the sized flat whenever the bearing checks pass', (r, l, k) => {
+    const s = sectionOf(r);
+    const e0 = effectsOf(l.L, l.w, l.P, l.sag);
+    // reactions scaled independently of the span's effects: light to crushing
+    const e: Effects = { ...e0, reactions: e0.reactions.map((x, i) => ({ x: x.x, R: x.R * k * (i === 0 ? 1 : 0.7) })) };
+    const o = defaultOptions(l.L);
+    const v = checkGirder(s, e, o);
+    const ok = v.checks.filter((c) => c.id === 'end-post' || c.id === 'bearing-stiffener' || c.id === 'stiffener-torsion').every((c) => c.passes);
+    const Rmax = Math.max(...e.reactions.map((x) => Math.abs(x.R)));
+    const floor = bearingCandidates(o.bearingFlats, (t) => fy('S355', t, o.fySource), o).lightestFor(Math.min(r.bt, r.bb), r.tw, Rmax);
+    const fits = o.bearingFlats.some((f) => f.b <= (Math.min(r.bt, r.bb) - r.tw) / 2);
+    if (ok && v.bearingSized && fits) {
+      checked++;
+      if (floor && floor.b * floor.t > lightestFitting(o.bearingFlats, r)) bitten++;
+      expect(floor).not.toBeNull();
+      expect(floor!.b * floor!.t).toBeLessThanOrEqual(v.bearing.bs * v.bearing.ts);
+    }
+  });
+
+  test('the property above was tested on sections whose bearing checks pass, and the floor was above the lightest fitting flat in some', () => {
+    expect(checked).toBeGreaterThan(30);
+    expect(bitten).toBeGreaterThan(5);
+  });
+
+  test('a large reaction excludes the flats that would crush (EN 1993-1-5 9.4 bearing: 2·(bs − snipe)·ts·fy/γM0 ≥ R)', () => {
+    const o = defaultOptions(12000);
+    const cands = bearingCandidates(o.bearingFlats, (t) => fy('S355', t, o.fySource), o);
+    const light = cands.lightestFor(400, 12, 0)!;
+    const R = 1.2e6;
+    const heavy = cands.lightestFor(400, 12, R)!;
+    expect(heavy.b * heavy.t).toBeGreaterThan(light.b * light.t);
+    expect(bearingCrushing(heavy.b, heavy.t, o.snipe, fy('S355', heavy.t, o.fySource), o.factors.gammaM0).FbRd).toBeGreaterThanOrEqual(R);
+    // every lighter flat that fits and meets the torsional requirement (9.2.1(8)) would crush under R
+    let lighter = 0;
+    for (const f of o.bearingFlats) {
+      if (f.b > (400 - 12) / 2 || f.b * f.t >= heavy.b * heavy.t) continue;
+      const fyf = fy('S355', f.t, o.fySource);
+      const tors = flatTorsion(f.b, f.t, fyf, o.E);
+      if (tors.ItOverIp < tors.limit) continue;
+      lighter++;
+      expect(bearingCrushing(f.b, f.t, o.snipe, fyf, o.factors.gammaM0).FbRd).toBeLessThan(R);
+    }
+    expect(lighter).toBeGreaterThan(0);
+  });
+});
+
