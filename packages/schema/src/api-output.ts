@@ -58,8 +58,8 @@ export const SearchStatsJson = z
     spaceSize: z.number().meta({ description: 'candidates in the space, -' }),
     fullEvaluations: z.number().meta({ description: 'candidates the check library judged, stopping at the first failed check (a set of plates judged once for all its stiffener layouts counts once), -' }),
     pruned: z
-      .object({ depth: z.number(), rules: z.number(), shear: z.number(), bending: z.number(), flangeInducedBuckling: z.number(), deflection: z.number(), patchLoading: z.number(), patchBending: z.number(), lateralTorsional: z.number(), sameFlanges: z.number(), webOnly: z.number(), incumbent: z.number() })
-      .meta({ description: 'candidates pruned by each bound, -; lateralTorsional: rejected on lateral-torsional buckling alone (the check run on the moment envelope before the other checks, or a lower bound over every flange of a group), not counted in fullEvaluations' }),
+      .object({ depth: z.number(), rules: z.number(), shear: z.number(), bending: z.number(), flangeInducedBuckling: z.number(), deflection: z.number(), patchLoading: z.number(), patchBending: z.number(), lateralTorsional: z.number(), bearing: z.number(), sameFlanges: z.number(), webOnly: z.number(), incumbent: z.number() })
+      .meta({ description: 'candidates pruned by each bound, -; lateralTorsional: rejected on lateral-torsional buckling alone (the check run on the moment envelope before the other checks, or a lower bound over every flange of a group), not counted in fullEvaluations; bearing: no stock bearing flat that fits the flanges meets the torsional requirement (EN 1993-1-5 9.2.1(8)) and carries the largest support reaction in bearing (9.4)' }),
     failedBy: z.record(z.string(), z.number()).meta({ description: 'candidates judged that failed, by the first failing check found, -' }),
     wallMs: z.number().meta({ description: 'wall time, ms' }),
     workers: z.number(),

@@ -1,5 +1,6 @@
 import {
   assembleVerdict,
+  bearingCandidates,
   bendingForSign,
   CHECK_ORDER,
   checkGirder,
@@ -22,6 +23,7 @@ import {
   patchUtilisation,
   prepare,
   webShearCapacityBound,
+  type BearingCandidates,
   type CheckId,
   type CheckResult,
   type EndPost,
@@ -84,7 +86,8 @@ function failsWebOnly(c: CheckResult): boolean {
 /** One web plate (grade, hw, tw) with all its stiffener layouts and end posts in the slice. */
 interface Plate {
   w: WebConfig;
-  layouts: number[];
+  /** web indices of its layouts (consecutive) */
+  layouts: Int32Array;
   /** per layout, made when first asked for (most plates never get that far): see partOf */
   parts: (WebParts | undefined)[];
   webMass: number;
@@ -250,8 +253,10 @@ export function unitSlot(wi: number, gt: number, gb: number, of: number): number
 }
 
 /**
- * Exact search over the web configurations `webIdx` (a slice of prep.webs): the Pareto set of
- * overall depth against the objective, for that slice.
+ * Exact search over the web configurations of `runs` (runs of consecutive indices of prep.webs:
+ * a slice): the Pareto set of overall depth against the objective, for that slice. A run may hold
+ * several web plates or part of one; the parts of one plate in different runs are searched apart
+ * (the same answer, less sharing).
  *
  * Best first: every candidate belongs to a node whose lower bound on the objective is known — a
  * run of flange pairs on one web plate (ascending plate mass), one set of plates, or the stiffener
@@ -263,11 +268,11 @@ export function unitSlot(wi: number, gt: number, gb: number, of: number): number
  * Bounds from the check library (shear, bending, flange-induced buckling, deflection, patch
  * loading) exclude candidates that every passing section would satisfy.
  */
-export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: { aborted: boolean }, outer?: OuterBound, part?: SlicePart): SliceResult {
-  const { p, webs, groups, flanges, groupStart, L, Lmax, supports } = prep;
+export function searchSlice(prep: Prepared, runs: readonly (readonly [first: number, count: number])[], signal?: { aborted: boolean }, outer?: OuterBound, part?: SlicePart): SliceResult {
+  const { p, webs, groups, flanges, groupStart, plateStarts, L, Lmax, supports } = prep;
   const o = p.options;
   const sp = p.space;
-  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, patchBending: 0, lateralTorsional: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 };
+  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, patchBending: 0, lateralTorsional: 0, bearing: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 };
   let fullEvaluations = 0;
   let spaceSize = 0;
   const minThroat = Math.min(...o.weldThroats);
@@ -371,8 +376,27 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
 
   // demand bounds valid for every candidate of the slice: self-weight from the lightest web plate
   // and the two lightest flanges up to the heaviest conceivable girder
+  // web plates of the slice: [first web index, count] each (a plate's layouts are consecutive in
+  // webConfigs' order; runs are cut where plates start)
+  const byPlate: [number, number][] = [];
+  for (const [a, c] of runs) {
+    // the plate holding index a: the last start ≤ a
+    const lo = bisectStart(plateStarts, a);
+    let x = a;
+    const end = a + c;
+    for (let k = lo; x < end && k + 1 < plateStarts.length; k++) {
+      const upto = Math.min(end, plateStarts[k + 1]!);
+      if (upto > x) {
+        const last = byPlate[byPlate.length - 1];
+        // a run that continues the previous one within the same plate joins it
+        if (last && last[0] + last[1] === x && x !== plateStarts[k]) last[1] += upto - x;
+        else byPlate.push([x, upto - x]);
+      }
+      x = upto;
+    }
+  }
   let lightestWebKg = Infinity;
-  for (const wi of webIdx) lightestWebKg = Math.min(lightestWebKg, webs[wi]!.hw * webs[wi]!.tw * L * KG_PER_MM3);
+  for (const [wi] of byPlate) lightestWebKg = Math.min(lightestWebKg, webs[wi]!.hw * webs[wi]!.tw * L * KG_PER_MM3);
   const gLoAll = ((lightestWebKg + 2 * lightestFlange) * G_ACC) / L;
   const dem = p.load.demandLowerBound(gLoAll, gMax);
   const deflFloor = p.load.deflectionFloor(gLoAll, gMax);
@@ -381,29 +405,6 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
   const sagAtForces = forces.length && p.load.sagFloorAt ? p.load.sagFloorAt(forces.map((f) => f.x), gLoAll, gMax) : [];
   const anySag = sagAtForces.some((m) => m > 0);
   const Mneed = Math.max(dem.Msag, dem.Mhog);
-
-  // web plates: the layouts of each (grade, hw, tw) in the slice
-  // (the layouts of one plate are consecutive in webConfigs' order: keyed only where a run breaks)
-  const byPlate: number[][] = [];
-  {
-    const index = new Map<string, number[]>();
-    let prev: WebConfig | null = null;
-    let cur: number[] | null = null;
-    for (const wi of webIdx) {
-      const w = webs[wi]!;
-      if (prev === null || cur === null || w.grade !== prev.grade || w.hw !== prev.hw || w.tw !== prev.tw) {
-        const k = `${w.grade}|${w.hw}|${w.tw}`;
-        cur = index.get(k) ?? null;
-        if (!cur) {
-          cur = [];
-          index.set(k, cur);
-          byPlate.push(cur);
-        }
-        prev = w;
-      }
-      cur.push(wi);
-    }
-  }
 
   const heap = new Heap();
   const webDead = new Set<number>();
@@ -431,11 +432,36 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
   const pairsPerWeb = sp.symmetric ? nFlange : nFlange * nFlange;
 
   const groupSize = (gt: number, gb: number): number => (sp.symmetric ? groups[gt]!.options.length : groups[gt]!.options.length * groups[gb]!.options.length);
-  for (const layouts of byPlate) {
-    const w = webs[layouts[0]!]!;
-    const nL = layouts.length;
+  /**
+   * Per end post the least intermediate-stiffener kg per mm of web depth over layouts first … first+nL−1
+   * (count × sides × b × t, as webPartsWith computes the kg before × hw × density), and their panel
+   * counts, most first. Whole plates with the same flat filter list the same layouts: once per pattern.
+   */
+  const patterns = new Map<string, { rigid: number; nonRigid: number; panelCounts: number[] }>();
+  const patternOf = (first: number, nL: number, tw: number) => {
+    const whole = first === plateStarts[bisectStart(plateStarts, first)] && nL === plateLength(plateStarts, first);
+    const key = whole ? `${nL}|${sp.rules.stiffenerAtLeastWeb ? tw : ''}` : '';
+    let hit = whole ? patterns.get(key) : undefined;
+    if (!hit) {
+      let rigid = Infinity;
+      let nonRigid = Infinity;
+      const counts = new Set<number>();
+      for (let wi = first; wi < first + nL; wi++) {
+        const lw = webs[wi]!;
+        const m = lw.panels === 0 || !lw.flat ? 0 : (stiffCount.get(lw.panels) ?? 0) * lw.sides * lw.flat.b * lw.flat.t;
+        if (lw.endPost === 'rigid') rigid = Math.min(rigid, m);
+        else nonRigid = Math.min(nonRigid, m);
+        counts.add(lw.panels);
+      }
+      hit = { rigid, nonRigid, panelCounts: [...counts].sort((x, y) => y - x) };
+      if (whole) patterns.set(key, hit);
+    }
+    return hit;
+  };
+  for (const [first, nL] of byPlate) {
+    const w = webs[first]!;
     // this slice's runs of the plate (all of them unless the plate is shared out by SlicePart)
-    const own = part ? groupPairs.filter(([gt, gb]) => unitSlot(layouts[0]!, gt, gb, part.of) === part.slot) : groupPairs;
+    const own = part ? groupPairs.filter(([gt, gb]) => unitSlot(first, gt, gb, part.of) === part.slot) : groupPairs;
     if (own.length === 0) continue;
     let total = pairsPerWeb * nL;
     if (part) {
@@ -456,18 +482,13 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       pruned.deflection += total;
       continue;
     }
-    let minRigid = Infinity;
-    let minNonRigid = Infinity;
-    for (const wi of layouts) {
-      const lw = webs[wi]!;
-      // the intermediate stiffeners' kg, as webPartsWith computes it
-      const kg = lw.panels === 0 || !lw.flat ? 0 : (stiffCount.get(lw.panels) ?? 0) * lw.sides * lw.flat.b * lw.flat.t * lw.hw * KG_PER_MM3;
-      if (lw.endPost === 'rigid') minRigid = Math.min(minRigid, kg);
-      else minNonRigid = Math.min(minNonRigid, kg);
-    }
+    // the least intermediate-stiffener kg per end post, as webPartsWith computes it (an integer product, then × hw × density)
+    const pat = patternOf(first, nL, w.tw);
     const minStiff = new Map<EndPost, number>();
-    if (minRigid < Infinity) minStiff.set('rigid', minRigid);
-    if (minNonRigid < Infinity) minStiff.set('non-rigid', minNonRigid);
+    if (pat.rigid < Infinity) minStiff.set('rigid', pat.rigid * w.hw * KG_PER_MM3);
+    if (pat.nonRigid < Infinity) minStiff.set('non-rigid', pat.nonRigid * w.hw * KG_PER_MM3);
+    const layouts = new Int32Array(nL);
+    for (let j = 0; j < nL; j++) layouts[j] = first + j;
     const aFloor = bearingAreaFloor(w.tw);
     let minLayoutKg = Infinity;
     for (const [ep, s] of minStiff) minLayoutKg = Math.min(minLayoutKg, s + bearingFlatCount(ep) * aFloor * w.hw * KG_PER_MM3);
@@ -480,7 +501,7 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       minLayoutKg,
       minStiff,
       // most panels first: the patch resistance grows as the panels shorten, so one passes soonest
-      panelCounts: [...new Set(layouts.map((wi) => webs[wi]!.panels))].sort((x, y) => y - x),
+      panelCounts: pat.panelCounts,
       Mneed,
       IyReq,
       fibTop: fib(dem.sagAlways),
@@ -585,6 +606,26 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       ps.panelOk.set(np, ok);
     }
     return ok;
+  };
+  /** per stiffener grade: the bearing flats the sizing can accept (torsion, crushing under a reaction) */
+  const bearingByGrade = new Map<string, BearingCandidates>();
+  const bearingOf = (grade: WebConfig['grade']): BearingCandidates => {
+    let hit = bearingByGrade.get(grade);
+    if (!hit) {
+      hit = bearingCandidates(o.bearingFlats, (t) => fy(grade, t, prep.fySource), o);
+      bearingByGrade.set(grade, hit);
+    }
+    return hit;
+  };
+  /**
+   * The bearing floor of a set of plates under a largest support reaction R: null when no stock
+   * flat fits the flanges (the sizing keeps the section's default), 'none' when flats fit but
+   * none of them can pass (every layout of these plates fails), else the lightest that can.
+   */
+  const bearingFloorFor = (plate: Plate, minB: number, R: number): BearingFlat | null | 'none' => {
+    if (!fitOf(plate, minB)) return null;
+    const f = bearingOf(plate.w.grade).lightestFor(minB, plate.w.tw, R);
+    return f ? { bs: f.b, ts: f.t } : 'none';
   };
   const fitOf = (plate: Plate, minB: number): BearingFlat | null => {
     let hit = plate.fit.get(minB);
@@ -751,7 +792,12 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
           continue;
         }
       }
-      const fit = fitOf(plate, Math.min(T.b, B.b));
+      // the bearing flats at least as heavy as the sizing needs for these plates' own reaction
+      const fit = bearingFloorFor(plate, Math.min(T.b, B.b), p.load.maxReaction ? p.load.maxReaction(g) : 0);
+      if (fit === 'none') {
+        pruned.bearing += nL;
+        continue;
+      }
       let layoutKg = Infinity;
       if (fit) {
         for (const [ep, s] of plate.minStiff) layoutKg = Math.min(layoutKg, s + bearingFlatCount(ep) * fit.bs * fit.ts * w.hw * KG_PER_MM3);
@@ -797,6 +843,17 @@ export function searchSlice(prep: Prepared, webIdx: readonly number[], signal?: 
       return;
     }
     const effects = p.load.effects(ps.g);
+    if (ps.fit && !p.load.maxReaction) {
+      // a load model without maxReaction: the bearing floor from the reactions of the effects
+      let R = 0;
+      for (const r of effects.reactions) R = Math.max(R, Math.abs(r.R));
+      const fit = bearingFloorFor(plate, Math.min(T.b, B.b), R);
+      if (fit === 'none') {
+        pruned.bearing += nL;
+        return;
+      }
+      ps.fit = fit;
+    }
     const judged: Judged = { results: [] };
     const fail = firstFailureAmong(section, effects, o, PLATE_IDS, judged);
     fullEvaluations++;
@@ -977,3 +1034,22 @@ function firstByIy(options: readonly FlangeOption[], hw: number, tw: number, IyR
   }
   return lo;
 }
+
+/** Index of the last of the ascending starts that is ≤ x. */
+function bisectStart(starts: Int32Array, x: number): number {
+  let lo = 0;
+  let hi = starts.length - 1;
+  while (lo < hi) {
+    const mid = (lo + hi + 1) >> 1;
+    if (starts[mid]! <= x) lo = mid;
+    else hi = mid - 1;
+  }
+  return lo;
+}
+
+/** The number of web configurations of the plate that starts at `first` (a start of `starts`). */
+function plateLength(starts: Int32Array, first: number): number {
+  const k = bisectStart(starts, first);
+  return k + 1 < starts.length ? starts[k + 1]! - starts[k]! : 0;
+}
+

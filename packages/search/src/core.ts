@@ -46,6 +46,8 @@ export interface PruneStats {
   patchBending: number;
   /** the plates fail lateral-torsional buckling (EN 1993-1-1 6.3.2), found from the moment envelope before any other check */
   lateralTorsional: number;
+  /** no stock bearing flat that fits the flanges meets the torsional requirement and carries the largest support reaction in bearing (EN 1993-1-5 9.2.1(8), 9.4) */
+  bearing: number;
   /** the same plates failed a layout-free check (with any layout), or a panel-only check with the same panels and end post */
   sameFlanges: number;
   /** the layout failed a check that reads only the web and its stiffeners (on any flanges) */
@@ -84,6 +86,8 @@ export interface Prepared {
   flanges: FlangeOption[];
   /** first global index of each group */
   groupStart: number[];
+  /** first web index of each web plate (grade, hw, tw), ascending, and webs.length at the end */
+  plateStarts: Int32Array;
   L: number;
   Lmax: number;
   supports: number[];
@@ -97,7 +101,7 @@ export interface Prepared {
  * a long-lived worker sees the same space again and again (a schedule's marks, a user's reruns),
  * and a large space has ~10^6 web configurations (~20 ms to build). Read-only once built.
  */
-const enumerated = new Map<string, { webs: WebConfig[]; groups: FlangeGroup[]; flanges: FlangeOption[]; groupStart: number[] }>();
+const enumerated = new Map<string, { webs: WebConfig[]; groups: FlangeGroup[]; flanges: FlangeOption[]; groupStart: number[]; plateStarts: Int32Array }>();
 
 function enumerate(sp: SpaceSpec, fySource: FySource) {
   // every field webConfigs and flangeGroups read
@@ -112,7 +116,14 @@ function enumerate(sp: SpaceSpec, fySource: FySource) {
       groupStart.push(flanges.length);
       flanges.push(...g.options);
     }
-    hit = { webs, groups, flanges, groupStart };
+    const starts: number[] = [];
+    for (let i = 0; i < webs.length; i++) {
+      const w = webs[i]!;
+      const q = webs[i - 1];
+      if (!q || q.grade !== w.grade || q.hw !== w.hw || q.tw !== w.tw) starts.push(i);
+    }
+    starts.push(webs.length);
+    hit = { webs, groups, flanges, groupStart, plateStarts: Int32Array.from(starts) };
     enumerated.set(key, hit);
     while (enumerated.size > 3) enumerated.delete(enumerated.keys().next().value!);
   } else {
@@ -125,7 +136,7 @@ function enumerate(sp: SpaceSpec, fySource: FySource) {
 
 export function prepareSearch(p: SearchProblem): Prepared {
   const fySource = p.options.fySource;
-  const { webs, groups, flanges, groupStart } = enumerate(p.space, fySource);
+  const { webs, groups, flanges, groupStart, plateStarts } = enumerate(p.space, fySource);
   const supports = p.options.supports;
   const L = supports[supports.length - 1]! - supports[0]!;
   let Lmax = 0;
@@ -137,7 +148,7 @@ export function prepareSearch(p: SearchProblem): Prepared {
     const count = panelsOf(supports, Lmax / n).stiffenerXs.length;
     for (const f of p.space.flats) for (const sides of p.space.sides) stiffKgPerHw = Math.max(stiffKgPerHw, count * sides * f.b * f.t * KG_PER_MM3);
   }
-  return { p, webs, groups, flanges, groupStart, L, Lmax, supports, fySource, stiffKgPerHw };
+  return { p, webs, groups, flanges, groupStart, plateStarts, L, Lmax, supports, fySource, stiffKgPerHw };
 }
 
 /**

@@ -34,6 +34,8 @@ export interface LoadModel {
    * [hogLo, hogHi] (N·mm, all ≥ 0).
    */
   momentEnvelopeRange?(gLo: number, gHi: number): MomentRange;
+  /** max |R| over the support reactions of effects(g), bit for bit */
+  maxReaction?(g: number): number;
 }
 
 export interface MomentRange {
@@ -178,8 +180,26 @@ export function analysisLoadModel(a: Analysis): LoadModel {
     deflectionAffine: analysisDeflectionAffine(a),
     sagFloorAt: (xs, gLo, gHi) => xs.map((x) => analysisSagFloorAt(a, x, gLo, gHi)),
     momentEnvelope: momentEnvelopeFor(a),
+    maxReaction: (g) => analysisMaxReaction(a, g),
     ...rangeOf(a),
   };
+}
+
+/** max |R| over the supports of designEffects(a, g).reactions, computed as designEffects does. */
+export function analysisMaxReaction(a: Analysis, g: number): number {
+  const nR = a.reactionX.length;
+  const nC = a.gammaG.length;
+  let out = 0;
+  for (let r = 0; r < nR; r++) {
+    let R = -Infinity;
+    const rg = g * a.Rg[r]!;
+    for (let c = 0; c < nC; c++) {
+      const v = a.RA[c * nR + r]! + a.gammaG[c]! * rg;
+      if (v > R) R = v;
+    }
+    out = Math.max(out, Math.abs(R));
+  }
+  return out;
 }
 
 /**

@@ -25,7 +25,7 @@ export interface SearchResult {
 /** Merges slice results into one answer (exact: the front of a union is the front of the slices' fronts). */
 export function mergeSlices(slices: SliceResult[], wallMs: number, workers: number, webConfigurations: number, size: number): SearchResult {
   const pareto = paretoFront(slices.flatMap((s) => s.front));
-  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, patchBending: 0, lateralTorsional: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 };
+  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, patchBending: 0, lateralTorsional: 0, bearing: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 };
   for (const s of slices) for (const k of Object.keys(pruned) as (keyof PruneStats)[]) pruned[k] += s.pruned[k];
   const failedBy: Record<string, number> = {};
   for (const s of slices) for (const [k, v] of Object.entries(s.failedBy)) failedBy[k] = (failedBy[k] ?? 0) + v;
@@ -46,7 +46,6 @@ export function search(p: SearchProblem, signal?: { aborted: boolean }): SearchR
   const t0 = performance.now();
   assertSpace(p.space);
   const prep = prepareSearch(p);
-  const all = prep.webs.map((_, i) => i);
-  const r = searchSlice(prep, all, signal);
+  const r = searchSlice(prep, [[0, prep.webs.length]], signal);
   return mergeSlices([r], performance.now() - t0, 1, prep.webs.length, spaceSize(p.space));
 }

@@ -39,9 +39,9 @@ export default function run(msg: WorkerMessage): SliceResult | 'pong' {
     if (msg.how === 'exit') process.exit(3);
     throw new Error('deliberate worker failure');
   }
-  const webIdx = msg.webIdx ?? [];
-  for (const [a, c] of msg.runs ?? []) for (let k = 0; k < c; k++) webIdx.push(a + k);
-  return searchSlice(preparedFor(msg), webIdx, undefined, msg.shared ? new SharedStairs(msg.shared) : undefined, msg.part);
+  const runs: [number, number][] = [...(msg.runs ?? [])];
+  for (const wi of msg.webIdx ?? []) runs.push([wi, 1]);
+  return searchSlice(preparedFor(msg), runs, undefined, msg.shared ? new SharedStairs(msg.shared) : undefined, msg.part);
 }
 
 /** The last searches prepared in this worker (a search's slices all carry its id). */

@@ -79,8 +79,7 @@ describe('a search shared out over workers (SlicePart)', () => {
     const problem = { space: sp, options, load: simpleSpanModel(L, q, P, q / 1.4), objective, cost: DEFAULT_COST };
     const one = search(problem);
     const prep = prepareSearch(problem);
-    const all = prep.webs.map((_, i) => i);
-    const parts = Array.from({ length: of }, (_, slot) => searchSlice(prep, all, undefined, undefined, { slot, of }));
+    const parts = Array.from({ length: of }, (_, slot) => searchSlice(prep, [[0, prep.webs.length]], undefined, undefined, { slot, of }));
     expect(parts.reduce((n, r) => n + r.spaceSize, 0)).toBe(spaceSize(sp));
     const merged = mergeSlices(parts, 0, of, prep.webs.length, spaceSize(sp));
     expect(frontKey(merged.pareto)).toEqual(frontKey(one.pareto));
