@@ -165,50 +165,80 @@ type Node =
   | { kind: 1; lb: number; seq: number; ps: Plates }
   | { kind: 2; lb: number; seq: number; ps: Plates };
 
-/** A binary min-heap on (lb, seq). */
+/**
+ * A binary min-heap on (lb, seq). The keys live in typed arrays beside the nodes: the comparisons
+ * of a large heap (10^5 nodes and more on mono-symmetric spaces) then read contiguous memory
+ * instead of one scattered node object each.
+ */
 class Heap {
-  private a: Node[] = [];
+  private lbs = new Float64Array(1024);
+  private seqs = new Float64Array(1024);
+  private nodes: (Node | undefined)[] = [];
+  private n = 0;
   get size(): number {
-    return this.a.length;
+    return this.n;
   }
   peekLb(): number {
-    return this.a.length ? this.a[0]!.lb : Infinity;
+    return this.n > 0 ? this.lbs[0]! : Infinity;
   }
-  push(n: Node): void {
-    const a = this.a;
-    a.push(n);
-    let i = a.length - 1;
+  push(nd: Node): void {
+    if (this.n === this.lbs.length) {
+      const grow = (a: Float64Array) => {
+        const b = new Float64Array(a.length * 2);
+        b.set(a);
+        return b;
+      };
+      this.lbs = grow(this.lbs);
+      this.seqs = grow(this.seqs);
+    }
+    const { lbs, seqs, nodes } = this;
+    const lb = nd.lb;
+    const sq = nd.seq;
+    let i = this.n++;
     while (i > 0) {
       const p = (i - 1) >> 1;
-      if (!less(a[i]!, a[p]!)) break;
-      [a[i], a[p]] = [a[p]!, a[i]!];
+      const pl = lbs[p]!;
+      if (!(lb < pl || (lb === pl && sq < seqs[p]!))) break;
+      lbs[i] = pl;
+      seqs[i] = seqs[p]!;
+      nodes[i] = nodes[p]!;
       i = p;
     }
+    lbs[i] = lb;
+    seqs[i] = sq;
+    nodes[i] = nd;
   }
   pop(): Node | undefined {
-    const a = this.a;
-    if (a.length === 0) return undefined;
-    const top = a[0]!;
-    const last = a.pop()!;
-    if (a.length > 0) {
-      a[0] = last;
+    if (this.n === 0) return undefined;
+    const { lbs, seqs, nodes } = this;
+    const top = nodes[0]!;
+    const n = --this.n;
+    if (n > 0) {
+      const lb = lbs[n]!;
+      const sq = seqs[n]!;
+      const nd = nodes[n]!;
       let i = 0;
       for (;;) {
         const l = 2 * i + 1;
+        if (l >= n) break;
         const r = l + 1;
-        let m = i;
-        if (l < a.length && less(a[l]!, a[m]!)) m = l;
-        if (r < a.length && less(a[r]!, a[m]!)) m = r;
-        if (m === i) break;
-        [a[i], a[m]] = [a[m]!, a[i]!];
+        let m = l;
+        if (r < n && (lbs[r]! < lbs[l]! || (lbs[r] === lbs[l] && seqs[r]! < seqs[l]!))) m = r;
+        const ml = lbs[m]!;
+        if (!(ml < lb || (ml === lb && seqs[m]! < sq))) break;
+        lbs[i] = ml;
+        seqs[i] = seqs[m]!;
+        nodes[i] = nodes[m]!;
         i = m;
       }
+      lbs[i] = lb;
+      seqs[i] = sq;
+      nodes[i] = nd;
     }
+    // the slot past the end lets go of its node (the array keeps its length for the next push)
+    nodes[n] = undefined;
     return top;
   }
-}
-function less(x: Node, y: Node): boolean {
-  return x.lb < y.lb || (x.lb === y.lb && x.seq < y.seq);
 }
 
 interface Miss {
