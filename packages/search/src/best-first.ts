@@ -117,8 +117,8 @@ interface Plates {
   d: number;
   g: number;
   fit: BearingFlat | null;
-  /** per panel count: whether the patch-loading bounds pass (memo of panelOk) */
-  panelOk: Map<number, boolean>;
+  /** per panel count (its slot): whether the patch-loading bounds pass, 0 unknown, 1 yes, 2 no (memo of panelOk; made when first asked) */
+  panelOk: Uint8Array | null;
   /** Mel,Rd of the gross section (0 until needed) */
   MelRd: number;
   effects?: Effects;
@@ -128,9 +128,38 @@ interface Plates {
   lbs?: Float64Array;
   k: number;
   layoutCalls: number;
-  panelDead: Set<string>;
+  panelDead: Set<string> | null;
   /** per panels and end post: the PANEL_ONLY results that passed on one layout (the same on every flat and side) */
   panelPassed?: Map<string, Map<CheckId, CheckResult>>;
+}
+
+/** The state of a mono-symmetric run's enumeration (see gridOf). Rows: top options, columns: bottom options, indices within their groups. */
+interface Grid {
+  nt: number;
+  nb: number;
+  /** global index of each group's first option */
+  t0: number;
+  b0: number;
+  /** flange masses, kg */
+  mT: Float64Array;
+  mB: Float64Array;
+  /** the options judged live so far, ascending; the next option to judge */
+  liveT: Int32Array;
+  nLiveT: number;
+  nextT: number;
+  liveB: Int32Array;
+  nLiveB: number;
+  nextB: number;
+  /** the merge's heap: positions in liveT, liveB and the pair's mass */
+  ha: Int32Array;
+  hb: Int32Array;
+  hk: Float64Array;
+  hn: number;
+  /** pairs taken from the merge */
+  yielded: number;
+  /** options ruled out, by reason: flange-induced buckling, patch loading, LTB */
+  deadT: [number, number, number];
+  deadB: [number, number, number];
 }
 
 interface Pairs {
@@ -161,6 +190,8 @@ type Node =
       segsBot?: readonly Segment[];
       /** symmetric runs: how many pairs the next LTB block bound tries to drop at once (0: no more tries) */
       block?: number;
+      /** mono-symmetric runs: the enumeration over live top and bottom options (made when first popped) */
+      grid?: Grid;
     }
   | { kind: 1; lb: number; seq: number; ps: Plates }
   | { kind: 2; lb: number; seq: number; ps: Plates };
@@ -623,7 +654,9 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
   /** Whether a panel count passes the patch-loading bounds on these plates: 6.4 and the 7.2 floor (memoised). */
   const panelOk = (ps: Plates, np: number): boolean => {
     if (forces.length === 0) return true;
-    let ok = ps.panelOk.get(np);
+    const memo = (ps.panelOk ??= new Uint8Array(panelSlots.size));
+    const slot = panelSlots.get(np)!;
+    let ok = memo[slot] === 0 ? undefined : memo[slot] === 1;
     if (ok === undefined) {
       ok = patchOf(ps.plate, ps.ti, np) <= 1 + 1e-9;
       if (ok && anySag) {
@@ -633,7 +666,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
         }
         ok = patchBendingFloor(forces, ps.plate.w, ps.T, panelsByCount.get(np)!, o.E, o.factors.gammaM1, sagAtForces, ps.MelRd) <= 1 + 1e-9;
       }
-      ps.panelOk.set(np, ok);
+      memo[slot] = ok ? 1 : 2;
     }
     return ok;
   };
@@ -701,7 +734,9 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       const part = partOf(c.plate, 0);
       const widest = group.options.reduce((a, b) => (b.b > a.b ? b : a));
       const section = top ? buildSection(w, part, F, widest) : buildSection(w, part, widest, F);
-      const u = ltbSet!.over(segs, section, top, group.options.map((f) => f.b));
+      // widest first: as a rule the strongest, so a set that is not all dead is shown so soonest
+      const widths = group.options.map((f) => f.b).sort((x, y) => y - x);
+      const u = ltbSet!.over(segs, section, top, widths, 1 + 1e-6);
       // a bound: only a clear failure drops the set (the margin covers round-off)
       known = u > 1 + 1e-6 ? 1 : 2;
       memo[slot] = known;
@@ -744,8 +779,11 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
 
   /** Next flange pairs of a run: cheap bounds, then a node for the first set of plates they leave. */
   const advancePairs = (c: Extract<Node, { kind: 0 }>): void => {
-    const { plate, pairs, d, Freq, fibT, fibB } = c;
-    const w = plate.w;
+    if (!sp.symmetric) {
+      advanceGrid(c);
+      return;
+    }
+    const { plate, pairs, d } = c;
     const nL = plate.layouts.length;
     const n = pairs.kg.length;
     while (c.k < n) {
@@ -760,8 +798,8 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
         heap.push(c);
         return;
       }
-      // symmetric runs: a block of the next (lightest) pairs that all fail LTB is dropped at once
-      if (ltbSet && sp.symmetric && c.block !== 0) {
+      // a block of the next (lightest) pairs that all fail LTB is dropped at once
+      if (ltbSet && c.block !== 0) {
         const m = Math.min(c.block ?? 1, n - c.k);
         if (ltbBlockDead(c, c.k, m)) {
           pruned.lateralTorsional += m * nL;
@@ -776,69 +814,229 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       const ti = pairs.ti[c.k]!;
       const bi = pairs.bi[c.k]!;
       c.k++;
-      const T = flanges[ti]!;
-      const B = flanges[bi]!;
-      if (T.A * T.fy + B.A * B.fy < Freq) {
-        pruned.bending += nL;
-        continue;
-      }
-      if (!fibOk(T, fibT, w.tw, throat0) || !fibOk(B, fibB, w.tw, throat0)) {
+      if (flangeFails(c, flanges[ti]!, c.fibT) || flangeFails(c, flanges[bi]!, c.fibB)) {
         pruned.flangeInducedBuckling += nL;
         continue;
       }
-      const Iy = iyOfPlates(w.hw, w.tw, T.b, T.t, B.b, B.t) * (1 + 1e-9);
-      if (plate.IyReq > 0 && Iy < plate.IyReq) {
-        pruned.deflection += nL;
-        continue;
-      }
-      // mono-symmetric runs: a top flange (or a bottom one) with which every pair of the run fails LTB
-      if (ltbSet && !sp.symmetric && (ltbDeadWith(c, true, ti) || ltbDeadWith(c, false, bi))) {
-        pruned.lateralTorsional += nL;
-        continue;
-      }
-      const g = selfWeightOf(prep, w, T, B);
-      // the deflection bound again, at these plates' own self-weight
-      const da = p.load.deflectionAffine;
-      if (da && Iy < minIyForDeflectionAt(g, da.bA, da.bB, da.sA, da.sB, da.limit, w.hw * w.tw, o.E, o.G)) {
-        pruned.deflection += nL;
-        continue;
-      }
-      // patch loading reads the web, the top flange and the panels: some panel count must pass it
-      // (the first that does is enough here; the others are judged when a layout asks)
-      const ps: Plates = { plate, ti, bi, T, B, d, g, fit: null, panelOk: new Map(), MelRd: 0, k: 0, layoutCalls: 0, panelDead: new Set() };
-      if (forces.length > 0) {
-        let any = false;
-        let patchFails = false;
-        for (const np of plate.panelCounts) {
-          if (panelOk(ps, np)) {
-            any = true;
-            break;
-          }
-          if (patchOf(plate, ti, np) > 1 + 1e-9) patchFails = true;
+      tryPair(c, ti, bi, kg);
+    }
+  };
+
+  /** Flange-induced buckling (EN 1993-1-5 8) rules out this flange as the one it limits, with any other. */
+  const flangeFails = (c: Extract<Node, { kind: 0 }>, f: FlangeOption, lim: number): boolean => !fibOk(f, lim, c.plate.w.tw, throat0);
+
+  /**
+   * One flange pair of a run, past the bounds that read one flange alone: the bounds that read both
+   * (bending, deflection, patch loading with bending, bearing), then a node for its set of plates.
+   */
+  const tryPair = (c: Extract<Node, { kind: 0 }>, ti: number, bi: number, kg: number): void => {
+    const { plate, d, Freq } = c;
+    const w = plate.w;
+    const nL = plate.layouts.length;
+    const T = flanges[ti]!;
+    const B = flanges[bi]!;
+    if (T.A * T.fy + B.A * B.fy < Freq) {
+      pruned.bending += nL;
+      return;
+    }
+    const Iy = iyOfPlates(w.hw, w.tw, T.b, T.t, B.b, B.t) * (1 + 1e-9);
+    if (plate.IyReq > 0 && Iy < plate.IyReq) {
+      pruned.deflection += nL;
+      return;
+    }
+    const g = selfWeightOf(prep, w, T, B);
+    // the deflection bound again, at these plates' own self-weight
+    const da = p.load.deflectionAffine;
+    if (da && Iy < minIyForDeflectionAt(g, da.bA, da.bB, da.sA, da.sB, da.limit, w.hw * w.tw, o.E, o.G)) {
+      pruned.deflection += nL;
+      return;
+    }
+    // patch loading reads the web, the top flange and the panels: some panel count must pass it
+    // (the first that does is enough here; the others are judged when a layout asks)
+    const ps: Plates = { plate, ti, bi, T, B, d, g, fit: null, panelOk: null, MelRd: 0, k: 0, layoutCalls: 0, panelDead: null };
+    if (forces.length > 0) {
+      let any = false;
+      let patchFails = false;
+      for (const np of plate.panelCounts) {
+        if (panelOk(ps, np)) {
+          any = true;
+          break;
         }
-        if (!any) {
-          if (patchFails) pruned.patchLoading += nL;
-          else pruned.patchBending += nL;
-          continue;
-        }
+        if (patchOf(plate, ti, np) > 1 + 1e-9) patchFails = true;
       }
-      // the bearing flats at least as heavy as the sizing needs for these plates' own reaction
-      const fit = bearingFloorFor(plate, Math.min(T.b, B.b), p.load.maxReaction ? p.load.maxReaction(g) : 0);
-      if (fit === 'none') {
-        pruned.bearing += nL;
-        continue;
+      if (!any) {
+        if (patchFails) pruned.patchLoading += nL;
+        else pruned.patchBending += nL;
+        return;
       }
-      let layoutKg = Infinity;
-      if (fit) {
-        for (const [ep, s] of plate.minStiff) layoutKg = Math.min(layoutKg, s + bearingFlatCount(ep) * fit.bs * fit.ts * w.hw * KG_PER_MM3);
-      } else layoutKg = plate.minLayoutKg;
-      const lb = floorOf(kg + layoutKg, surfaceOf(w, T, B));
-      if (prunes(d, lb)) {
-        pruned.incumbent += nL;
-        continue;
+    }
+    // the bearing flats at least as heavy as the sizing needs for these plates' own reaction
+    const fit = bearingFloorFor(plate, Math.min(T.b, B.b), p.load.maxReaction ? p.load.maxReaction(g) : 0);
+    if (fit === 'none') {
+      pruned.bearing += nL;
+      return;
+    }
+    let layoutKg = Infinity;
+    if (fit) {
+      for (const [ep, s] of plate.minStiff) layoutKg = Math.min(layoutKg, s + bearingFlatCount(ep) * fit.bs * fit.ts * w.hw * KG_PER_MM3);
+    } else layoutKg = plate.minLayoutKg;
+    const lb = floorOf(kg + layoutKg, surfaceOf(w, T, B));
+    if (prunes(d, lb)) {
+      pruned.incumbent += nL;
+      return;
+    }
+    ps.fit = fit;
+    heap.push({ kind: 1, lb, seq: seq++, ps });
+  };
+
+  /**
+   * Mono-symmetric runs as a grid: the top options (widths of one thickness, ascending mass) by the
+   * bottom ones. A flange option that fails on its own — flange-induced buckling, patch loading on
+   * every panel count (top), or the LTB set bound with it fixed — rules out its whole row or
+   * column, so the pairs are enumerated over the live rows and columns only, in ascending mass
+   * (a sorted merge of the two lists: a small heap of one entry per live row), and each option is
+   * judged when the merge first reaches it. The run's bound is the lightest pair left.
+   */
+  const massOfGroup: Float64Array[] = [];
+  const groupMass = (gi: number): Float64Array => (massOfGroup[gi] ??= Float64Array.from(groups[gi]!.options, (f) => flangeMass(f, L)));
+  const gridOf = (c: Extract<Node, { kind: 0 }>): Grid => {
+    if (c.grid) return c.grid;
+    const GT = groups[c.gt]!;
+    const GB = groups[c.gb]!;
+    const nt = GT.options.length;
+    const nb = GB.options.length;
+    const ints = new Int32Array(3 * nt + nb);
+    const g: Grid = {
+      nt,
+      nb,
+      t0: groupStart[c.gt]!,
+      b0: groupStart[c.gb]!,
+      mT: groupMass(c.gt),
+      mB: groupMass(c.gb),
+      liveT: ints.subarray(0, nt),
+      nLiveT: 0,
+      nextT: 0,
+      liveB: ints.subarray(nt, nt + nb),
+      nLiveB: 0,
+      nextB: 0,
+      ha: ints.subarray(nt + nb, 2 * nt + nb),
+      hb: ints.subarray(2 * nt + nb, 3 * nt + nb),
+      hk: new Float64Array(nt),
+      hn: 0,
+      yielded: 0,
+      deadT: [0, 0, 0],
+      deadB: [0, 0, 0],
+    };
+    c.grid = g;
+    if (ensureTop(c, g, 0) && ensureBottom(c, g, 0)) gridPush(g, 0, 0);
+    return g;
+  };
+  /** Whether live row a exists (judging top options in order until it does). Reasons: 0 FIB, 1 patch, 2 LTB. */
+  const ensureTop = (c: Extract<Node, { kind: 0 }>, g: Grid, a: number): boolean => {
+    while (g.nLiveT <= a && g.nextT < g.nt) {
+      const i = g.nextT++;
+      const ti = g.t0 + i;
+      const T = flanges[ti]!;
+      let why = -1;
+      if (flangeFails(c, T, c.fibT)) why = 0;
+      else if (forces.length > 0 && c.plate.panelCounts.every((np) => patchOf(c.plate, ti, np) > 1 + 1e-9)) why = 1;
+      else if (ltbSet && ltbDeadWith(c, true, ti)) why = 2;
+      if (why >= 0) g.deadT[why]!++;
+      else g.liveT[g.nLiveT++] = i;
+    }
+    return g.nLiveT > a;
+  };
+  const ensureBottom = (c: Extract<Node, { kind: 0 }>, g: Grid, b: number): boolean => {
+    while (g.nLiveB <= b && g.nextB < g.nb) {
+      const j = g.nextB++;
+      const bi = g.b0 + j;
+      let why = -1;
+      if (flangeFails(c, flanges[bi]!, c.fibB)) why = 0;
+      else if (ltbSet && ltbDeadWith(c, false, bi)) why = 2;
+      if (why >= 0) g.deadB[why]!++;
+      else g.liveB[g.nLiveB++] = j;
+    }
+    return g.nLiveB > b;
+  };
+  /** The merge's heap: entry (row a, column b) of the live lists, keyed by its pair's mass, ties by (a, b). */
+  const gridPush = (g: Grid, a: number, b: number): void => {
+    const kg = g.mT[g.liveT[a]!]! + g.mB[g.liveB[b]!]!;
+    let i = g.hn++;
+    while (i > 0) {
+      const q = (i - 1) >> 1;
+      const qk = g.hk[q]!;
+      if (!(kg < qk || (kg === qk && (a < g.ha[q]! || (a === g.ha[q]! && b < g.hb[q]!))))) break;
+      g.ha[i] = g.ha[q]!;
+      g.hb[i] = g.hb[q]!;
+      g.hk[i] = qk;
+      i = q;
+    }
+    g.ha[i] = a;
+    g.hb[i] = b;
+    g.hk[i] = kg;
+  };
+  const gridPop = (g: Grid): void => {
+    const n = --g.hn;
+    if (n === 0) return;
+    const a = g.ha[n]!;
+    const b = g.hb[n]!;
+    const kg = g.hk[n]!;
+    let i = 0;
+    for (;;) {
+      const l = 2 * i + 1;
+      if (l >= n) break;
+      let m = l;
+      const r = l + 1;
+      if (r < n && (g.hk[r]! < g.hk[l]! || (g.hk[r] === g.hk[l] && (g.ha[r]! < g.ha[l]! || (g.ha[r] === g.ha[l] && g.hb[r]! < g.hb[l]!))))) m = r;
+      const mk = g.hk[m]!;
+      if (!(mk < kg || (mk === kg && (g.ha[m]! < a || (g.ha[m] === a && g.hb[m]! < b))))) break;
+      g.ha[i] = g.ha[m]!;
+      g.hb[i] = g.hb[m]!;
+      g.hk[i] = mk;
+      i = m;
+    }
+    g.ha[i] = a;
+    g.hb[i] = b;
+    g.hk[i] = kg;
+  };
+  /** The run is over (every pair taken, or the rest beaten by feasible points): its pairs counted once each. */
+  const finishGrid = (c: Extract<Node, { kind: 0 }>, g: Grid): void => {
+    const nL = c.plate.layouts.length;
+    const deadT = g.deadT[0]! + g.deadT[1]! + g.deadT[2]!;
+    const deadB = g.deadB[0]! + g.deadB[1]! + g.deadB[2]!;
+    // rows ruled out: every column; columns ruled out: every row not already ruled out
+    pruned.flangeInducedBuckling += (g.deadT[0]! * g.nb + g.deadB[0]! * (g.nt - deadT)) * nL;
+    pruned.patchLoading += g.deadT[1]! * g.nb * nL;
+    pruned.lateralTorsional += (g.deadT[2]! * g.nb + g.deadB[2]! * (g.nt - deadT)) * nL;
+    pruned.incumbent += (g.nt * g.nb - deadT * g.nb - deadB * (g.nt - deadT) - g.yielded) * nL;
+  };
+  const advanceGrid = (c: Extract<Node, { kind: 0 }>): void => {
+    const g = gridOf(c);
+    const { plate, d } = c;
+    for (;;) {
+      if (g.hn === 0) {
+        finishGrid(c, g);
+        return;
       }
-      ps.fit = fit;
-      heap.push({ kind: 1, lb, seq: seq++, ps });
+      const kg = plate.webMass + g.hk[0]!;
+      const floor = floorOf(kg + plate.minLayoutKg, 0);
+      if (prunes(d, floor)) {
+        finishGrid(c, g);
+        return;
+      }
+      if (floor > heap.peekLb()) {
+        c.lb = floor;
+        heap.push(c);
+        return;
+      }
+      const a = g.ha[0]!;
+      const b = g.hb[0]!;
+      gridPop(g);
+      // the next pair of this row, and (from the row's first) the next row's first
+      if (ensureBottom(c, g, b + 1)) gridPush(g, a, b + 1);
+      if (b === 0 && ensureTop(c, g, a + 1)) gridPush(g, a + 1, 0);
+      g.yielded++;
+      tryPair(c, g.t0 + g.liveT[a]!, g.b0 + g.liveB[b]!, kg);
     }
   };
 
@@ -966,7 +1164,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
         continue;
       }
       const panelKey = `${w.panels}|${w.endPost}`;
-      if (ps.panelDead.has(panelKey)) {
+      if (ps.panelDead?.has(panelKey)) {
         pruned.sameFlanges++;
         continue;
       }
@@ -997,7 +1195,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       failedBy[fail.id] = (failedBy[fail.id] ?? 0) + 1;
       keepMiss({ key, section, depth: d, g: ps.g, lb });
       if (failsWebOnly(fail)) webDead.add(wi);
-      else if (PANEL_ONLY.has(fail.id)) ps.panelDead.add(panelKey);
+      else if (PANEL_ONLY.has(fail.id)) (ps.panelDead ??= new Set()).add(panelKey);
     }
   };
 

@@ -56,12 +56,14 @@ export interface LtbSetBound {
    * contains them all), then the bound over a set of sections.
    */
   segments(range: MomentRange, fixedTop: boolean): readonly Segment[];
-  over(segs: readonly Segment[], widest: Section, fixedTop: boolean, others: readonly number[]): number;
+  over(segs: readonly Segment[], widest: Section, fixedTop: boolean, others: readonly number[], stopAt?: number): number;
   /**
    * The bound over explicit sections (one web plate, flanges of one thickness and grade per side,
-   * any widths): each section's own properties, as in `over`.
+   * any widths): each section's own properties, as in `over`. With `stopAt`, it may return early
+   * with a value ≤ stopAt once the sections seen show the bound is at most that (only whether the
+   * bound exceeds stopAt is then known): the strongest sections first make that soonest.
    */
-  overSections(segs: readonly Segment[], sections: readonly Section[]): number;
+  overSections(segs: readonly Segment[], sections: readonly Section[], stopAt?: number): number;
   /** whether lowerBound can be above 0 with this flange fixed (its compression flange is not restrained continuously) */
   bounds(fixedTop: boolean): boolean;
 }
@@ -127,17 +129,21 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
       }
       return segs;
     },
-    over(segs, widest, fixedTop, others) {
+    over(segs, widest, fixedTop, others, stopAt) {
       return this.overSections(
         segs,
         others.map((b): Section => (fixedTop ? { ...widest, bot: { b, t: widest.bot.t } } : { ...widest, top: { b, t: widest.top.t } })),
+        stopAt,
       );
     },
-    overSections(segs, sections) {
+    overSections(segs, sections, stopAt) {
       if (segs.length === 0 || sections.length === 0) return 0;
       const m = material(sections[0]!, o);
       // per segment, the largest Mb,Rd·γM1 any section of the set can have
       const best = new Float64Array(segs.length);
+      // segments whose best is still below what a bound of stopAt needs (early return at 0)
+      let open = stopAt === undefined ? Infinity : segs.length;
+      const need = (i: number) => (segs[i]!.MEdLo * o.factors.gammaM1) / stopAt!;
       for (const sec of sections) {
         const p = stackProps(sec, m.fyTop, m.fyBot, m.fyw);
         const zg = loadHeightZg({ o, g: p });
@@ -157,8 +163,10 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
           }
           const Mb = sg.MEdLo / McrMax <= lambda0 * lambda0 * (1 + 1e-9) ? p.Mpl : reduced(p.Mpl, McrMax, curve);
           if (!(Mb < Infinity)) return 0;
+          if (open !== Infinity && best[i]! < need(i) && Mb >= need(i)) open--;
           best[i] = Math.max(best[i]!, Mb);
         }
+        if (open === 0) break;
       }
       let u = 0;
       for (let i = 0; i < segs.length; i++) u = Math.max(u, (segs[i]!.MEdLo * o.factors.gammaM1) / best[i]!);

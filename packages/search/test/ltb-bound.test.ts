@@ -93,6 +93,14 @@ describe('ltbSetBound', () => {
     const gHi = 2 + c.gSpread;
     const widest = sectionOf(c.others.indexOf(Math.max(...c.others)));
     const bound = ltbSetBound(o)!.lowerBound(widest, c.fixedTop, c.others, load.momentEnvelopeRange!(gLo, gHi));
+    // with an early stop the answer is on the same side of the stop value (consistency property)
+    const set = ltbSetBound(o)!;
+    const segs = set.segments(load.momentEnvelopeRange!(gLo, gHi), c.fixedTop);
+    for (const stop of [0.5, 1, 1 + 1e-6, 2]) {
+      const early = set.over(segs, widest, c.fixedTop, [...c.others].reverse(), stop);
+      expect(early > stop).toBe(bound > stop);
+      if (!(early > stop)) expect(early).toBeLessThanOrEqual(stop);
+    }
     for (let k = 0; k < c.others.length; k++) {
       const s = sectionOf(k);
       const ctx = prepare(s, o);
