@@ -4,6 +4,8 @@ import {
   bendingForSign,
   CHECK_ORDER,
   checkGirder,
+  elastic,
+  firstYieldMoment,
   flatTorsion,
   firstFailureAmong,
   flangeOutstand,
@@ -192,6 +194,8 @@ type Node =
       block?: number;
       /** mono-symmetric runs: the enumeration over live top and bottom options (made when first popped) */
       grid?: Grid;
+      /** the deflection bound's Iy over the run's self-weights (iyRangeOf) */
+      iyRange?: readonly [number, number];
     }
   | { kind: 1; lb: number; seq: number; ps: Plates }
   | { kind: 2; lb: number; seq: number; ps: Plates };
@@ -661,8 +665,16 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       ok = patchOf(ps.plate, ps.ti, np) <= 1 + 1e-9;
       if (ok && anySag) {
         if (ps.MelRd === 0) {
-          const s = buildSection(ps.plate.w, partOf(ps.plate, 0), ps.T, ps.B);
-          ps.MelRd = grossProps(s, material(s, o)).Mel / o.factors.gammaM0;
+          // grossProps(·).Mel of the plates: the same rectangles (rects) at the plates' own fy
+          const w = ps.plate.w;
+          const tb = ps.B.t;
+          const rs = [
+            { z0: 0, z1: tb, b: ps.B.b, fy: ps.B.fy },
+            { z0: tb, z1: tb + w.hw, b: w.tw, fy: w.fyw },
+            { z0: tb + w.hw, z1: tb + w.hw + ps.T.t, b: ps.T.b, fy: ps.T.fy },
+          ];
+          const el = elastic(rs);
+          ps.MelRd = firstYieldMoment(rs, el.z, el.I) / o.factors.gammaM0;
         }
         ok = patchBendingFloor(forces, ps.plate.w, ps.T, panelsByCount.get(np)!, o.E, o.factors.gammaM1, sagAtForces, ps.MelRd) <= 1 + 1e-9;
       }
@@ -751,14 +763,18 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
    * all its pairs (the self-weight grows with each flange's area, so the lightest and heaviest
    * options of the two groups bound every pair's).
    */
+  /** The least and greatest self-weight of the run's pairs (the self-weight grows with each flange's area). */
+  const runSelfWeights = (c: Extract<Node, { kind: 0 }>): readonly [number, number] => {
+    const w = c.plate.w;
+    const byArea = (os: readonly FlangeOption[]) => [os.reduce((a, b) => (b.A < a.A ? b : a)), os.reduce((a, b) => (b.A > a.A ? b : a))] as const;
+    const [tLo, tHi] = byArea(groups[c.gt]!.options);
+    const [bLo, bHi] = byArea(groups[c.gb]!.options);
+    return [selfWeightOf(prep, w, tLo, bLo), selfWeightOf(prep, w, tHi, bHi)];
+  };
   const runSegments = (c: Extract<Node, { kind: 0 }>, top: boolean): readonly Segment[] => {
     let segs = top ? c.segsTop : c.segsBot;
     if (!segs) {
-      const w = c.plate.w;
-      const byArea = (os: readonly FlangeOption[]) => [os.reduce((a, b) => (b.A < a.A ? b : a)), os.reduce((a, b) => (b.A > a.A ? b : a))] as const;
-      const [tLo, tHi] = byArea(groups[c.gt]!.options);
-      const [bLo, bHi] = byArea(groups[c.gb]!.options);
-      const range = p.load.momentEnvelopeRange!(selfWeightOf(prep, w, tLo, bLo), selfWeightOf(prep, w, tHi, bHi));
+      const range = p.load.momentEnvelopeRange!(...runSelfWeights(c));
       segs = ltbSet!.segments(range, top);
       if (top) c.segsTop = segs;
       else c.segsBot = segs;
@@ -822,6 +838,29 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     }
   };
 
+  // the SLS terms grow with g at every point (both slopes ≥ 0): the Iy the bound asks grows with g
+  const daMonotone = (() => {
+    const da = p.load.deflectionAffine;
+    if (!da) return false;
+    for (let i = 0; i < da.bB.length; i++) if (!(da.bB[i]! >= 0 && da.sB[i]! >= 0)) return false;
+    return true;
+  })();
+  /**
+   * [Iy asked at the run's least self-weight, at its greatest]: every pair's own requirement lies
+   * between them when daMonotone (else [0, ∞]: always the pair's own). Once per run.
+   */
+  const iyRangeOf = (c: Extract<Node, { kind: 0 }>, da: NonNullable<typeof p.load.deflectionAffine>): readonly [number, number] => {
+    if (c.iyRange) return c.iyRange;
+    let r: readonly [number, number] = [0, Infinity];
+    if (daMonotone) {
+      const [gLo, gHi] = runSelfWeights(c);
+      const Av = c.plate.w.hw * c.plate.w.tw;
+      r = [minIyForDeflectionAt(gLo, da.bA, da.bB, da.sA, da.sB, da.limit, Av, o.E, o.G), minIyForDeflectionAt(gHi, da.bA, da.bB, da.sA, da.sB, da.limit, Av, o.E, o.G)];
+    }
+    c.iyRange = r;
+    return r;
+  };
+
   /** Flange-induced buckling (EN 1993-1-5 8) rules out this flange as the one it limits, with any other. */
   const flangeFails = (c: Extract<Node, { kind: 0 }>, f: FlangeOption, lim: number): boolean => !fibOk(f, lim, c.plate.w.tw, throat0);
 
@@ -845,11 +884,14 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       return;
     }
     const g = selfWeightOf(prep, w, T, B);
-    // the deflection bound again, at these plates' own self-weight
+    // the deflection bound again, at these plates' own self-weight (decided by the run's range when it can be)
     const da = p.load.deflectionAffine;
-    if (da && Iy < minIyForDeflectionAt(g, da.bA, da.bB, da.sA, da.sB, da.limit, w.hw * w.tw, o.E, o.G)) {
-      pruned.deflection += nL;
-      return;
+    if (da) {
+      const r = iyRangeOf(c, da);
+      if (Iy < r[0] || (Iy < r[1] && Iy < minIyForDeflectionAt(g, da.bA, da.bB, da.sA, da.sB, da.limit, w.hw * w.tw, o.E, o.G))) {
+        pruned.deflection += nL;
+        return;
+      }
     }
     // patch loading reads the web, the top flange and the panels: some panel count must pass it
     // (the first that does is enough here; the others are judged when a layout asks)
