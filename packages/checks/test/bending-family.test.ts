@@ -1,7 +1,8 @@
 // Contract and regression tests of bendingChecks (no external values).
 import { describe, expect, test } from 'vitest';
 import { bendingChecks } from '../src/en1993-1-1/bending-family.js';
-import { wagnerZj, momentFactors } from '../src/en1993-1-1/ltb.js';
+import { wagnerZj, momentFactors, ltbUtilisation } from '../src/en1993-1-1/ltb.js';
+import { bendingForSign } from '../src/en1993-1-1/bending.js';
 import { prepare } from '../src/context.js';
 import { defaultOptions } from '../src/options.js';
 import type { Effects, Section } from '../src/types.js';
@@ -64,4 +65,27 @@ describe('LTB helpers (regression)', () => {
     const tri = momentFactors(Array.from({ length: 21 }, (_, i) => ({ x: i, M: i <= 10 ? i : 20 - i })));
     expect(tri.shape).toBe('point-load-simply-supported');
   });
+});
+
+describe('LTB: a utilisation that is not a number fails wherever it appears', () => {
+  // safety property (common practice, no source: a computation that gives no number must not pass)
+  const s: Section = { hw: 1000, tw: 10, top: { b: 300, t: 20 }, bot: { b: 300, t: 20 }, stiffeners: null, endPost: 'rigid', grade: { web: 'S355', top: 'S355', bot: 'S355', stiffener: 'S355' } };
+  const L = 12000;
+  const o = defaultOptions(L, { restraint: { kind: 'at', at: [0, 4000, 12000] } });
+  const xs = Float64Array.from([0, 2000, 4000, 6000, 8000, 10000, 12000]);
+  const sag = Float64Array.from([0, 0.6e8, 1e8, 1.1e8, 1e8, 0.6e8, 0]);
+  const hog = new Float64Array(xs.length);
+  // at the restraint (x = 4000): the second segment's governing moment is not a number, the first's is
+  for (const at of [2]) {
+    test('a segment whose utilisation is not a number fails the check after a segment that passes', () => {
+      const ctx = prepare(s, o);
+      const bad = sag.slice();
+      bad[at] = Number.NaN;
+      const clean = ltbUtilisation(ctx, { xs, sag, hog }, (side) => bendingForSign(ctx, side));
+      expect(clean).toBeGreaterThan(0);
+      expect(clean).toBeLessThan(1);
+      const u = ltbUtilisation(ctx, { xs, sag: bad, hog }, (side) => bendingForSign(ctx, side));
+      expect(u <= 1).toBe(false);
+    });
+  }
 });

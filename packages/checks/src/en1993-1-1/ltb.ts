@@ -323,8 +323,9 @@ function ltbCore(
   detail: boolean,
   skipped: string[] | null,
   stopAbove = Infinity,
-  reorder = !detail,
 ): { u: number; at: number; values: Record<string, CheckValue> | null } | null {
+  // the utilisation only: segments may be taken in any order (see below)
+  const reorder = !detail;
   const { o, g, s } = ctx;
   const rolled = o.ltbMethod === 'rolled-equivalent';
   const lambda0 = rolled ? 0.4 : 0.2;
@@ -396,7 +397,8 @@ function ltbCore(
     }
     const MbRd = (chiV * Mk) / o.factors.gammaM1;
     const u = MEd / MbRd;
-    if (!best || u > best.u) {
+    // a utilisation that is not a number fails, wherever its segment comes (and nothing can undo it)
+    if (!best || u > best.u || Number.isNaN(u)) {
       best = {
         u,
         at: govX,
@@ -428,9 +430,7 @@ function ltbCore(
             },
       };
     }
-    // a NaN is kept only when it comes first (the check's order): redo in that order
-    if (Number.isNaN(u) && reorder) return ltbCore(ctx, env, bendingFor, detail, skipped, stopAbove, false);
-    if (best.u > stopAbove) return best;
+    if (Number.isNaN(u) || best.u > stopAbove) return best;
   }
   return best;
 }
