@@ -461,7 +461,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     }
   }
   let lightestWebKg = Infinity;
-  for (const [wi] of byPlate) lightestWebKg = Math.min(lightestWebKg, webs[wi]!.hw * webs[wi]!.tw * L * KG_PER_MM3);
+  for (const [wi] of byPlate) lightestWebKg = Math.min(lightestWebKg, webs.at(wi).hw * webs.at(wi).tw * L * KG_PER_MM3);
   const gLoAll = ((lightestWebKg + 2 * lightestFlange) * G_ACC) / L;
   const dem = p.load.demandLowerBound(gLoAll, gMax);
   const deflFloor = p.load.deflectionFloor(gLoAll, gMax);
@@ -512,7 +512,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       let nonRigid = Infinity;
       const counts = new Set<number>();
       for (let wi = first; wi < first + nL; wi++) {
-        const lw = webs[wi]!;
+        const lw = webs.at(wi);
         const m = lw.panels === 0 || !lw.flat ? 0 : (stiffCount.get(lw.panels) ?? 0) * lw.sides * lw.flat.b * lw.flat.t;
         if (lw.endPost === 'rigid') rigid = Math.min(rigid, m);
         else nonRigid = Math.min(nonRigid, m);
@@ -524,7 +524,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     return hit;
   };
   for (const [first, nL] of byPlate) {
-    const w = webs[first]!;
+    const w = webs.at(first);
     // this slice's runs of the plate (all of them unless the plate is shared out by SlicePart)
     const own = part ? groupPairs.filter(([gt, gb]) => unitSlot(first, gt, gb, part.of) === part.slot) : groupPairs;
     if (own.length === 0) continue;
@@ -626,7 +626,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
   const partOf = (plate: Plate, j: number): WebParts => {
     let hit = plate.parts[j];
     if (!hit) {
-      const w = webs[plate.layouts[j]!]!;
+      const w = webs.at(plate.layouts[j]!);
       hit = webPartsWith(w, L, stiffCount.get(w.panels) ?? 0, Lmax);
       plate.parts[j] = hit;
     }
@@ -714,7 +714,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
   /** the least bearing flats a layout's sizing can return: the lightest stock flat that fits, or the section's default */
   const bearingFloorOf = (ps: Plates, j: number): BearingFlat => {
     if (ps.fit) return ps.fit;
-    const w = webs[ps.plate.layouts[j]!]!;
+    const w = webs.at(ps.plate.layouts[j]!);
     return defaultBearing(prep, buildSection(w, partOf(ps.plate, j), ps.T, ps.B));
   };
   const surfaceOf = (w: WebConfig, T: FlangeOption, B: FlangeOption): number => L * (T.b + (T.b - w.tw) + 2 * T.t + B.b + (B.b - w.tw) + 2 * B.t + 2 * w.hw);
@@ -1106,7 +1106,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       pruned.incumbent += nL;
       return;
     }
-    const section = buildSection(webs[plate.layouts[0]!]!, partOf(plate, 0), T, B);
+    const section = buildSection(webs.at(plate.layouts[0]!), partOf(plate, 0), T, B);
     if (ltbFails(section, ps.g)) {
       pruned.lateralTorsional += nL;
       keepMiss({ key: [plate.layouts[0]!, ps.ti, ps.bi], section, depth: d, g: ps.g, lb: nd.lb });
@@ -1146,7 +1146,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       if (!hit) {
         const add = new Float64Array(nL);
         for (let j = 0; j < nL; j++) {
-          const w = webs[plate.layouts[j]!]!;
+          const w = webs.at(plate.layouts[j]!);
           const b = bearingFloorOf(ps, j);
           add[j] = partOf(plate, j).stiffMass + bearingFlatCount(w.endPost) * b.bs * b.ts * w.hw * KG_PER_MM3;
         }
@@ -1162,7 +1162,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     } else {
       const idx: number[] = [];
       for (let j = 0; j < nL; j++) {
-        const w = webs[plate.layouts[j]!]!;
+        const w = webs.at(plate.layouts[j]!);
         lbs[j] = priceCost(prep, w, partOf(plate, j), T, B, bearingFloorOf(ps, j), minThroat);
         idx.push(j);
       }
@@ -1196,7 +1196,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       }
       ps.k++;
       const wi = plate.layouts[j]!;
-      const w = webs[wi]!;
+      const w = webs.at(wi);
       if (webDead.has(wi) || flatFailsTorsion(w)) {
         pruned.webOnly++;
         continue;

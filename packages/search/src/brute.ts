@@ -2,6 +2,7 @@ import { checkGirder } from '@platesmith/checks';
 import { prepareSearch, price, selfWeightOf, settle, type BearingFlat, type Evaluated, type SearchProblem } from './core.js';
 import { paretoFront } from './pareto.js';
 import { buildSection, webParts } from './objective.js';
+import { webConfigs } from './space.js';
 
 /**
  * Exhaustive enumeration of the same space with the same check library and the same objective:
@@ -9,7 +10,9 @@ import { buildSection, webParts } from './objective.js';
  */
 export function bruteForce(p: SearchProblem): { front: Evaluated[]; evaluations: number; feasible: number } {
   const prep = prepareSearch(p);
-  const { webs, flanges, L, Lmax, supports } = prep;
+  const { flanges, L, Lmax, supports } = prep;
+  // the configurations built one by one (webConfigs), not read from the search's table: the indices agree (a test keeps them equal)
+  const webs = webConfigs(p.space, prep.fySource);
   const sp = p.space;
   const minThroat = p.options.weldThroats[0]!;
   const feasible: Evaluated[] = [];

@@ -5,7 +5,7 @@ import type { LoadModel } from './load.js';
 import { bearingPairs, buildSection, costOf, flangeMass, type CostModel, type WebParts } from './objective.js';
 
 const KG_PER_MM3 = 7850e-9;
-import { flangeGroups, webConfigs, type FlangeGroup, type FlangeOption, type SpaceSpec, type WebConfig } from './space.js';
+import { flangeGroups, WebTable, type FlangeGroup, type FlangeOption, type SpaceSpec, type WebConfig } from './space.js';
 
 /** Gravity, N per kg. */
 export const G_ACC = 9.80665;
@@ -80,7 +80,8 @@ export function better(v1: number, k1: CandidateKey, v2: number, k2: CandidateKe
  */
 export interface Prepared {
   p: SearchProblem;
-  webs: WebConfig[];
+  /** the web configurations (webConfigs' order, made on demand) */
+  webs: WebTable;
   groups: FlangeGroup[];
   /** all flange options, group by group; global index = position here */
   flanges: FlangeOption[];
@@ -98,17 +99,17 @@ export interface Prepared {
 
 /**
  * The enumerations of a space (web configurations, flange groups), kept for the last few spaces:
- * a long-lived worker sees the same space again and again (a schedule's marks, a user's reruns),
- * and a large space has ~10^6 web configurations (~20 ms to build). Read-only once built.
+ * a long-lived worker sees the same space again and again (a schedule's marks, a user's reruns).
+ * Read-only once built.
  */
-const enumerated = new Map<string, { webs: WebConfig[]; groups: FlangeGroup[]; flanges: FlangeOption[]; groupStart: number[]; plateStarts: Int32Array }>();
+const enumerated = new Map<string, { webs: WebTable; groups: FlangeGroup[]; flanges: FlangeOption[]; groupStart: number[]; plateStarts: Int32Array }>();
 
 function enumerate(sp: SpaceSpec, fySource: FySource) {
   // every field webConfigs and flangeGroups read
   const key = JSON.stringify([sp.webGrades, sp.hw, sp.tw, sp.endPosts, sp.panels, sp.flats, sp.sides, sp.rules, sp.flangeGrades, sp.tf, sp.bf, fySource]);
   let hit = enumerated.get(key);
   if (!hit) {
-    const webs = webConfigs(sp, fySource);
+    const webs = new WebTable(sp, fySource);
     const groups = flangeGroups(sp, fySource);
     const flanges: FlangeOption[] = [];
     const groupStart: number[] = [];
@@ -116,14 +117,7 @@ function enumerate(sp: SpaceSpec, fySource: FySource) {
       groupStart.push(flanges.length);
       flanges.push(...g.options);
     }
-    const starts: number[] = [];
-    for (let i = 0; i < webs.length; i++) {
-      const w = webs[i]!;
-      const q = webs[i - 1];
-      if (!q || q.grade !== w.grade || q.hw !== w.hw || q.tw !== w.tw) starts.push(i);
-    }
-    starts.push(webs.length);
-    hit = { webs, groups, flanges, groupStart, plateStarts: Int32Array.from(starts) };
+    hit = { webs, groups, flanges, groupStart, plateStarts: webs.plateStarts };
     enumerated.set(key, hit);
     while (enumerated.size > 3) enumerated.delete(enumerated.keys().next().value!);
   } else {

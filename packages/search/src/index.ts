@@ -1,4 +1,4 @@
-export { defaultSpace, spaceSize, assertSpace, webConfigs, flangeGroups, type SpaceSpec, type FabricationRules, type WebConfig, type FlangeOption, type FlangeGroup } from './space.js';
+export { defaultSpace, spaceSize, assertSpace, webConfigs, WebTable, flangeGroups, type SpaceSpec, type FabricationRules, type WebConfig, type FlangeOption, type FlangeGroup } from './space.js';
 export { DEFAULT_COST, C2, costOf, type CostModel, type WeldProcess } from './objective.js';
 export { fixedLoadModel, affineDemandBound, analysisLoadModel, analysisDemandBound, analysisMomentEnvelope, momentEnvelopeFor, type LoadModel, type DemandBound, type AffineDemand } from './load.js';
 export { searchSlice, unitSlot, type OuterBound, type SlicePart } from './best-first.js';

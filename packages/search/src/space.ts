@@ -102,6 +102,80 @@ export function webConfigs(sp: SpaceSpec, fySource: FySource): WebConfig[] {
 }
 
 /**
+ * The web configurations of a space as webConfigs lists them — the same objects' values at the
+ * same indices — without building them all: a space's default stock gives ~10^6 of them (tens of
+ * MB per worker), of which a search reads a few thousand. Each web plate (grade, hw, tw) lists
+ * the same layout pattern (end post × panels × flats × sides, the flats filtered by the web
+ * thickness only under stiffenerAtLeastWeb); `at(i)` finds the plate by bisection and makes the
+ * configuration.
+ */
+export class WebTable {
+  readonly length: number;
+  /** first index of each plate, ascending, then length */
+  readonly plateStarts: Int32Array;
+  private readonly plates: { grade: GradeName; hw: number; tw: number; fyw: number; pattern: readonly Layout[] }[] = [];
+  constructor(sp: SpaceSpec, fySource: FySource) {
+    const patterns = new Map<number, Layout[]>();
+    const patternFor = (tw: number): Layout[] => {
+      const key = sp.rules.stiffenerAtLeastWeb ? tw : -1;
+      let hit = patterns.get(key);
+      if (!hit) {
+        hit = [];
+        for (const endPost of sp.endPosts)
+          for (const panels of sp.panels) {
+            if (panels === 0) {
+              hit.push({ panels: 0, flat: null, sides: 2, endPost });
+              continue;
+            }
+            for (const flat of sp.flats) {
+              if (sp.rules.stiffenerAtLeastWeb && flat.t < tw) continue;
+              for (const sides of sp.sides) hit.push({ panels, flat, sides, endPost });
+            }
+          }
+        patterns.set(key, hit);
+      }
+      return hit;
+    };
+    const starts: number[] = [];
+    let n = 0;
+    for (const grade of sp.webGrades)
+      for (const hw of sp.hw)
+        for (const tw of sp.tw) {
+          const fyw = fy(grade, tw, fySource, 'space.webThickness');
+          const pattern = patternFor(tw);
+          if (pattern.length === 0) continue;
+          starts.push(n);
+          this.plates.push({ grade, hw, tw, fyw, pattern });
+          n += pattern.length;
+        }
+    starts.push(n);
+    this.length = n;
+    this.plateStarts = Int32Array.from(starts);
+  }
+  at(i: number): WebConfig {
+    const s = this.plateStarts;
+    let lo = 0;
+    let hi = s.length - 2;
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      if (s[mid]! <= i) lo = mid;
+      else hi = mid - 1;
+    }
+    const p = this.plates[lo];
+    const l = p?.pattern[i - s[lo]!];
+    if (!p || !l || i < 0) throw new RangeError(`web configuration ${i} is outside the space (0 … ${this.length - 1})`);
+    return { hw: p.hw, tw: p.tw, grade: p.grade, fyw: p.fyw, panels: l.panels, flat: l.flat, sides: l.sides, endPost: l.endPost };
+  }
+}
+
+interface Layout {
+  panels: number;
+  flat: FlatBar | null;
+  sides: 1 | 2;
+  endPost: EndPost;
+}
+
+/**
  * The number of web configurations of each web plate (grade, hw, tw), in the order webConfigs
  * lists them, without building them. Validates the web thicknesses as webConfigs does.
  */

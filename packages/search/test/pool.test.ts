@@ -4,7 +4,7 @@ import { FLAT_BARS } from '@platesmith/catalogue';
 import { defaultOptions } from '@platesmith/checks';
 import { analyse } from '@platesmith/actions';
 import { DEFAULT_COST, defaultSpace, problemOf, search, stiffenerStations, webConfigs, type Evaluated, type SearchTask, type SpaceSpec } from '../src/index.js';
-import { webPlateCounts } from '../src/space.js';
+import { WebTable, webPlateCounts } from '../src/space.js';
 import { createSearchPool, searchOnPool, type SearchPool } from '../src/pool.js';
 import { createSharedStairs, SharedStairs } from '../src/shared-bound.js';
 
@@ -92,6 +92,22 @@ describe('shared staircase', () => {
       }),
     );
   });
+});
+
+test('WebTable gives webConfigs at every index, and its plate starts are where the plate changes (consistency property)', () => {
+  fc.assert(
+    fc.property(fc.subarray([6, 8, 10, 12, 15, 20], { minLength: 1 }), fc.boolean(), fc.subarray([0, 2, 4, 8], { minLength: 1 }), fc.subarray([1, 2] as const, { minLength: 1 }), fc.subarray(['rigid', 'non-rigid'] as const, { minLength: 1 }), (tw, atLeastWeb, panels, sides, endPosts) => {
+      const sp: SpaceSpec = { ...defaultSpace(), hw: [800, 1200, 1250], tw, panels, sides: [...sides], endPosts: [...endPosts], flats: [...FLAT_BARS].slice(0, 7), rules: { stiffenerAtLeastWeb: atLeastWeb } };
+      const list = webConfigs(sp, 'product');
+      const table = new WebTable(sp, 'product');
+      expect(table.length).toBe(list.length);
+      for (let i = 0; i < list.length; i++) expect(table.at(i)).toEqual(list[i]);
+      const starts = list.flatMap((w, i) => (i === 0 || w.hw !== list[i - 1]!.hw || w.tw !== list[i - 1]!.tw ? [i] : []));
+      expect([...table.plateStarts]).toEqual([...starts, list.length]);
+      expect(() => table.at(list.length)).toThrow(RangeError);
+    }),
+    { numRuns: 60 },
+  );
 });
 
 test('webPlateCounts counts the web configurations of each plate as webConfigs lists them', () => {
