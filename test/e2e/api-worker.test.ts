@@ -70,3 +70,26 @@ test('searches beyond the admission limit get 503 POOL_SATURATED with Retry-Afte
     await one.close();
   }
 });
+
+test('warm-up on start: the service is ready at once, logs when the workers are warm, and searches meanwhile still answer', async () => {
+  const w = await start({ threads: 2, warmUp: true });
+  try {
+    expect((await w.get('/ready')).status).toBe(200);
+    const ok = await w.post('/v1/searches', { ...PROBLEM, space: TINY_SPACE });
+    expect(ok.status).toBe(200);
+    expect(ok.body.lightest).not.toBeNull();
+    const t0 = Date.now();
+    while (!w.logs.some((l) => l['msg'] === 'search workers warmed up') && Date.now() - t0 < 60_000) await new Promise((r) => setTimeout(r, 50));
+    const line = w.logs.find((l) => l['msg'] === 'search workers warmed up');
+    expect(line).toBeDefined();
+    expect(line!['ms']).toBeGreaterThan(0);
+  } finally {
+    await w.close();
+  }
+});
+
+test('closing during the warm-up stops it quietly (no failure logged)', async () => {
+  const w = await start({ threads: 2, warmUp: true });
+  await w.close();
+  expect(w.logs.some((l) => l['level'] === 40 && String(l['msg']).includes('warm-up failed'))).toBe(false);
+});

@@ -7,6 +7,7 @@ import type { SearchTask } from './task.js';
 import type { SliceResult } from './core.js';
 import type { WorkerMessage } from './worker.js';
 import { createSharedStairs, depthGrid } from './shared-bound.js';
+import { warmUpTasks } from './warm-up.js';
 
 /**
  * The worker pool for searches: created once per process and reused. Runs from TypeScript
@@ -76,3 +77,16 @@ export async function searchOnPool(pool: SearchPool, task: SearchTask, signal?: 
   );
   return mergeSlices(results, performance.now() - t0, pool.threads, n, spaceSize(task.space));
 }
+
+/**
+ * Runs the warm-up searches (warm-up.ts) on the pool, `rounds` times each, so that the first real
+ * search does not pay for the workers' compilation. Resolves with the time taken, ms. A long-lived
+ * service calls it once after start; searches that arrive meanwhile queue behind it.
+ */
+export async function warmPool(pool: SearchPool, rounds = 3, signal?: AbortSignal): Promise<number> {
+  const t0 = performance.now();
+  const tasks = warmUpTasks();
+  for (let r = 0; r < rounds; r++) for (const t of tasks) await searchOnPool(pool, t, signal);
+  return performance.now() - t0;
+}
+

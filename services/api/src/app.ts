@@ -27,6 +27,8 @@ export interface ApiOptions {
   bodyLimit?: number;
   /** search worker threads (default: the cores) */
   threads?: number;
+  /** warm the search workers up in the background once ready (default off; the server turns it on) */
+  warmUp?: boolean;
   /** synchronous searches in flight before 503 POOL_SATURATED (default 4 per thread) */
   maxActiveSearches?: number;
   /** default and greatest time budget of a synchronous search, ms (30 000 and 300 000) */
@@ -84,6 +86,7 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
   await app.register(poolPlugin, {
     ...(opts.threads !== undefined ? { threads: opts.threads } : {}),
     ...(opts.maxActiveSearches !== undefined ? { maxActiveSearches: opts.maxActiveSearches } : {}),
+    ...(opts.warmUp !== undefined ? { warmUp: opts.warmUp } : {}),
   });
 
   const spaceCap = opts.spaceCap ?? DEFAULT_SPACE_CAP;

@@ -5,12 +5,13 @@ import { openJobStore } from './jobs/sqlite.js';
 /**
  * Starts the service: HOST and PORT from the environment (default 127.0.0.1:8080), pino logs at
  * LOG_LEVEL (info), schedule jobs in SQLite (PLATESMITH_DB). On SIGINT/SIGTERM: stop accepting, answer in-flight requests with
- * "connection: close", cancel running schedule jobs, close the worker pool.
+ * "connection: close", cancel running schedule jobs, close the worker pool. Once ready it warms the
+ * search workers up in the background (a few small invented searches, ~2 s on 2 cores).
  */
 export async function startServer(opts: ApiOptions & { host?: string; port?: number; graceMs?: number } = {}): Promise<{ url: string; close: () => Promise<void> }> {
   // jobs are kept in SQLite (PLATESMITH_DB, default .platesmith/jobs.sqlite) so a restart loses no finished mark
   const jobStore = opts.jobStore ?? openJobStore();
-  const app = await buildApp({ logger: { level: process.env.LOG_LEVEL ?? 'info' }, ...opts, jobStore });
+  const app = await buildApp({ logger: { level: process.env.LOG_LEVEL ?? 'info' }, warmUp: true, ...opts, jobStore });
   const host = opts.host ?? process.env.HOST ?? '127.0.0.1';
   const port = opts.port ?? Number(process.env.PORT ?? 8080);
   const grace = closeWithGrace({ delay: opts.graceMs ?? 10_000 }, async ({ signal, err }) => {

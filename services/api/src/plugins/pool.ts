@@ -1,4 +1,4 @@
-import { createSearchPool, pingPool, searchOnPool, type SearchPool } from '@platesmith/search/pool';
+import { createSearchPool, pingPool, searchOnPool, warmPool, type SearchPool } from '@platesmith/search/pool';
 import { isDomainError } from '@platesmith/catalogue';
 import type { SearchResult, SearchTask } from '@platesmith/search';
 import fp from 'fastify-plugin';
@@ -11,6 +11,8 @@ export interface PoolOptions {
   maxActiveSearches?: number;
   /** how long the boot ping may take, ms (default 60 000) */
   bootPingMs?: number;
+  /** after the boot ping, run small invented searches in the background so the first user's search finds the workers compiled (default off) */
+  warmUp?: boolean;
 }
 
 /** The search service of this process: the one piscina pool, an admission gate, errors mapped. */
@@ -58,10 +60,21 @@ export const poolPlugin = fp<PoolOptions>(
     };
     app.decorate('searcher', searcher);
     // fail fast when the worker module cannot load (a missing build, a bad loader)
+    const warming = new AbortController();
     app.addHook('onReady', async () => {
       await pingPool(pool, AbortSignal.timeout(opts.bootPingMs ?? 60_000));
+      if (opts.warmUp) {
+        // not awaited: the service is ready at once, and searches that arrive meanwhile queue behind it
+        warmPool(pool, 2, warming.signal).then(
+          (ms) => app.log.info({ ms: Math.round(ms) }, 'search workers warmed up'),
+          (err: unknown) => {
+            if (!warming.signal.aborted) app.log.warn({ err }, 'search warm-up failed (searches still work, the first is slower)');
+          },
+        );
+      }
     });
     app.addHook('onClose', async () => {
+      warming.abort();
       await pool.close();
     });
   },
