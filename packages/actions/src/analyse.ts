@@ -496,15 +496,7 @@ function evaluate(a: Analysis, g: number, track: boolean): Evaluated {
   }
   const nR = a.reactionX.length;
   const reactions: { x: number; R: number }[] = [];
-  for (let r = 0; r < nR; r++) {
-    let R = -Infinity;
-    const rg = g * a.Rg[r]!;
-    for (let c = 0; c < nC; c++) {
-      const v = a.RA[c * nR + r]! + a.gammaG[c]! * rg;
-      if (v > R) R = v;
-    }
-    reactions.push({ x: a.reactionX[r]!, R });
-  }
+  for (let r = 0; r < nR; r++) reactions.push({ x: a.reactionX[r]!, R: designReaction(a, r, g) });
   const sls: DesignEffects['sls'] = [];
   for (const d of a.sls) {
     const points: { x: number; bend: number; shear: number }[] = [];
@@ -521,6 +513,19 @@ function evaluate(a: Analysis, g: number, track: boolean): Evaluated {
   }
   const forces = a.forces.map((f) => ({ x: f.x, F: f.F, ss: f.ss }));
   return { effects: { stations, forces, reactions, sls }, combo };
+}
+
+/** The design reaction at support r (N, upward positive) with self-weight g: the largest over the ULS combinations, as designEffects gives it. */
+export function designReaction(a: Analysis, r: number, g: number): number {
+  const nR = a.reactionX.length;
+  const nC = a.gammaG.length;
+  let R = -Infinity;
+  const rg = g * a.Rg[r]!;
+  for (let c = 0; c < nC; c++) {
+    const v = a.RA[c * nR + r]! + a.gammaG[c]! * rg;
+    if (v > R) R = v;
+  }
+  return R;
 }
 
 /**

@@ -51,7 +51,7 @@ import {
 } from './core.js';
 import { ltbSetBound, type Segment } from './ltb-bound.js';
 import { bearingPairs, buildSection, C2, flangeMass, webPartsWith, type WebParts } from './objective.js';
-import type { FlangeOption, WebConfig } from './space.js';
+import { lastAtOrBelow, type FlangeOption, type WebConfig } from './space.js';
 
 const KG_PER_MM3 = STEEL_DENSITY * 1e-9;
 
@@ -446,7 +446,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
   const byPlate: [number, number][] = [];
   for (const [a, c] of runs) {
     // the plate holding index a: the last start ≤ a
-    const lo = bisectStart(plateStarts, a);
+    const lo = lastAtOrBelow(plateStarts, a);
     let x = a;
     const end = a + c;
     for (let k = lo; x < end && k + 1 < plateStarts.length; k++) {
@@ -504,7 +504,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
    */
   const patterns = new Map<string, { rigid: number; nonRigid: number; panelCounts: number[] }>();
   const patternOf = (first: number, nL: number, tw: number) => {
-    const whole = first === plateStarts[bisectStart(plateStarts, first)] && nL === plateLength(plateStarts, first);
+    const whole = first === plateStarts[lastAtOrBelow(plateStarts, first)] && nL === plateLength(plateStarts, first);
     const key = whole ? `${nL}|${sp.rules.stiffenerAtLeastWeb ? tw : ''}` : '';
     let hit = whole ? patterns.get(key) : undefined;
     if (!hit) {
@@ -1001,16 +1001,22 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     return g.nLiveB > b;
   };
   /** The merge's heap: entry (row a, column b) of the live lists, keyed by its pair's mass, ties by (a, b). */
+  /** Whether heap entry i comes before the entry (kg, a, b). */
+  const gridBefore = (g: Grid, i: number, kg: number, a: number, b: number): boolean =>
+    g.hk[i]! < kg || (g.hk[i] === kg && (g.ha[i]! < a || (g.ha[i] === a && g.hb[i]! < b)));
+  const gridMove = (g: Grid, to: number, from: number): void => {
+    g.ha[to] = g.ha[from]!;
+    g.hb[to] = g.hb[from]!;
+    g.hk[to] = g.hk[from]!;
+  };
   const gridPush = (g: Grid, a: number, b: number): void => {
     const kg = g.mT[g.liveT[a]!]! + g.mB[g.liveB[b]!]!;
     let i = g.hn++;
     while (i > 0) {
       const q = (i - 1) >> 1;
-      const qk = g.hk[q]!;
-      if (!(kg < qk || (kg === qk && (a < g.ha[q]! || (a === g.ha[q]! && b < g.hb[q]!))))) break;
-      g.ha[i] = g.ha[q]!;
-      g.hb[i] = g.hb[q]!;
-      g.hk[i] = qk;
+      // (a, b) is in the heap at most once, so "not before the parent" is "after it"
+      if (gridBefore(g, q, kg, a, b)) break;
+      gridMove(g, i, q);
       i = q;
     }
     g.ha[i] = a;
@@ -1027,14 +1033,10 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     for (;;) {
       const l = 2 * i + 1;
       if (l >= n) break;
-      let m = l;
       const r = l + 1;
-      if (r < n && (g.hk[r]! < g.hk[l]! || (g.hk[r] === g.hk[l] && (g.ha[r]! < g.ha[l]! || (g.ha[r] === g.ha[l] && g.hb[r]! < g.hb[l]!))))) m = r;
-      const mk = g.hk[m]!;
-      if (!(mk < kg || (mk === kg && (g.ha[m]! < a || (g.ha[m] === a && g.hb[m]! < b))))) break;
-      g.ha[i] = g.ha[m]!;
-      g.hb[i] = g.hb[m]!;
-      g.hk[i] = mk;
+      const m = r < n && gridBefore(g, r, g.hk[l]!, g.ha[l]!, g.hb[l]!) ? r : l;
+      if (!gridBefore(g, m, kg, a, b)) break;
+      gridMove(g, i, m);
       i = m;
     }
     g.ha[i] = a;
@@ -1305,21 +1307,9 @@ function firstByIy(options: readonly FlangeOption[], hw: number, tw: number, IyR
   return lo;
 }
 
-/** Index of the last of the ascending starts that is ≤ x. */
-function bisectStart(starts: Int32Array, x: number): number {
-  let lo = 0;
-  let hi = starts.length - 1;
-  while (lo < hi) {
-    const mid = (lo + hi + 1) >> 1;
-    if (starts[mid]! <= x) lo = mid;
-    else hi = mid - 1;
-  }
-  return lo;
-}
-
 /** The number of web configurations of the plate that starts at `first` (a start of `starts`). */
 function plateLength(starts: Int32Array, first: number): number {
-  const k = bisectStart(starts, first);
+  const k = lastAtOrBelow(starts, first);
   return k + 1 < starts.length ? starts[k + 1]! - starts[k]! : 0;
 }
 

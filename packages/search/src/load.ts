@@ -1,6 +1,6 @@
 import type { Effects, MomentEnvelope } from '@platesmith/checks';
 import { momentEnvelopeOf, spanAt } from '@platesmith/checks';
-import { designEffects, type Analysis } from '@platesmith/actions';
+import { designEffects, designReaction, type Analysis } from '@platesmith/actions';
 
 /**
  * What the search needs of the actions: design effects for a candidate's own self-weight g
@@ -185,20 +185,10 @@ export function analysisLoadModel(a: Analysis): LoadModel {
   };
 }
 
-/** max |R| over the supports of designEffects(a, g).reactions, computed as designEffects does. */
+/** max |R| over the supports of designEffects(a, g).reactions (the same function gives both). */
 export function analysisMaxReaction(a: Analysis, g: number): number {
-  const nR = a.reactionX.length;
-  const nC = a.gammaG.length;
   let out = 0;
-  for (let r = 0; r < nR; r++) {
-    let R = -Infinity;
-    const rg = g * a.Rg[r]!;
-    for (let c = 0; c < nC; c++) {
-      const v = a.RA[c * nR + r]! + a.gammaG[c]! * rg;
-      if (v > R) R = v;
-    }
-    out = Math.max(out, Math.abs(R));
-  }
+  for (let r = 0; r < a.reactionX.length; r++) out = Math.max(out, Math.abs(designReaction(a, r, g)));
   return out;
 }
 

@@ -154,18 +154,24 @@ export class WebTable {
   }
   at(i: number): WebConfig {
     const s = this.plateStarts;
-    let lo = 0;
-    let hi = s.length - 2;
-    while (lo < hi) {
-      const mid = (lo + hi + 1) >> 1;
-      if (s[mid]! <= i) lo = mid;
-      else hi = mid - 1;
-    }
+    const lo = lastAtOrBelow(s, i);
     const p = this.plates[lo];
     const l = p?.pattern[i - s[lo]!];
     if (!p || !l || i < 0) throw new RangeError(`web configuration ${i} is outside the space (0 … ${this.length - 1})`);
     return { hw: p.hw, tw: p.tw, grade: p.grade, fyw: p.fyw, panels: l.panels, flat: l.flat, sides: l.sides, endPost: l.endPost };
   }
+}
+
+/** Index of the last of the ascending values that is ≤ x (0 when none is). */
+export function lastAtOrBelow(values: Int32Array, x: number): number {
+  let lo = 0;
+  let hi = values.length - 1;
+  while (lo < hi) {
+    const mid = (lo + hi + 1) >> 1;
+    if (values[mid]! <= x) lo = mid;
+    else hi = mid - 1;
+  }
+  return lo;
 }
 
 interface Layout {
