@@ -2,7 +2,7 @@ import { FLAT_BARS } from '@platesmith/catalogue';
 import { defaultOptions } from '@platesmith/checks';
 import { analyse } from '@platesmith/actions';
 import { DEFAULT_COST } from './objective.js';
-import type { SpaceSpec } from './space.js';
+import { defaultSpace, type SpaceSpec } from './space.js';
 import { stiffenerStations, type SearchTask } from './task.js';
 
 /**
@@ -13,6 +13,7 @@ import { stiffenerStations, type SearchTask } from './task.js';
  */
 export function warmUpTasks(): SearchTask[] {
   const space = (symmetric: boolean): SpaceSpec => ({
+    ...defaultSpace(),
     hw: [900, 1100, 1300, 1500],
     tw: [8, 10, 12],
     bf: [250, 300, 350, 400, 450],
@@ -20,13 +21,6 @@ export function warmUpTasks(): SearchTask[] {
     symmetric,
     panels: [0, 3, 5, 8],
     flats: [...FLAT_BARS].slice(0, 4),
-    sides: [2],
-    endPosts: ['rigid', 'non-rigid'],
-    webGrades: ['S355'],
-    flangeGrades: ['S355'],
-    minDepth: 0,
-    maxDepth: Infinity,
-    rules: {},
   });
   const tasks: SearchTask[] = [];
   for (const spans of [[16000], [12000, 15000, 12000]]) {
