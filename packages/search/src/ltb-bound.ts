@@ -1,5 +1,6 @@
 import {
   bracket,
+  firstAbove,
   c1EndMoments,
   c3EndMoments,
   chiLT,
@@ -260,15 +261,8 @@ function segmentBound(xs: Float64Array, lo: Float64Array, hi: Float64Array, x0: 
   const px: number[] = [x0];
   const pl: number[] = [at(xs, lo, x0)];
   const ph: number[] = [at(xs, hi, x0)];
-  // the stations strictly inside (xs ascending: the first one past x0 by bisection)
-  let first = 0;
-  let last = xs.length;
-  while (first < last) {
-    const mid = (first + last) >> 1;
-    if (xs[mid]! > x0) last = mid;
-    else first = mid + 1;
-  }
-  for (let i = first; i < xs.length && xs[i]! < x1; i++) {
+  // the stations strictly inside
+  for (let i = firstAbove(xs, x0); i < xs.length && xs[i]! < x1; i++) {
     px.push(xs[i]!);
     pl.push(lo[i]!);
     ph.push(hi[i]!);

@@ -127,6 +127,18 @@ export function envelopeAt(stations: readonly Station[], x: number, pick: (s: St
  * The stations either side of x in ascending xs and the interpolation weight: x = xs[lo] + t·(xs[hi] − xs[lo]);
  * t = 0 (and lo the station) at or beyond an end, or on a station.
  */
+/** The first index of ascending xs whose value is > x (xs.length when none is). */
+export function firstAbove(xs: Float64Array, x: number): number {
+  let lo = 0;
+  let hi = xs.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (xs[mid]! > x) hi = mid;
+    else lo = mid + 1;
+  }
+  return lo;
+}
+
 export function bracket(xs: Float64Array, x: number): [number, number, number] {
   const n = xs.length;
   if (x <= xs[0]!) return [0, 0, 0];

@@ -2,7 +2,7 @@ import { chi, type BucklingCurve, ALPHA } from './buckling-curves.js';
 import type { FlangeSide } from '../section.js';
 import type { CheckContext, CheckResult, CheckValue, Effects, Station } from '../types.js';
 import { notApplicable, verdict } from '../result.js';
-import { bracket, envelopeOf, type SignBending } from './bending.js';
+import { bracket, envelopeOf, firstAbove, type SignBending } from './bending.js';
 import { perSide } from '../context.js';
 
 /**
@@ -259,15 +259,8 @@ function segmentPoints(env: MomentEnvelope, v: Float64Array, x0: number, x1: num
   let n = 0;
   PX[n] = x0;
   PM[n++] = valueAt(xs, v, x0);
-  // xs ascending: bisect to the first station beyond x0, stop at x1
-  let lo = 0;
-  let hi = xs.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (xs[mid]! > x0) hi = mid;
-    else lo = mid + 1;
-  }
-  for (let i = lo; i < xs.length && xs[i]! < x1; i++) {
+  // xs ascending: from the first station beyond x0, stop at x1
+  for (let i = firstAbove(xs, x0); i < xs.length && xs[i]! < x1; i++) {
     PX[n] = xs[i]!;
     PM[n++] = v[i]!;
   }
