@@ -439,8 +439,6 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     panelsByCount.set(n, r.panels);
   }
 
-  // demand bounds valid for every candidate of the slice: self-weight from the lightest web plate
-  // and the two lightest flanges up to the heaviest conceivable girder
   // web plates of the slice: [first web index, count] each (a plate's layouts are consecutive in
   // webConfigs' order; runs are cut where plates start)
   const byPlate: [number, number][] = [];
@@ -460,8 +458,13 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       x = upto;
     }
   }
+  // demand bounds valid for every candidate of the slice: self-weight from the lightest web plate
+  // and the two lightest flanges up to the heaviest conceivable girder
   let lightestWebKg = Infinity;
-  for (const [wi] of byPlate) lightestWebKg = Math.min(lightestWebKg, webs.at(wi).hw * webs.at(wi).tw * L * KG_PER_MM3);
+  for (const [wi] of byPlate) {
+    const w = webs.at(wi);
+    lightestWebKg = Math.min(lightestWebKg, w.hw * w.tw * L * KG_PER_MM3);
+  }
   const gLoAll = ((lightestWebKg + 2 * lightestFlange) * G_ACC) / L;
   const dem = p.load.demandLowerBound(gLoAll, gMax);
   const deflFloor = p.load.deflectionFloor(gLoAll, gMax);
@@ -711,7 +714,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     }
     return hit;
   };
-  /** the least bearing flats a layout's sizing can return: the lightest stock flat that fits, or the section's default */
+  /** the least bearing flats a layout's sizing can return: the plates' bearing floor (bearingFloorFor), or the section's default when no stock flat fits */
   const bearingFloorOf = (ps: Plates, j: number): BearingFlat => {
     if (ps.fit) return ps.fit;
     const w = webs.at(ps.plate.layouts[j]!);
@@ -758,11 +761,6 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
 
   /** Whether the set bound can bite with this flange in compression (a segment to bound, a moment of that sign). */
   const boundsSide = (top: boolean): boolean => ltbSet!.bounds(top) && signPresent[top ? 'top' : 'bot'];
-  /**
-   * The run's LTB segment bounds for one compressed flange, once per run: one envelope range for
-   * all its pairs (the self-weight grows with each flange's area, so the lightest and heaviest
-   * options of the two groups bound every pair's).
-   */
   /** The least and greatest self-weight of the run's pairs (the self-weight grows with each flange's area). */
   const runSelfWeights = (c: Extract<Node, { kind: 0 }>): readonly [number, number] => {
     const w = c.plate.w;
@@ -771,6 +769,11 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     const [bLo, bHi] = byArea(groups[c.gb]!.options);
     return [selfWeightOf(prep, w, tLo, bLo), selfWeightOf(prep, w, tHi, bHi)];
   };
+  /**
+   * The run's LTB segment bounds for one compressed flange, once per run: one envelope range for
+   * all its pairs (the self-weight grows with each flange's area, so the lightest and heaviest
+   * options of the two groups bound every pair's).
+   */
   const runSegments = (c: Extract<Node, { kind: 0 }>, top: boolean): readonly Segment[] => {
     let segs = top ? c.segsTop : c.segsBot;
     if (!segs) {

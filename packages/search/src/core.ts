@@ -97,40 +97,18 @@ export interface Prepared {
   stiffKgPerHw: number;
 }
 
-/**
- * The enumerations of a space (web configurations, flange groups), kept for the last few spaces:
- * a long-lived worker sees the same space again and again (a schedule's marks, a user's reruns).
- * Read-only once built.
- */
-const enumerated = new Map<string, { webs: WebTable; groups: FlangeGroup[]; flanges: FlangeOption[]; groupStart: number[]; plateStarts: Int32Array }>();
-
-function enumerate(sp: SpaceSpec, fySource: FySource) {
-  // every field webConfigs and flangeGroups read
-  const key = JSON.stringify([sp.webGrades, sp.hw, sp.tw, sp.endPosts, sp.panels, sp.flats, sp.sides, sp.rules, sp.flangeGrades, sp.tf, sp.bf, fySource]);
-  let hit = enumerated.get(key);
-  if (!hit) {
-    const webs = new WebTable(sp, fySource);
-    const groups = flangeGroups(sp, fySource);
-    const flanges: FlangeOption[] = [];
-    const groupStart: number[] = [];
-    for (const g of groups) {
-      groupStart.push(flanges.length);
-      flanges.push(...g.options);
-    }
-    hit = { webs, groups, flanges, groupStart, plateStarts: webs.plateStarts };
-    enumerated.set(key, hit);
-    while (enumerated.size > 3) enumerated.delete(enumerated.keys().next().value!);
-  } else {
-    // most recently used last
-    enumerated.delete(key);
-    enumerated.set(key, hit);
-  }
-  return hit;
-}
-
 export function prepareSearch(p: SearchProblem): Prepared {
   const fySource = p.options.fySource;
-  const { webs, groups, flanges, groupStart, plateStarts } = enumerate(p.space, fySource);
+  // the web configurations are made on demand (WebTable): building a space is cheap however large
+  const webs = new WebTable(p.space, fySource);
+  const plateStarts = webs.plateStarts;
+  const groups = flangeGroups(p.space, fySource);
+  const flanges: FlangeOption[] = [];
+  const groupStart: number[] = [];
+  for (const g of groups) {
+    groupStart.push(flanges.length);
+    flanges.push(...g.options);
+  }
   const supports = p.options.supports;
   const L = supports[supports.length - 1]! - supports[0]!;
   let Lmax = 0;
