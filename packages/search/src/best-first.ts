@@ -135,6 +135,13 @@ interface Plates {
   panelPassed?: Map<string, Map<CheckId, CheckResult>>;
 }
 
+/** The Iy the deflection bound asks over a run's self-weights, and the SLS points that can govern (all when absent). */
+interface IyRange {
+  lo: number;
+  hi: number;
+  points?: Int32Array;
+}
+
 /** The state of a mono-symmetric run's enumeration (see gridOf). Rows: top options, columns: bottom options, indices within their groups. */
 interface Grid {
   nt: number;
@@ -195,7 +202,7 @@ type Node =
       /** mono-symmetric runs: the enumeration over live top and bottom options (made when first popped) */
       grid?: Grid;
       /** the deflection bound's Iy over the run's self-weights (iyRangeOf) */
-      iyRange?: readonly [number, number];
+      iyRange?: IyRange;
     }
   | { kind: 1; lb: number; seq: number; ps: Plates }
   | { kind: 2; lb: number; seq: number; ps: Plates };
@@ -841,25 +848,42 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     }
   };
 
-  // the SLS terms grow with g at every point (both slopes ≥ 0): the Iy the bound asks grows with g
-  const daMonotone = (() => {
-    const da = p.load.deflectionAffine;
-    if (!da) return false;
-    for (let i = 0; i < da.bB.length; i++) if (!(da.bB[i]! >= 0 && da.sB[i]! >= 0)) return false;
-    return true;
-  })();
   /**
-   * [Iy asked at the run's least self-weight, at its greatest]: every pair's own requirement lies
-   * between them when daMonotone (else [0, ∞]: always the pair's own). Once per run.
+   * The Iy the deflection bound asks over the run's self-weights [gLo, gHi], and the SLS points
+   * that can govern there. Each point's bend and shear terms are affine in g, so over the range
+   * they lie between their values at the ends (rounding is monotone: the same holds for the
+   * computed values); its need bend/(E·room) lies between the least bend over the greatest room
+   * and the greatest bend over the least room. So every pair's own requirement is at least `lo`
+   * (the largest least need) and at most `hi`, and a point whose greatest need is below `lo`
+   * never governs: the pair's own need is read from the others alone — the same value. Once per run.
    */
-  const iyRangeOf = (c: Extract<Node, { kind: 0 }>, da: NonNullable<typeof p.load.deflectionAffine>): readonly [number, number] => {
+  const iyRangeOf = (c: Extract<Node, { kind: 0 }>, da: NonNullable<typeof p.load.deflectionAffine>): IyRange => {
     if (c.iyRange) return c.iyRange;
-    let r: readonly [number, number] = [0, Infinity];
-    if (daMonotone) {
-      const [gLo, gHi] = runSelfWeights(c);
-      const Av = c.plate.w.hw * c.plate.w.tw;
-      r = [minIyForDeflectionAt(gLo, da.bA, da.bB, da.sA, da.sB, da.limit, Av, o.E, o.G), minIyForDeflectionAt(gHi, da.bA, da.bB, da.sA, da.sB, da.limit, Av, o.E, o.G)];
+    const [gLo, gHi] = runSelfWeights(c);
+    const Av = c.plate.w.hw * c.plate.w.tw;
+    const n = da.bA.length;
+    const needHi = new Float64Array(n);
+    let lo = 0;
+    let hi = 0;
+    for (let i = 0; i < n; i++) {
+      const b0 = da.bA[i]! + gLo * da.bB[i]!;
+      const b1 = da.bA[i]! + gHi * da.bB[i]!;
+      const r0 = da.limit[i]! - (da.sA[i]! + gLo * da.sB[i]!) / (o.G * Av);
+      const r1 = da.limit[i]! - (da.sA[i]! + gHi * da.sB[i]!) / (o.G * Av);
+      const bMin = Math.min(b0, b1);
+      const bMax = Math.max(b0, b1);
+      const rMin = Math.min(r0, r1);
+      const rMax = Math.max(r0, r1);
+      // as pointIyNeed: nothing when it does not bend downward, ∞ when the room is gone
+      const least = !(bMin > 0) ? 0 : rMax <= 0 ? Infinity : bMin / (o.E * rMax);
+      const most = !(bMax > 0) ? 0 : rMin <= 0 ? Infinity : bMax / (o.E * rMin);
+      needHi[i] = most;
+      lo = Math.max(lo, least);
+      hi = Math.max(hi, most);
     }
+    const keep: number[] = [];
+    for (let i = 0; i < n; i++) if (needHi[i]! >= lo) keep.push(i);
+    const r: IyRange = { lo, hi, points: Int32Array.from(keep) };
     c.iyRange = r;
     return r;
   };
@@ -891,7 +915,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     const da = p.load.deflectionAffine;
     if (da) {
       const r = iyRangeOf(c, da);
-      if (Iy < r[0] || (Iy < r[1] && Iy < minIyForDeflectionAt(g, da.bA, da.bB, da.sA, da.sB, da.limit, w.hw * w.tw, o.E, o.G))) {
+      if (Iy < r.lo || (Iy < r.hi && Iy < minIyForDeflectionAt(g, da.bA, da.bB, da.sA, da.sB, da.limit, w.hw * w.tw, o.E, o.G, r.points))) {
         pruned.deflection += nL;
         return;
       }

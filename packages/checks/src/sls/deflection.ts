@@ -114,15 +114,24 @@ export function minIyForDeflection(points: readonly { bend: number; shear: numbe
 /**
  * minIyForDeflection for demands affine in the self-weight g: point i has bend = bA[i] + g·bB[i],
  * shear = sA[i] + g·sB[i] and limit[i] (the form the search holds; no allocation per call).
+ * `only`: the points to read, when the caller knows the others cannot govern (the same value).
  */
-export function minIyForDeflectionAt(g: number, bA: Float64Array, bB: Float64Array, sA: Float64Array, sB: Float64Array, limit: Float64Array, Av: number, E: number, G: number): number {
+export function minIyForDeflectionAt(g: number, bA: Float64Array, bB: Float64Array, sA: Float64Array, sB: Float64Array, limit: Float64Array, Av: number, E: number, G: number, only?: Int32Array): number {
   let Iy = 0;
-  for (let i = 0; i < bA.length; i++) {
-    const bend = bA[i]! + g * bB[i]!;
-    if (!(bend > 0)) continue;
-    const room = limit[i]! - (sA[i]! + g * sB[i]!) / (G * Av);
-    if (room <= 0) return Number.POSITIVE_INFINITY;
-    Iy = Math.max(Iy, bend / (E * room));
+  const n = only ? only.length : bA.length;
+  for (let k = 0; k < n; k++) {
+    const need = pointIyNeed(only ? only[k]! : k, g, bA, bB, sA, sB, limit, Av, E, G);
+    if (need === Number.POSITIVE_INFINITY) return need;
+    Iy = Math.max(Iy, need);
   }
   return Iy;
+}
+
+/** The Iy point i of minIyForDeflectionAt asks: 0 when it does not bend downward, ∞ when its shear deflection alone reaches the limit. */
+export function pointIyNeed(i: number, g: number, bA: Float64Array, bB: Float64Array, sA: Float64Array, sB: Float64Array, limit: Float64Array, Av: number, E: number, G: number): number {
+  const bend = bA[i]! + g * bB[i]!;
+  if (!(bend > 0)) return 0;
+  const room = limit[i]! - (sA[i]! + g * sB[i]!) / (G * Av);
+  if (room <= 0) return Number.POSITIVE_INFINITY;
+  return bend / (E * room);
 }
