@@ -69,4 +69,4 @@ export { kF, patchResistance, patchBendingInteraction, patchUtilisation, patchBe
 export { fibLimit, kFibFor } from './en1993-1-5/flange-induced.js';
 export { mcr, chiLT, chiLTGeneral, momentFactors, c1EndMoments, kcEndMoments, ltbCurveWelded, ltbUtilisation, momentEnvelopeOf, wagnerZj, loadHeightZg, c3EndMoments, type MomentEnvelope } from './en1993-1-1/ltb.js';
 export { fvwd, fwRd, shearFlow, pickThroat } from './en1993-1-8/weld.js';
-export { deflection, unitLoadIntegrals, minIyForDeflection, minIyForDeflectionAt, pointIyNeed, spanAt } from './sls/deflection.js';
+export { deflection, unitLoadIntegrals, minIyForDeflection, minIyForDeflectionAt, pointIyNeed, iyNeedRange, type IyNeedRange, spanAt } from './sls/deflection.js';

@@ -1,7 +1,7 @@
 import { describe, expect } from 'vitest';
 import { fc, test } from '@fast-check/vitest';
 import { fy } from '@platesmith/catalogue';
-import { assembleVerdict, bearingCandidates, bearingCrushing, CHECK_ORDER, flatTorsion, checkGirder, defaultOptions, firstFailure, firstFailureAmong, inJudgeOrder, judgeGirder, type Judged, minIyForDeflection, panelsOf, patchUtilisation, prepare, type Effects, type Section } from '../src/index.js';
+import { assembleVerdict, bearingCandidates, bearingCrushing, CHECK_ORDER, flatTorsion, iyNeedRange, minIyForDeflectionAt, checkGirder, defaultOptions, firstFailure, firstFailureAmong, inJudgeOrder, judgeGirder, type Judged, minIyForDeflection, panelsOf, patchUtilisation, prepare, type Effects, type Section } from '../src/index.js';
 
 /**
  * Properties of the functions the search relies on (no published values: these are consistency
@@ -180,3 +180,34 @@ describe('bearing floor (bearingCandidates)', () => {
   });
 });
 
+
+describe('iyNeedRange', () => {
+  // consistency property: the enclosure holds at every self-weight of the range, and its points give the same requirement
+  const pointArb = fc.record({
+    bA: fc.double({ min: -1e13, max: 1e14, noNaN: true }),
+    bB: fc.double({ min: -1e11, max: 1e11, noNaN: true }),
+    sA: fc.double({ min: -1e9, max: 1e10, noNaN: true }),
+    sB: fc.double({ min: -1e7, max: 1e7, noNaN: true }),
+    limit: fc.double({ min: 5, max: 100, noNaN: true }),
+  });
+  test.prop([fc.array(pointArb, { minLength: 1, maxLength: 30 }), fc.double({ min: 0, max: 20, noNaN: true }), fc.double({ min: 0, max: 20, noNaN: true }), fc.array(fc.double({ min: 0, max: 1, noNaN: true }), { minLength: 1, maxLength: 6 })], { numRuns: 300 })(
+    'lo ≤ the requirement ≤ hi for every g of the range, and the kept points give the same requirement',
+    (pts, g1, spread, ts) => {
+      const f = (k: 'bA' | 'bB' | 'sA' | 'sB' | 'limit') => Float64Array.from(pts, (p) => p[k]);
+      const [bA, bB, sA, sB, limit] = [f('bA'), f('bB'), f('sA'), f('sB'), f('limit')];
+      const Av = 12000;
+      const E = 210000;
+      const G = 81000;
+      const gLo = g1;
+      const gHi = g1 + spread;
+      const r = iyNeedRange(gLo, gHi, bA, bB, sA, sB, limit, Av, E, G);
+      for (const t of [0, 1, ...ts]) {
+        const g = Math.min(gHi, gLo + t * (gHi - gLo));
+        const need = minIyForDeflectionAt(g, bA, bB, sA, sB, limit, Av, E, G);
+        expect(need).toBeGreaterThanOrEqual(r.lo);
+        expect(need).toBeLessThanOrEqual(r.hi);
+        expect(minIyForDeflectionAt(g, bA, bB, sA, sB, limit, Av, E, G, r.points)).toBe(need);
+      }
+    },
+  );
+});

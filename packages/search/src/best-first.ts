@@ -20,6 +20,7 @@ import {
   minFlangeForceForBending,
   minIyForDeflection,
   minIyForDeflectionAt,
+  iyNeedRange,
   panelsOf,
   patchBendingFloor,
   patchUtilisation,
@@ -28,6 +29,7 @@ import {
   type BearingCandidates,
   type CheckId,
   type CheckResult,
+  type IyNeedRange,
   type EndPost,
   type Effects,
   type Judged,
@@ -135,13 +137,6 @@ interface Plates {
   panelPassed?: Map<string, Map<CheckId, CheckResult>>;
 }
 
-/** The Iy the deflection bound asks over a run's self-weights, and the SLS points that can govern (all when absent). */
-interface IyRange {
-  lo: number;
-  hi: number;
-  points?: Int32Array;
-}
-
 /** The state of a mono-symmetric run's enumeration (see gridOf). Rows: top options, columns: bottom options, indices within their groups. */
 interface Grid {
   nt: number;
@@ -202,7 +197,7 @@ type Node =
       /** mono-symmetric runs: the enumeration over live top and bottom options (made when first popped) */
       grid?: Grid;
       /** the deflection bound's Iy over the run's self-weights (iyRangeOf) */
-      iyRange?: IyRange;
+      iyRange?: IyNeedRange;
     }
   | { kind: 1; lb: number; seq: number; ps: Plates }
   | { kind: 2; lb: number; seq: number; ps: Plates };
@@ -848,44 +843,12 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     }
   };
 
-  /**
-   * The Iy the deflection bound asks over the run's self-weights [gLo, gHi], and the SLS points
-   * that can govern there. Each point's bend and shear terms are affine in g, so over the range
-   * they lie between their values at the ends (rounding is monotone: the same holds for the
-   * computed values); its need bend/(E·room) lies between the least bend over the greatest room
-   * and the greatest bend over the least room. So every pair's own requirement is at least `lo`
-   * (the largest least need) and at most `hi`, and a point whose greatest need is below `lo`
-   * never governs: the pair's own need is read from the others alone — the same value. Once per run.
-   */
-  const iyRangeOf = (c: Extract<Node, { kind: 0 }>, da: NonNullable<typeof p.load.deflectionAffine>): IyRange => {
+  /** The Iy the deflection bound asks over the run's self-weights, and the SLS points that can govern there (iyNeedRange). Once per run. */
+  const iyRangeOf = (c: Extract<Node, { kind: 0 }>, da: NonNullable<typeof p.load.deflectionAffine>): IyNeedRange => {
     if (c.iyRange) return c.iyRange;
     const [gLo, gHi] = runSelfWeights(c);
-    const Av = c.plate.w.hw * c.plate.w.tw;
-    const n = da.bA.length;
-    const needHi = new Float64Array(n);
-    let lo = 0;
-    let hi = 0;
-    for (let i = 0; i < n; i++) {
-      const b0 = da.bA[i]! + gLo * da.bB[i]!;
-      const b1 = da.bA[i]! + gHi * da.bB[i]!;
-      const r0 = da.limit[i]! - (da.sA[i]! + gLo * da.sB[i]!) / (o.G * Av);
-      const r1 = da.limit[i]! - (da.sA[i]! + gHi * da.sB[i]!) / (o.G * Av);
-      const bMin = Math.min(b0, b1);
-      const bMax = Math.max(b0, b1);
-      const rMin = Math.min(r0, r1);
-      const rMax = Math.max(r0, r1);
-      // as pointIyNeed: nothing when it does not bend downward, ∞ when the room is gone
-      const least = !(bMin > 0) ? 0 : rMax <= 0 ? Infinity : bMin / (o.E * rMax);
-      const most = !(bMax > 0) ? 0 : rMin <= 0 ? Infinity : bMax / (o.E * rMin);
-      needHi[i] = most;
-      lo = Math.max(lo, least);
-      hi = Math.max(hi, most);
-    }
-    const keep: number[] = [];
-    for (let i = 0; i < n; i++) if (needHi[i]! >= lo) keep.push(i);
-    const r: IyRange = { lo, hi, points: Int32Array.from(keep) };
-    c.iyRange = r;
-    return r;
+    c.iyRange = iyNeedRange(gLo, gHi, da.bA, da.bB, da.sA, da.sB, da.limit, c.plate.w.hw * c.plate.w.tw, o.E, o.G);
+    return c.iyRange;
   };
 
   /** Flange-induced buckling (EN 1993-1-5 8) rules out this flange as the one it limits, with any other. */

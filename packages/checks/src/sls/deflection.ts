@@ -135,3 +135,46 @@ export function pointIyNeed(i: number, g: number, bA: Float64Array, bB: Float64A
   if (room <= 0) return Number.POSITIVE_INFINITY;
   return bend / (E * room);
 }
+
+/** The Iy minIyForDeflectionAt can ask for any g of a range, and the points that can give it. */
+export interface IyNeedRange {
+  /** every g of the range asks at least this */
+  lo: number;
+  /** and at most this */
+  hi: number;
+  /** the points that can govern somewhere in the range: minIyForDeflectionAt over them alone is the same value */
+  points: Int32Array;
+}
+
+/**
+ * Encloses minIyForDeflectionAt(g, …) for every g in [gLo, gHi]. Each point's bend and shear
+ * terms are affine in g, so over the range they lie between their values at the ends (rounding is
+ * monotone, so this holds for the computed values too); its need bend/(E·room) lies between the
+ * least bend over the greatest room and the greatest bend over the least room (0 where it may not
+ * bend downward, ∞ where the room may be gone). The requirement is at least the largest least
+ * need and at most the largest greatest need, and a point whose greatest need is below that
+ * largest least need never governs.
+ */
+export function iyNeedRange(gLo: number, gHi: number, bA: Float64Array, bB: Float64Array, sA: Float64Array, sB: Float64Array, limit: Float64Array, Av: number, E: number, G: number): IyNeedRange {
+  const n = bA.length;
+  const most = new Float64Array(n);
+  let lo = 0;
+  let hi = 0;
+  for (let i = 0; i < n; i++) {
+    const b0 = bA[i]! + gLo * bB[i]!;
+    const b1 = bA[i]! + gHi * bB[i]!;
+    const r0 = limit[i]! - (sA[i]! + gLo * sB[i]!) / (G * Av);
+    const r1 = limit[i]! - (sA[i]! + gHi * sB[i]!) / (G * Av);
+    const bMin = Math.min(b0, b1);
+    const bMax = Math.max(b0, b1);
+    const rMin = Math.min(r0, r1);
+    const rMax = Math.max(r0, r1);
+    const least = !(bMin > 0) ? 0 : rMax <= 0 ? Number.POSITIVE_INFINITY : bMin / (E * rMax);
+    most[i] = !(bMax > 0) ? 0 : rMin <= 0 ? Number.POSITIVE_INFINITY : bMax / (E * rMin);
+    lo = Math.max(lo, least);
+    hi = Math.max(hi, most[i]!);
+  }
+  const keep: number[] = [];
+  for (let i = 0; i < n; i++) if (most[i]! >= lo) keep.push(i);
+  return { lo, hi, points: Int32Array.from(keep) };
+}
