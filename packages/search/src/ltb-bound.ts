@@ -77,6 +77,16 @@ interface Shape {
   C3lo: number;
 }
 
+/** The plates of a section as the bound reads them (its grades and fy come from `material` of a full section, or are given). */
+export type Plates3 = Pick<Section, 'hw' | 'tw' | 'top' | 'bot'>;
+
+/** Each plate's fy (as `material` gives them for the section's grades and thicknesses). */
+interface PlateStrengths {
+  fyTop: number;
+  fyBot: number;
+  fyw: number;
+}
+
 export interface Segment {
   top: boolean;
   L: number;
@@ -131,49 +141,54 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
       return segs;
     },
     over(segs, widest, fixedTop, others, stopAt) {
-      return this.overSections(
-        segs,
-        others.map((b): Section => (fixedTop ? { ...widest, bot: { b, t: widest.bot.t } } : { ...widest, top: { b, t: widest.top.t } })),
-        stopAt,
-      );
+      // the set's members differ only in the other flange's width: the plates alone, one material
+      const { hw, tw, top, bot } = widest;
+      const plates = others.map((b): Plates3 => (fixedTop ? { hw, tw, top, bot: { b, t: bot.t } } : { hw, tw, top: { b, t: top.t }, bot }));
+      return overPlates(segs, plates, material(widest, o), stopAt);
     },
     overSections(segs, sections, stopAt) {
       if (segs.length === 0 || sections.length === 0) return 0;
-      const m = material(sections[0]!, o);
-      // per segment, the largest Mb,Rd·γM1 any section of the set can have
-      const best = new Float64Array(segs.length);
-      // segments whose best is still below what a bound of stopAt needs (early return at 0)
-      let open = stopAt === undefined ? Infinity : segs.length;
-      const need = (i: number) => (segs[i]!.MEdLo * o.factors.gammaM1) / stopAt!;
-      for (const sec of sections) {
-        const p = stackProps(sec, m.fyTop, m.fyBot, m.fyw);
-        const zg = loadHeightZg({ o, g: p });
-        const curve = ltbCurveWelded(p.h, Math.min(sec.top.b, sec.bot.b));
-        let zjTop = Number.NaN;
-        let zjBot = Number.NaN;
-        for (let i = 0; i < segs.length; i++) {
-          const sg = segs[i]!;
-          let zj: number;
-          if (sg.top) zj = Number.isNaN(zjTop) ? (zjTop = zjOf(sec, p, 1)) : zjTop;
-          else zj = Number.isNaN(zjBot) ? (zjBot = zjOf(sec, p, -1)) : zjBot;
-          let McrMax = 0;
-          for (const sh of sg.shapes) {
-            // the C3 of its range that makes C2·zg − C3·zj least
-            const C3 = zj > 0 ? sh.C3 : sh.C3lo;
-            McrMax = Math.max(McrMax, mcr({ E: o.E, G: o.G, Iz: p.Iz, It: p.It, Iw: p.Iw, L: sg.L, C1: sh.C1, C2: sh.C2, C3, zg, zj }));
-          }
-          const Mb = sg.MEdLo / McrMax <= lambda0 * lambda0 * (1 + 1e-9) ? p.Mpl : reduced(p.Mpl, McrMax, curve);
-          if (!(Mb < Infinity)) return 0;
-          if (open !== Infinity && best[i]! < need(i) && Mb >= need(i)) open--;
-          best[i] = Math.max(best[i]!, Mb);
-        }
-        if (open === 0) break;
-      }
-      let u = 0;
-      for (let i = 0; i < segs.length; i++) u = Math.max(u, (segs[i]!.MEdLo * o.factors.gammaM1) / best[i]!);
-      return u;
+      // one grade and thickness per plate role across the set: one material
+      return overPlates(segs, sections, material(sections[0]!, o), stopAt);
     },
   };
+
+  /** overSections over plates of one material. */
+  function overPlates(segs: readonly Segment[], sections: readonly Plates3[], m: PlateStrengths, stopAt: number | undefined): number {
+    if (segs.length === 0 || sections.length === 0) return 0;
+    // per segment, the largest Mb,Rd·γM1 any section of the set can have
+    const best = new Float64Array(segs.length);
+    // segments whose best is still below what a bound of stopAt needs (early return at 0)
+    let open = stopAt === undefined ? Infinity : segs.length;
+    const need = (i: number) => (segs[i]!.MEdLo * o.factors.gammaM1) / stopAt!;
+    for (const sec of sections) {
+      const p = stackProps(sec, m.fyTop, m.fyBot, m.fyw);
+      const zg = loadHeightZg({ o, g: p });
+      const curve = ltbCurveWelded(p.h, Math.min(sec.top.b, sec.bot.b));
+      let zjTop = Number.NaN;
+      let zjBot = Number.NaN;
+      for (let i = 0; i < segs.length; i++) {
+        const sg = segs[i]!;
+        let zj: number;
+        if (sg.top) zj = Number.isNaN(zjTop) ? (zjTop = zjOf(sec, p, 1)) : zjTop;
+        else zj = Number.isNaN(zjBot) ? (zjBot = zjOf(sec, p, -1)) : zjBot;
+        let McrMax = 0;
+        for (const sh of sg.shapes) {
+          // the C3 of its range that makes C2·zg − C3·zj least
+          const C3 = zj > 0 ? sh.C3 : sh.C3lo;
+          McrMax = Math.max(McrMax, mcr({ E: o.E, G: o.G, Iz: p.Iz, It: p.It, Iw: p.Iw, L: sg.L, C1: sh.C1, C2: sh.C2, C3, zg, zj }));
+        }
+        const Mb = sg.MEdLo / McrMax <= lambda0 * lambda0 * (1 + 1e-9) ? p.Mpl : reduced(p.Mpl, McrMax, curve);
+        if (!(Mb < Infinity)) return 0;
+        if (open !== Infinity && best[i]! < need(i) && Mb >= need(i)) open--;
+        best[i] = Math.max(best[i]!, Mb);
+      }
+      if (open === 0) break;
+    }
+    let u = 0;
+    for (let i = 0; i < segs.length; i++) u = Math.max(u, (segs[i]!.MEdLo * o.factors.gammaM1) / best[i]!);
+    return u;
+  }
 }
 
 /**
@@ -182,7 +197,7 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
  * zj read.
  */
 export function stackProps(
-  s: Section,
+  s: Plates3,
   fyTop: number,
   fyBot: number,
   fyw: number,
@@ -235,7 +250,7 @@ export function stackProps(
 }
 
 /** wagnerZj of the check library without its temporary objects (sgn +1: top flange in compression). */
-export function zjOf(s: Section, g: { zElastic: number; h: number; Iy: number; zShear: number }, sgn: 1 | -1): number {
+export function zjOf(s: Plates3, g: { zElastic: number; h: number; Iy: number; zShear: number }, sgn: 1 | -1): number {
   const zc = g.zElastic;
   const term = (z0: number, z1: number, b: number): number => {
     const a = sgn * (z0 - zc);
