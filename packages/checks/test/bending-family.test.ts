@@ -75,9 +75,10 @@ describe('LTB: a utilisation that is not a number fails wherever it appears', ()
   const xs = Float64Array.from([0, 2000, 4000, 6000, 8000, 10000, 12000]);
   const sag = Float64Array.from([0, 0.6e8, 1e8, 1.1e8, 1e8, 0.6e8, 0]);
   const hog = new Float64Array(xs.length);
-  // at the restraint (x = 4000): the second segment's governing moment is not a number, the first's is
-  for (const at of [2]) {
-    test('a segment whose utilisation is not a number fails the check after a segment that passes', () => {
+  // at the restraint (x = 4000): the second segment's governing moment is not a number, the first's is;
+  // at x = 2000 or 8000: a moment inside a segment that would not govern it
+  for (const at of [2, 1, 4]) {
+    test(`a moment that is not a number at x = ${xs[at]} fails the check (segments that pass elsewhere)`, () => {
       const ctx = prepare(s, o);
       const bad = sag.slice();
       bad[at] = Number.NaN;

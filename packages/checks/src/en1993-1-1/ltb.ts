@@ -361,8 +361,9 @@ function ltbCore(
     const sign = side === 'top' ? 'sagging' : 'hogging';
     const v = side === 'top' ? env.sag : env.hog;
     const n = segmentPoints(env, v, x0, x1);
+    // the largest |M| of the segment; a moment that is not a number governs (and fails the check)
     let gov = 0;
-    for (let k = 1; k < n; k++) if (Math.abs(PM[k]!) > Math.abs(PM[gov]!)) gov = k;
+    for (let k = 1; k < n; k++) if (Number.isNaN(PM[k]!) || Math.abs(PM[k]!) > Math.abs(PM[gov]!)) gov = k;
     const MEd = Math.abs(PM[gov]!);
     const govX = PX[gov]!;
     if (MEd <= tiny) continue;
