@@ -1,6 +1,8 @@
 import {
   bracket,
+  epsilon,
   firstAbove,
+  flangeOutstand,
   c1EndMoments,
   c3EndMoments,
   chiLT,
@@ -36,7 +38,9 @@ import type { MomentRange } from './load.js';
  *   end of its range lowers that term).
  * - Section properties (Iz, It, Iw, Mpl, zj, zg, h/b) are those of each plate of the set, by the
  *   closed forms grossProps uses (to round-off; the search's margin on the bound is 1e-6).
- * - Wy fy [Mpl, Mel or Meff by the class]: at most Mpl (Meff ≤ Mel ≤ Mpl).
+ * - Wy fy [Mpl, Mel or Meff by the class]: at most Mpl; and where the section is surely Class 3
+ *   or 4 for that sign, at most fy of the compression flange times the gross Iy over the distance
+ *   from the neutral axis to its extreme fibre (wyFyBound).
  * - Mb,Rd = χLT(λ̄LT)·Wy fy/γM1 with λ̄LT = √(Wy fy/Mcr) grows with Mcr (χ falls with λ̄) and with
  *   Wy fy for a fixed Mcr (χ·λ̄² grows with λ̄ on both curves used; a test checks it on a fine
  *   grid). Where the reduction may be ignored (MEd/Mcr ≤ λ̄LT,0² possible), Mb,Rd ≤ Wy fy/γM1.
@@ -81,7 +85,7 @@ interface Shape {
 export type Plates3 = Pick<Section, 'hw' | 'tw' | 'top' | 'bot'>;
 
 /** Each plate's fy (as `material` gives them for the section's grades and thicknesses). */
-interface PlateStrengths {
+export interface PlateStrengths {
   fyTop: number;
   fyBot: number;
   fyw: number;
@@ -107,6 +111,7 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
   const xEnd = sup[sup.length - 1]!;
   const cutsOf = (line: CheckOptions['restraint']): number[] | null =>
     line.kind === 'continuous' ? null : [...new Set([...sup, ...line.at.filter((x) => x > xStart && x < xEnd)])].sort((a, b) => a - b);
+  const throat = o.weldThroats.length > 0 ? Math.min(...o.weldThroats) : 0;
   const cutsTop = cutsOf(o.restraint);
   const cutsBot = cutsOf(o.restraintBottom);
   /** χLT·Mk, the check's Mb,Rd·γM1 for Wy fy = Mk */
@@ -163,6 +168,8 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
     const need = (i: number) => (segs[i]!.MEdLo * o.factors.gammaM1) / stopAt!;
     for (const sec of sections) {
       const p = stackProps(sec, m.fyTop, m.fyBot, m.fyw);
+      let MkTop = Number.NaN;
+      let MkBot = Number.NaN;
       const zg = loadHeightZg({ o, g: p });
       const curve = ltbCurveWelded(p.h, Math.min(sec.top.b, sec.bot.b));
       let zjTop = Number.NaN;
@@ -178,7 +185,10 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
           const C3 = zj > 0 ? sh.C3 : sh.C3lo;
           McrMax = Math.max(McrMax, mcr({ E: o.E, G: o.G, Iz: p.Iz, It: p.It, Iw: p.Iw, L: sg.L, C1: sh.C1, C2: sh.C2, C3, zg, zj }));
         }
-        const Mb = sg.MEdLo / McrMax <= lambda0 * lambda0 * (1 + 1e-9) ? p.Mpl : reduced(p.Mpl, McrMax, curve);
+        let Mk: number;
+        if (sg.top) Mk = Number.isNaN(MkTop) ? (MkTop = wyFyBound(sec, p, true, m, throat)) : MkTop;
+        else Mk = Number.isNaN(MkBot) ? (MkBot = wyFyBound(sec, p, false, m, throat)) : MkBot;
+        const Mb = sg.MEdLo / McrMax <= lambda0 * lambda0 * (1 + 1e-9) ? Mk : reduced(Mk, McrMax, curve);
         if (!(Mb < Infinity)) return 0;
         if (open !== Infinity && best[i]! < need(i) && Mb >= need(i)) open--;
         best[i] = Math.max(best[i]!, Mb);
@@ -192,6 +202,41 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
 }
 
 /**
+ * An upper bound on the check's Wy fy (Mc,Rd·γM0) for bending with the top (or bottom) flange in
+ * compression: Mpl unless the section is surely Class 3 or 4 (compression flange or web beyond
+ * its Class 2 limit by more than round-off), then also at most fy of the compression flange times
+ * the gross Iy over the distance to its extreme fibre — Mel is a first yield (at most that
+ * fibre's), and the effective section of Class 4 only removes area from the compression zone,
+ * which lowers I over that distance (provided the whole flange lies on the compression side of
+ * the gross neutral axis; else Mpl).
+ */
+export function wyFyBound(sec: Plates3, p: ReturnType<typeof stackProps>, top: boolean, m: PlateStrengths, throat: number): number {
+  const zc = p.zElastic;
+  const zw0 = sec.bot.t;
+  const zw1 = sec.bot.t + sec.hw;
+  if (top ? zc > zw1 : zc < zw0) return p.Mpl;
+  const flange = top ? sec.top : sec.bot;
+  const fyF = top ? m.fyTop : m.fyBot;
+  const c = flangeOutstand(flange, sec.tw, fyF, throat).c;
+  let slender = c / flange.t > 10 * epsilon(fyF) * (1 + 1e-9);
+  if (!slender) {
+    const alpha = Math.min(1, top ? (zw1 - p.zPlastic) / sec.hw : (p.zPlastic - zw0) / sec.hw);
+    if (alpha > 1e-9) {
+      // α is the check's to round-off: the Class 2 limit of Table 5.2 (classifyWebBendingCompression)
+      // falls as α grows on either side of 0.5 and jumps down there (83ε → 82.9ε), so the largest
+      // limit of any α within a hair of this one is the limit at α − a hair (at least 83ε at 0.5)
+      const a = alpha * (1 - 1e-9);
+      const eW = epsilon(m.fyw);
+      const lim = a > 0.5 ? (456 * eW) / (13 * a - 1) : (41.5 * eW) / a;
+      slender = sec.hw / sec.tw > lim * (1 + 1e-9);
+    }
+  }
+  if (!slender) return p.Mpl;
+  const Wc = p.Iy / (top ? p.h - zc : zc);
+  return Math.min(p.Mpl, fyF * Wc);
+}
+
+/**
  * The centroid, Iy, h and shear centre of a three-plate I (mm, mm⁴), as grossProps gives them
  * (the shear centre of grossProps' formula; the centroid and Iy of the plate stack): what zg and
  * zj read.
@@ -201,7 +246,7 @@ export function stackProps(
   fyTop: number,
   fyBot: number,
   fyw: number,
-): { h: number; zElastic: number; Iy: number; zShear: number; Iz: number; It: number; Iw: number; Mpl: number } {
+): { h: number; zElastic: number; zPlastic: number; Iy: number; zShear: number; Iz: number; It: number; Iw: number; Mpl: number } {
   // three rectangles from the bottom: bottom flange, web, top flange (width, z0, z1, fy)
   const tb = s.bot.t;
   const tt = s.top.t;
@@ -240,6 +285,7 @@ export function stackProps(
   return {
     h,
     zElastic: zc,
+    zPlastic: zp,
     Iy,
     zShear: tb / 2 + (hs * IzTop) / (IzTop + IzBot),
     Iz: IzTop + IzBot + (s.hw * s.tw * s.tw * s.tw) / 12,

@@ -4,7 +4,7 @@ import { bendingForSign, chiLT, chiLTGeneral, defaultOptions, ltbUtilisation, pr
 import { analyse } from '@platesmith/actions';
 import { analysisLoadModel } from '../src/index.js';
 import { grossProps, material, wagnerZj } from '@platesmith/checks';
-import { ltbSetBound, stackProps, zjOf } from '../src/ltb-bound.js';
+import { ltbSetBound, stackProps, wyFyBound, zjOf } from '../src/ltb-bound.js';
 
 /**
  * Soundness of the lateral-torsional-buckling bound over a set of sections (consistency
@@ -66,6 +66,51 @@ describe('the bound\'s section properties', () => {
       for (const [side, sgn] of [['top', 1], ['bot', -1]] as const) expect(Math.abs(zjOf(s, p, sgn) - wagnerZj({ s, g }, side))).toBeLessThanOrEqual(1e-9 * g.h);
     },
   );
+});
+
+describe('wyFyBound: the modulus the bound takes for Wy fy', () => {
+  const sectionArb = fc.record({
+    hw: fc.integer({ min: 300, max: 2600 }),
+    tw: fc.constantFrom(6, 8, 10, 12, 15, 20, 25),
+    bt: fc.integer({ min: 120, max: 800 }),
+    tt: fc.constantFrom(8, 10, 12, 15, 20, 25, 30, 40, 50, 60),
+    bb: fc.integer({ min: 120, max: 800 }),
+    tb: fc.constantFrom(8, 10, 12, 15, 20, 25, 30, 40, 50, 60),
+    grades: fc.constantFrom(['S235', 'S235', 'S235'], ['S355', 'S355', 'S355'], ['S355', 'S460', 'S460'], ['S460', 'S355', 'S275']) as fc.Arbitrary<('S235' | 'S275' | 'S355' | 'S460')[]>,
+    throats: fc.constantFrom([4], [5, 7], [3, 6, 8]),
+  });
+  let reduced = 0;
+  test.prop([sectionArb], { numRuns: 600 })('is never below the check\'s Mc,Rd·γM0 for either sign, whatever the class (consistency property)', (c) => {
+    const s: Section = { hw: c.hw, tw: c.tw, top: { b: c.bt, t: c.tt }, bot: { b: c.bb, t: c.tb }, stiffeners: null, endPost: 'rigid', grade: { web: c.grades[0]!, top: c.grades[1]!, bot: c.grades[2]!, stiffener: 'S355' } };
+    const o = defaultOptions(10000, { weldThroats: c.throats });
+    const ctx = prepare(s, o);
+    const m = material(s, o);
+    const p = stackProps(s, m.fyTop, m.fyBot, m.fyw);
+    for (const top of [true, false]) {
+      const b = bendingForSign(ctx, top ? 'top' : 'bot');
+      const bound = wyFyBound(s, p, top, m, Math.min(...c.throats));
+      expect(bound).toBeGreaterThanOrEqual(b.McRd * o.factors.gammaM0 * (1 - 1e-12));
+      expect(bound).toBeLessThanOrEqual(p.Mpl);
+      if (bound < p.Mpl * (1 - 1e-6)) reduced++;
+    }
+  });
+  it('was exercised below Mpl (the property above is not vacuous)', () => {
+    expect(reduced).toBeGreaterThan(100);
+  });
+  it('is the elastic moment of a doubly symmetric Class 3 section (tight where it can be)', () => {
+    // EN 1993-1-1 Table 5.2 at S355 (ε = 0.814): web hw/tw = 80 lies between 83ε = 67.5 and
+    // 124ε = 100.9, Class 3; flanges c/t = ((300 − 12)/2 − √2·5)/20 = 6.85 ≤ 9ε = 7.3, Class 1
+    const s: Section = { hw: 960, tw: 12, top: { b: 300, t: 20 }, bot: { b: 300, t: 20 }, stiffeners: null, endPost: 'rigid', grade: { web: 'S355', top: 'S355', bot: 'S355', stiffener: 'S355' } };
+    const o = defaultOptions(10000, { weldThroats: [5] });
+    const ctx = prepare(s, o);
+    const b = bendingForSign(ctx, 'top');
+    expect(b.cls.sectionClass).toBe(3);
+    const m = material(s, o);
+    const p = stackProps(s, m.fyTop, m.fyBot, m.fyw);
+    const bound = wyFyBound(s, p, true, m, 5);
+    expect(Math.abs(bound - b.McRd * o.factors.gammaM0)).toBeLessThanOrEqual(1e-9 * bound);
+    expect(bound).toBeLessThan(0.95 * p.Mpl);
+  });
 });
 
 describe('ltbSetBound', () => {
