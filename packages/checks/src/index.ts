@@ -65,7 +65,7 @@ export { bendingChecks } from './en1993-1-1/bending-family.js';
 export { classifyOutstand, classifyWebBending, classifyWebBendingCompression, classifyInternalCompression, classifySection } from './en1993-1-1/classification.js';
 export { bendingForSign, bracket, firstAbove, envelopeAt, wplDoublySymmetric, iyDoublySymmetric, signsOf, type SignBending } from './en1993-1-1/bending.js';
 export { kSigmaInternal, kSigmaOutstand, lambdaP, rhoInternal, rhoOutstand, internalEffectiveWidths, effectiveSection } from './en1993-1-5/effective-section.js';
-export { kF, patchResistance, patchBendingInteraction, patchUtilisation, patchBendingFloor, type PatchType, type PatchInput, type PatchResult } from './en1993-1-5/patch-loading.js';
+export { kF, patchResistance, patchBendingInteraction, patchUtilisation, patchEta2s, patchBendingMelNeed, patchBendingFloor, type PatchType, type PatchInput, type PatchResult } from './en1993-1-5/patch-loading.js';
 export { fibLimit, kFibFor } from './en1993-1-5/flange-induced.js';
 export { mcr, chiLT, chiLTGeneral, momentFactors, c1EndMoments, kcEndMoments, ltbCurveWelded, ltbUtilisation, momentEnvelopeOf, wagnerZj, loadHeightZg, c3EndMoments, type MomentEnvelope } from './en1993-1-1/ltb.js';
 export { fvwd, fwRd, shearFlow, pickThroat } from './en1993-1-8/weld.js';

@@ -1,7 +1,7 @@
 import { describe, expect } from 'vitest';
 import { fc, test } from '@fast-check/vitest';
 import { fy } from '@platesmith/catalogue';
-import { assembleVerdict, bearingCandidates, bearingCrushing, CHECK_ORDER, flatTorsion, iyNeedRange, minIyForDeflectionAt, checkGirder, defaultOptions, firstFailure, firstFailureAmong, inJudgeOrder, judgeGirder, type Judged, minIyForDeflection, panelsOf, patchUtilisation, prepare, type Effects, type Section } from '../src/index.js';
+import { assembleVerdict, bearingCandidates, bearingCrushing, CHECK_ORDER, flatTorsion, iyNeedRange, minIyForDeflectionAt, checkGirder, defaultOptions, firstFailure, firstFailureAmong, inJudgeOrder, judgeGirder, type Judged, minIyForDeflection, panelsOf, patchBendingFloor, patchBendingMelNeed, patchEta2s, patchUtilisation, prepare, type Effects, type Section } from '../src/index.js';
 
 /**
  * Properties of the functions the search relies on (no published values: these are consistency
@@ -108,6 +108,33 @@ describe('functions the search relies on', () => {
     const u = patchUtilisation(e.forces, { hw: s.hw, tw: s.tw, fyw: ctx.m.fyw }, { b: s.top.b, t: s.top.t, fy: ctx.m.fyTop }, panelsOf(o.supports, s.stiffeners?.a ?? null).panels, o.E, o.factors.gammaM1);
     expect(u).toBeCloseTo(v.utilisation, 12);
   });
+
+  test.prop([sectionArb, fc.array(fc.record({ x: fc.integer({ min: 500, max: 15500 }), F: fc.double({ min: 2e4, max: 1.5e6, noNaN: true }), ss: fc.constantFrom(0, 100, 250), M: fc.oneof(fc.constant(0), fc.double({ min: -5e9, max: -1e5, noNaN: true }), fc.double({ min: 1e5, max: 8e9, noNaN: true })) }), { minLength: 1, maxLength: 4 }), fc.constantFrom(1, 1 + 1e-9)], { numRuns: 300 })(
+    'patchBendingMelNeed is the least MelRd at which patchBendingFloor is within the limit',
+    (r, fs, limit) => {
+      const s = sectionOf(r);
+      const o = defaultOptions(16000);
+      const ctx = prepare(s, o);
+      const web = { hw: s.hw, tw: s.tw, fyw: ctx.m.fyw };
+      const top = { b: s.top.b, t: s.top.t, fy: ctx.m.fyTop };
+      const panels = panelsOf(o.supports, s.stiffeners?.a ?? null).panels;
+      const forces = fs.map((f) => ({ x: f.x, F: f.F, ss: f.ss }));
+      const sag = fs.map((f) => f.M);
+      const etas = patchEta2s(forces, web, top, panels, o.E, o.factors.gammaM1);
+      expect(Math.max(0, ...etas)).toBe(patchUtilisation(forces, web, top, panels, o.E, o.factors.gammaM1));
+      const need = patchBendingMelNeed(etas, sag, limit);
+      const floor = (MelRd: number) => patchBendingFloor(forces, web, top, panels, o.E, o.factors.gammaM1, sag, MelRd);
+      if (need === Infinity) {
+        // some force's η2 alone leaves no room: no resistance passes
+        expect(floor(1e30)).toBeGreaterThan(limit);
+      } else if (need === 0) {
+        expect(sag.every((M) => !(M > 0))).toBe(true);
+      } else {
+        expect(floor(need * (1 + 1e-9))).toBeLessThanOrEqual(limit);
+        expect(floor(need * (1 - 1e-9))).toBeGreaterThan(limit);
+      }
+    },
+  );
 
   test.prop([sectionArb, loadArb], { numRuns: 300 })('a section with Iy below minIyForDeflection fails deflection', (r, l) => {
     const s = sectionOf(r);

@@ -163,8 +163,41 @@ export function patchUtilisation(
   gammaM1: number,
 ): number {
   let u = 0;
-  for (const f of forces) u = Math.max(u, Math.abs(f.F) / forceFRd(f, web, top, panels, E, gammaM1));
+  for (const e of patchEta2s(forces, web, top, panels, E, gammaM1)) u = Math.max(u, e);
   return u;
+}
+
+/** η2 = |F|/FRd of each force (as patchUtilisation computes them; its value is their largest). */
+export function patchEta2s(
+  forces: readonly { x: number; F: number; ss: number }[],
+  web: { hw: number; tw: number; fyw: number },
+  top: { b: number; t: number; fy: number },
+  panels: readonly { x0: number; x1: number; a: number }[],
+  E: number,
+  gammaM1: number,
+): Float64Array {
+  const out = new Float64Array(forces.length);
+  for (let i = 0; i < forces.length; i++) out[i] = Math.abs(forces[i]!.F) / forceFRd(forces[i]!, web, top, panels, E, gammaM1);
+  return out;
+}
+
+/**
+ * The least MelRd (N·mm) with which patchBendingFloor is at most `limit`, from each force's η2
+ * (patchEta2s) and sag (as patchBendingFloor reads them): (η2 + 0.8·M/MelRd)/1.4 ≤ limit for every
+ * force with M > 0 is MelRd ≥ 0.8·M/(1.4·limit − η2); Infinity when some η2 alone exceeds 1.4·limit,
+ * 0 when no force has a sagging moment. The search compares one number per set of plates with it
+ * instead of evaluating the floor.
+ */
+export function patchBendingMelNeed(eta2: ArrayLike<number>, sag: readonly number[], limit: number): number {
+  let need = 0;
+  for (let i = 0; i < eta2.length; i++) {
+    const M = sag[i] ?? 0;
+    if (!(M > 0)) continue;
+    const room = 1.4 * limit - eta2[i]!;
+    if (!(room > 0)) return Infinity;
+    need = Math.max(need, (0.8 * M) / room);
+  }
+  return need;
 }
 
 /** FRd (N) of one force on a web and top flange given as plain numbers, load type (a). */
