@@ -4,8 +4,6 @@ import {
   bendingForSign,
   CHECK_ORDER,
   checkGirder,
-  elastic,
-  firstYieldMoment,
   flatTorsion,
   firstFailureAmong,
   flangeOutstand,
@@ -22,8 +20,8 @@ import {
   minIyForDeflectionAt,
   iyNeedRange,
   panelsOf,
-  patchBendingFloor,
-  patchUtilisation,
+  patchBendingMelNeed,
+  patchEta2s,
   prepare,
   webShearCapacityBound,
   type BearingCandidates,
@@ -106,6 +104,8 @@ interface Plate {
   fibBot: number;
   /** patch-loading utilisation per (top flange option, panel count) */
   patch: Float64Array | null;
+  /** per (top flange option, panel count): the least Mel,Rd the 7.2 floor lets pass (patchBendingMelNeed) */
+  patchNeed: Float64Array | null;
   fit: Map<number, BearingFlat | null>;
   /** layouts in ascending order of their own kg (stiffeners and least bearing flats), per bearing floor */
   orders: Map<string, { order: Int32Array; add: Float64Array }>;
@@ -137,7 +137,10 @@ interface Plates {
   panelPassed?: Map<string, Map<CheckId, CheckResult>>;
 }
 
-/** The state of a mono-symmetric run's enumeration (see gridOf). Rows: top options, columns: bottom options, indices within their groups. */
+/**
+ * The state of a mono-symmetric run's enumeration (see gridOf). Rows: top options, columns:
+ * bottom options, indices within their groups (widths ascending, so masses ascending).
+ */
 interface Grid {
   nt: number;
   nb: number;
@@ -147,23 +150,32 @@ interface Grid {
   /** flange masses, kg */
   mT: Float64Array;
   mB: Float64Array;
-  /** the options judged live so far, ascending; the next option to judge */
-  liveT: Int32Array;
-  nLiveT: number;
-  nextT: number;
-  liveB: Int32Array;
-  nLiveB: number;
-  nextB: number;
-  /** the merge's heap: positions in liveT, liveB and the pair's mass */
+  /** per column: 0 not judged yet, 1 live, 2 + reason when ruled out (GRID_OUT) */
+  col: Int8Array;
+  /** the next row to take up (rows are taken up in order, when the merge reaches their lightest pair) */
+  nextRow: number;
+  /** per row: 1 once the LTB set bound has been asked (when the merge first reaches one of its pairs) */
+  rowLtb: Uint8Array;
+  /** the Iy every pair of the run needs (the deflection bounds that do not read the pair's own self-weight), 0 none */
+  iyNeed: number;
+  /** the merge's heap: row, column and the pair's mass */
   ha: Int32Array;
   hb: Int32Array;
   hk: Float64Array;
   hn: number;
   /** pairs taken from the merge */
   yielded: number;
-  /** options ruled out, by reason: flange-induced buckling, patch loading, LTB */
-  deadT: [number, number, number];
-  deadB: [number, number, number];
+  /** pairs ruled out without being taken, by reason (GRID_OUT) */
+  out: Float64Array;
+}
+
+/** Why a grid's pairs were ruled out without being taken (Grid.out). */
+const enum GRID_OUT {
+  FIB = 0,
+  PATCH = 1,
+  LTB = 2,
+  BENDING = 3,
+  DEFLECTION = 4,
 }
 
 interface Pairs {
@@ -577,6 +589,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       fibTop: fib(dem.sagAlways),
       fibBot: fib(dem.hogAlways),
       patch: null,
+      patchNeed: null,
       fit: new Map(),
       orders: new Map(),
     };
@@ -649,16 +662,50 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     }
     return fails;
   };
-  const patchOf = (plate: Plate, ti: number, n: number): number => {
-    // a table per plate (flange option × panel count), NaN until computed
-    const table = (plate.patch ??= new Float64Array(nFlange * panelSlots.size).fill(Number.NaN));
-    const key = ti * panelSlots.size + panelSlots.get(n)!;
-    let u = table[key]!;
-    if (Number.isNaN(u)) {
-      u = patchUtilisation(forces, plate.w, flanges[ti]!, panelsByCount.get(n)!, o.E, o.factors.gammaM1);
+  /**
+   * Patch loading on a plate under top flange option ti with n panels: the largest η2 (6.4, exact),
+   * and the least Mel,Rd with which the 7.2 floor passes (patchBendingMelNeed; a table per plate,
+   * NaN until computed).
+   */
+  const patchTables = (plate: Plate, ti: number, n: number): number => {
+    const slots = panelSlots.size;
+    const table = (plate.patch ??= new Float64Array(nFlange * slots).fill(Number.NaN));
+    const need = (plate.patchNeed ??= new Float64Array(nFlange * slots));
+    const key = ti * slots + panelSlots.get(n)!;
+    if (Number.isNaN(table[key]!)) {
+      const etas = patchEta2s(forces, plate.w, flanges[ti]!, panelsByCount.get(n)!, o.E, o.factors.gammaM1);
+      let u = 0;
+      for (const e of etas) u = Math.max(u, e);
       table[key] = u;
+      need[key] = anySag ? patchBendingMelNeed(etas, sagAtForces, 1 + 1e-9) : 0;
     }
-    return u;
+    return key;
+  };
+  const patchOf = (plate: Plate, ti: number, n: number): number => {
+    const key = patchTables(plate, ti, n);
+    return plate.patch![key]!;
+  };
+  /** Mel,Rd of the plates' gross section: grossProps(·).Mel of the same three rectangles at the plates' own fy, over γM0 (to round-off). */
+  const melRdOf = (ps: Plates): number => {
+    if (ps.MelRd === 0) {
+      const w = ps.plate.w;
+      const { T, B } = ps;
+      const z1 = B.t;
+      const z2 = B.t + w.hw;
+      const h = z2 + T.t;
+      const A0 = B.b * B.t;
+      const A1 = w.tw * w.hw;
+      const A2 = T.b * T.t;
+      const zc = (A0 * (z1 / 2) + A1 * ((z1 + z2) / 2) + A2 * ((z2 + h) / 2)) / (A0 + A1 + A2);
+      const d0 = z1 / 2 - zc;
+      const d1 = (z1 + z2) / 2 - zc;
+      const d2 = (z2 + h) / 2 - zc;
+      const I = (B.b * B.t ** 3) / 12 + A0 * d0 * d0 + (w.tw * w.hw ** 3) / 12 + A1 * d1 * d1 + (T.b * T.t ** 3) / 12 + A2 * d2 * d2;
+      // first yield: each plate's farthest fibre at its own fy
+      const M = Math.min((B.fy * I) / Math.max(zc, Math.abs(z1 - zc)), (w.fyw * I) / Math.max(Math.abs(z1 - zc), Math.abs(z2 - zc)), (T.fy * I) / Math.max(Math.abs(z2 - zc), h - zc));
+      ps.MelRd = M / o.factors.gammaM0;
+    }
+    return ps.MelRd;
   };
   /** Whether a panel count passes the patch-loading bounds on these plates: 6.4 and the 7.2 floor (memoised). */
   const panelOk = (ps: Plates, np: number): boolean => {
@@ -667,22 +714,11 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     const slot = panelSlots.get(np)!;
     let ok = memo[slot] === 0 ? undefined : memo[slot] === 1;
     if (ok === undefined) {
-      ok = patchOf(ps.plate, ps.ti, np) <= 1 + 1e-9;
-      if (ok && anySag) {
-        if (ps.MelRd === 0) {
-          // grossProps(·).Mel of the plates: the same rectangles (rects) at the plates' own fy
-          const w = ps.plate.w;
-          const tb = ps.B.t;
-          const rs = [
-            { z0: 0, z1: tb, b: ps.B.b, fy: ps.B.fy },
-            { z0: tb, z1: tb + w.hw, b: w.tw, fy: w.fyw },
-            { z0: tb + w.hw, z1: tb + w.hw + ps.T.t, b: ps.T.b, fy: ps.T.fy },
-          ];
-          const el = elastic(rs);
-          ps.MelRd = firstYieldMoment(rs, el.z, el.I) / o.factors.gammaM0;
-        }
-        ok = patchBendingFloor(forces, ps.plate.w, ps.T, panelsByCount.get(np)!, o.E, o.factors.gammaM1, sagAtForces, ps.MelRd) <= 1 + 1e-9;
-      }
+      const key = patchTables(ps.plate, ps.ti, np);
+      ok = ps.plate.patch![key]! <= 1 + 1e-9;
+      // the 7.2 floor: Mel,Rd at least its need (a hair of margin: only a clear failure drops it)
+      const need = ps.plate.patchNeed![key]!;
+      if (ok && need > 0) ok = melRdOf(ps) >= need * (1 - 1e-9);
       memo[slot] = ok ? 1 : 2;
     }
     return ok;
@@ -734,25 +770,27 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
   }
   /**
    * Whether every pair of run c with flange option `fixed` on the top (or the bottom) fails
-   * lateral-torsional buckling, whatever the other flange of its group: ltbSetBound over the
-   * group's options, at the self-weights they give. Once per option and run.
+   * lateral-torsional buckling, whatever the other flange of its group from option `from` on
+   * (widths ascending): ltbSetBound over those options, at the self-weights they give. Once per
+   * option and run (a row asks with the columns its bending and deflection bounds leave).
    */
-  const ltbDeadWith = (c: Extract<Node, { kind: 0 }>, top: boolean, fixed: number): boolean => {
+  const ltbDeadWith = (c: Extract<Node, { kind: 0 }>, top: boolean, fixed: number, from = 0): boolean => {
     if (!boundsSide(top)) return false;
     const own = top ? c.gt : c.gb;
     const memo = top ? (c.ltbTop ??= new Int8Array(groups[own]!.options.length)) : (c.ltbBot ??= new Int8Array(groups[own]!.options.length));
     const slot = fixed - groupStart[own]!;
     let known = memo[slot]!;
     if (known === 0) {
-      const group = groups[top ? c.gb : c.gt]!;
+      const other = top ? c.gb : c.gt;
+      const group = groups[other]!;
       const w = c.plate.w;
       const F = flanges[fixed]!;
       const segs = runSegments(c, top);
       const part = partOf(c.plate, 0);
-      const widest = group.options.reduce((a, b) => (b.b > a.b ? b : a));
+      const widest = group.options[group.options.length - 1]!;
       const section = top ? buildSection(w, part, F, widest) : buildSection(w, part, widest, F);
       // widest first: as a rule the strongest, so a set that is not all dead is shown so soonest
-      const widths = group.options.map((f) => f.b).sort((x, y) => y - x);
+      const widths = widthsDown(other).subarray(0, group.options.length - from);
       const u = ltbSet!.over(segs, section, top, widths, 1 + 1e-6);
       // a bound: only a clear failure drops the set (the margin covers round-off)
       known = u > 1 + 1e-6 ? 1 : 2;
@@ -760,6 +798,10 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     }
     return known === 1;
   };
+  /** a group's widths, widest first (options are widths ascending) */
+  const widthsDownOf: Float64Array[] = [];
+  const widthsDown = (gi: number): Float64Array => (widthsDownOf[gi] ??= Float64Array.from(groups[gi]!.options, (f) => f.b).reverse());
+
 
   /** Whether the set bound can bite with this flange in compression (a segment to bound, a moment of that sign). */
   const boundsSide = (top: boolean): boolean => ltbSet!.bounds(top) && signPresent[top ? 'top' : 'bot'];
@@ -923,21 +965,24 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
 
   /**
    * Mono-symmetric runs as a grid: the top options (widths of one thickness, ascending mass) by the
-   * bottom ones. A flange option that fails on its own — flange-induced buckling, patch loading on
-   * every panel count (top), or the LTB set bound with it fixed — rules out its whole row or
-   * column, so the pairs are enumerated over the live rows and columns only, in ascending mass
-   * (a sorted merge of the two lists: a small heap of one entry per live row), and each option is
-   * judged when the merge first reaches it. The run's bound is the lightest pair left.
+   * bottom ones, enumerated in ascending pair mass (a merge: a small heap of one entry per row
+   * taken up). A row is taken up when the merge reaches its lightest conceivable pair; then it is
+   * judged on its own — flange-induced buckling, patch loading on every panel count, the columns
+   * that reach the bending and deflection bounds (a prefix fails them: area and Iy grow with the
+   * bottom width, found by bisection), and the LTB set bound over the columns left — and ruled out
+   * whole or started at its first live column. A column is judged once, when a row first reaches
+   * it (flange-induced buckling, the LTB set bound with it fixed), and skipped by every row after.
+   * The run's bound is the lightest pair left, or the next row's lightest conceivable pair.
    */
   const massOfGroup: Float64Array[] = [];
   const groupMass = (gi: number): Float64Array => (massOfGroup[gi] ??= Float64Array.from(groups[gi]!.options, (f) => flangeMass(f, L)));
   const gridOf = (c: Extract<Node, { kind: 0 }>): Grid => {
     if (c.grid) return c.grid;
-    const GT = groups[c.gt]!;
-    const GB = groups[c.gb]!;
-    const nt = GT.options.length;
-    const nb = GB.options.length;
-    const ints = new Int32Array(3 * nt + nb);
+    const nt = groups[c.gt]!.options.length;
+    const nb = groups[c.gb]!.options.length;
+    const ints = new Int32Array(2 * nt);
+    const da = p.load.deflectionAffine;
+    const iyNeed = Math.max(c.plate.IyReq, da ? iyRangeOf(c, da).lo : 0);
     const g: Grid = {
       nt,
       nb,
@@ -945,52 +990,81 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       b0: groupStart[c.gb]!,
       mT: groupMass(c.gt),
       mB: groupMass(c.gb),
-      liveT: ints.subarray(0, nt),
-      nLiveT: 0,
-      nextT: 0,
-      liveB: ints.subarray(nt, nt + nb),
-      nLiveB: 0,
-      nextB: 0,
-      ha: ints.subarray(nt + nb, 2 * nt + nb),
-      hb: ints.subarray(2 * nt + nb, 3 * nt + nb),
+      col: new Int8Array(nb),
+      nextRow: 0,
+      rowLtb: new Uint8Array(nt),
+      iyNeed,
+      ha: ints.subarray(0, nt),
+      hb: ints.subarray(nt, 2 * nt),
       hk: new Float64Array(nt),
       hn: 0,
       yielded: 0,
-      deadT: [0, 0, 0],
-      deadB: [0, 0, 0],
+      out: new Float64Array(5),
     };
     c.grid = g;
-    if (ensureTop(c, g, 0) && ensureBottom(c, g, 0)) gridPush(g, 0, 0);
     return g;
   };
-  /** Whether live row a exists (judging top options in order until it does). Reasons: 0 FIB, 1 patch, 2 LTB. */
-  const ensureTop = (c: Extract<Node, { kind: 0 }>, g: Grid, a: number): boolean => {
-    while (g.nLiveT <= a && g.nextT < g.nt) {
-      const i = g.nextT++;
-      const ti = g.t0 + i;
-      const T = flanges[ti]!;
-      let why = -1;
-      if (flangeFails(c, T, c.fibT)) why = 0;
-      else if (forces.length > 0 && c.plate.panelCounts.every((np) => patchOf(c.plate, ti, np) > 1 + 1e-9)) why = 1;
-      else if (ltbSet && ltbDeadWith(c, true, ti)) why = 2;
-      if (why >= 0) g.deadT[why]!++;
-      else g.liveT[g.nLiveT++] = i;
+  /** The first live column at or after j (judging columns as it goes; the pairs of row-to-be skipped over dead ones are counted), or nb. */
+  const liveColumnFrom = (c: Extract<Node, { kind: 0 }>, g: Grid, j: number): number => {
+    for (; j < g.nb; j++) {
+      let st = g.col[j]!;
+      if (st === 0) {
+        const bi = g.b0 + j;
+        if (flangeFails(c, flanges[bi]!, c.fibB)) st = 2 + GRID_OUT.FIB;
+        else if (ltbSet && ltbDeadWith(c, false, bi)) st = 2 + GRID_OUT.LTB;
+        else st = 1;
+        g.col[j] = st;
+      }
+      if (st === 1) return j;
+      g.out[st - 2]!++;
     }
-    return g.nLiveT > a;
+    return g.nb;
   };
-  const ensureBottom = (c: Extract<Node, { kind: 0 }>, g: Grid, b: number): boolean => {
-    while (g.nLiveB <= b && g.nextB < g.nb) {
-      const j = g.nextB++;
-      const bi = g.b0 + j;
-      let why = -1;
-      if (flangeFails(c, flanges[bi]!, c.fibB)) why = 0;
-      else if (ltbSet && ltbDeadWith(c, false, bi)) why = 2;
-      if (why >= 0) g.deadB[why]!++;
-      else g.liveB[g.nLiveB++] = j;
+  /** Takes up the next row: judged on its own, then its first live column into the merge. */
+  const takeUpRow = (c: Extract<Node, { kind: 0 }>, g: Grid): void => {
+    const i = g.nextRow++;
+    const ti = g.t0 + i;
+    const T = flanges[ti]!;
+    const { nb } = g;
+    if (flangeFails(c, T, c.fibT)) {
+      g.out[GRID_OUT.FIB]! += nb;
+      return;
     }
-    return g.nLiveB > b;
+    if (forces.length > 0 && c.plate.panelCounts.every((np) => patchOf(c.plate, ti, np) > 1 + 1e-9)) {
+      g.out[GRID_OUT.PATCH]! += nb;
+      return;
+    }
+    // the columns below the bending bound, then below the deflection bound: prefixes
+    const opts = groups[c.gb]!.options;
+    const w = c.plate.w;
+    const TF = T.A * T.fy;
+    let lo = 0;
+    let hi = nb;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      const B = opts[mid]!;
+      if (TF + B.A * B.fy < c.Freq) lo = mid + 1;
+      else hi = mid;
+    }
+    const jF = lo;
+    if (g.iyNeed > 0) {
+      hi = nb;
+      while (lo < hi) {
+        const mid = (lo + hi) >> 1;
+        const B = opts[mid]!;
+        if (iyOfPlates(w.hw, w.tw, T.b, T.t, B.b, B.t) * (1 + 1e-9) < g.iyNeed) lo = mid + 1;
+        else hi = mid;
+      }
+    }
+    const j0 = lo;
+    g.out[GRID_OUT.BENDING]! += jF;
+    g.out[GRID_OUT.DEFLECTION]! += j0 - jF;
+    if (j0 >= nb) return;
+    // into the merge at its first live column; the LTB set bound waits until the merge reaches it
+    const j = liveColumnFrom(c, g, j0);
+    if (j < nb) gridPush(g, i, j);
   };
-  /** The merge's heap: entry (row a, column b) of the live lists, keyed by its pair's mass, ties by (a, b). */
+  /** The merge's heap: entry (row a, column b), keyed by its pair's mass, ties by (a, b). */
   /** Whether heap entry i comes before the entry (kg, a, b). */
   const gridBefore = (g: Grid, i: number, kg: number, a: number, b: number): boolean =>
     g.hk[i]! < kg || (g.hk[i] === kg && (g.ha[i]! < a || (g.ha[i] === a && g.hb[i]! < b)));
@@ -1000,11 +1074,11 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     g.hk[to] = g.hk[from]!;
   };
   const gridPush = (g: Grid, a: number, b: number): void => {
-    const kg = g.mT[g.liveT[a]!]! + g.mB[g.liveB[b]!]!;
+    const kg = g.mT[a]! + g.mB[b]!;
     let i = g.hn++;
     while (i > 0) {
       const q = (i - 1) >> 1;
-      // (a, b) is in the heap at most once, so "not before the parent" is "after it"
+      // one entry per row, so "not before the parent" is "after it"
       if (gridBefore(g, q, kg, a, b)) break;
       gridMove(g, i, q);
       i = q;
@@ -1036,23 +1110,28 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
   /** The run is over (every pair taken, or the rest beaten by feasible points): its pairs counted once each. */
   const finishGrid = (c: Extract<Node, { kind: 0 }>, g: Grid): void => {
     const nL = c.plate.layouts.length;
-    const deadT = g.deadT[0]! + g.deadT[1]! + g.deadT[2]!;
-    const deadB = g.deadB[0]! + g.deadB[1]! + g.deadB[2]!;
-    // rows ruled out: every column; columns ruled out: every row not already ruled out
-    pruned.flangeInducedBuckling += (g.deadT[0]! * g.nb + g.deadB[0]! * (g.nt - deadT)) * nL;
-    pruned.patchLoading += g.deadT[1]! * g.nb * nL;
-    pruned.lateralTorsional += (g.deadT[2]! * g.nb + g.deadB[2]! * (g.nt - deadT)) * nL;
-    pruned.incumbent += (g.nt * g.nb - deadT * g.nb - deadB * (g.nt - deadT) - g.yielded) * nL;
+    const o5 = g.out;
+    pruned.flangeInducedBuckling += o5[GRID_OUT.FIB]! * nL;
+    pruned.patchLoading += o5[GRID_OUT.PATCH]! * nL;
+    pruned.lateralTorsional += o5[GRID_OUT.LTB]! * nL;
+    pruned.bending += o5[GRID_OUT.BENDING]! * nL;
+    pruned.deflection += o5[GRID_OUT.DEFLECTION]! * nL;
+    const counted = o5[0]! + o5[1]! + o5[2]! + o5[3]! + o5[4]!;
+    pruned.incumbent += (g.nt * g.nb - counted - g.yielded) * nL;
   };
   const advanceGrid = (c: Extract<Node, { kind: 0 }>): void => {
     const g = gridOf(c);
     const { plate, d } = c;
+    const mB0 = g.mB[0]!;
     for (;;) {
-      if (g.hn === 0) {
+      const rowKg = g.nextRow < g.nt ? g.mT[g.nextRow]! + mB0 : Infinity;
+      const pairKg = g.hn > 0 ? g.hk[0]! : Infinity;
+      const least = Math.min(rowKg, pairKg);
+      if (least === Infinity) {
         finishGrid(c, g);
         return;
       }
-      const kg = plate.webMass + g.hk[0]!;
+      const kg = plate.webMass + least;
       const floor = floorOf(kg + plate.minLayoutKg, 0);
       if (prunes(d, floor)) {
         finishGrid(c, g);
@@ -1063,14 +1142,26 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
         heap.push(c);
         return;
       }
+      if (rowKg <= pairKg) {
+        takeUpRow(c, g);
+        continue;
+      }
       const a = g.ha[0]!;
       const b = g.hb[0]!;
       gridPop(g);
-      // the next pair of this row, and (from the row's first) the next row's first
-      if (ensureBottom(c, g, b + 1)) gridPush(g, a, b + 1);
-      if (b === 0 && ensureTop(c, g, a + 1)) gridPush(g, a + 1, 0);
+      // a row's first pair reached: the LTB set bound over the row's columns from here on
+      if (ltbSet && g.rowLtb[a] === 0) {
+        g.rowLtb[a] = 1;
+        if (ltbDeadWith(c, true, g.t0 + a, b)) {
+          g.out[GRID_OUT.LTB]! += g.nb - b;
+          continue;
+        }
+      }
+      // the row's next live column
+      const nb = liveColumnFrom(c, g, b + 1);
+      if (nb < g.nb) gridPush(g, a, nb);
       g.yielded++;
-      tryPair(c, g.t0 + g.liveT[a]!, g.b0 + g.liveB[b]!, kg);
+      tryPair(c, g.t0 + a, g.b0 + b, kg);
     }
   };
 
@@ -1118,8 +1209,9 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     }
     const judged: Judged = { results: [] };
     const fail = firstFailureAmong(section, effects, o, PLATE_IDS, judged);
-    fullEvaluations++;
     if (fail) {
+      // one candidate judged in full; the plates' other layouts fail with it
+      fullEvaluations++;
       failedBy[fail.id] = (failedBy[fail.id] ?? 0) + 1;
       pruned.sameFlanges += nL - 1;
       keepMiss({ key: [plate.layouts[0]!, ps.ti, ps.bi], section, depth: d, g: ps.g, lb: nd.lb });
@@ -1215,8 +1307,10 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
         if (!got) panelMap.set(panelKey, (got = new Map()));
         got.set(r.id, r);
       }
-      // the first layout judged completes the judgement begun on the plates (counted there)
-      if (ps.layoutCalls++ > 0) fullEvaluations++;
+      // each layout judged completes a judgement (the plates' part was judged once for all of them);
+      // layouts dropped before it are counted under their reason, so every candidate counts once
+      ps.layoutCalls++;
+      fullEvaluations++;
       const key: CandidateKey = [wi, ps.ti, ps.bi];
       if (fail === null) {
         // both parts passed: together they are checkGirder's verdict (a property test keeps them equal)

@@ -61,7 +61,7 @@ export interface LtbSetBound {
    * contains them all), then the bound over a set of sections.
    */
   segments(range: MomentRange, fixedTop: boolean): readonly Segment[];
-  over(segs: readonly Segment[], widest: Section, fixedTop: boolean, others: readonly number[], stopAt?: number): number;
+  over(segs: readonly Segment[], widest: Section, fixedTop: boolean, others: ArrayLike<number>, stopAt?: number): number;
   /**
    * The bound over explicit sections (one web plate, flanges of one thickness and grade per side,
    * any widths): each section's own properties, as in `over`. With `stopAt`, it may return early
@@ -148,25 +148,28 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
     over(segs, widest, fixedTop, others, stopAt) {
       // the set's members differ only in the other flange's width: the plates alone, one material
       const { hw, tw, top, bot } = widest;
-      const plates = others.map((b): Plates3 => (fixedTop ? { hw, tw, top, bot: { b, t: bot.t } } : { hw, tw, top: { b, t: top.t }, bot }));
-      return overPlates(segs, plates, material(widest, o), stopAt);
+      // one section, its other flange's width set member by member (nothing keeps it)
+      const sec: Plates3 = { hw, tw, top: { b: top.b, t: top.t }, bot: { b: bot.b, t: bot.t } };
+      const free = fixedTop ? sec.bot : sec.top;
+      return overPlates(segs, others.length, (k) => ((free.b = others[k]!), sec), material(widest, o), stopAt);
     },
     overSections(segs, sections, stopAt) {
       if (segs.length === 0 || sections.length === 0) return 0;
       // one grade and thickness per plate role across the set: one material
-      return overPlates(segs, sections, material(sections[0]!, o), stopAt);
+      return overPlates(segs, sections.length, (k) => sections[k]!, material(sections[0]!, o), stopAt);
     },
   };
 
-  /** overSections over plates of one material. */
-  function overPlates(segs: readonly Segment[], sections: readonly Plates3[], m: PlateStrengths, stopAt: number | undefined): number {
-    if (segs.length === 0 || sections.length === 0) return 0;
+  /** overSections over plates of one material: members 0 … count−1 (member(k) may hand back one object, changed). */
+  function overPlates(segs: readonly Segment[], count: number, member: (k: number) => Plates3, m: PlateStrengths, stopAt: number | undefined): number {
+    if (segs.length === 0 || count === 0) return 0;
     // per segment, the largest Mb,Rd·γM1 any section of the set can have
     const best = new Float64Array(segs.length);
     // segments whose best is still below what a bound of stopAt needs (early return at 0)
     let open = stopAt === undefined ? Infinity : segs.length;
     const need = (i: number) => (segs[i]!.MEdLo * o.factors.gammaM1) / stopAt!;
-    for (const sec of sections) {
+    for (let k = 0; k < count; k++) {
+      const sec = member(k);
       const p = stackProps(sec, m.fyTop, m.fyBot, m.fyw);
       let MkTop = Number.NaN;
       let MkBot = Number.NaN;

@@ -65,6 +65,9 @@ describe('search = brute force', () => {
     expect(frontKey(fast.pareto)).toEqual(frontKey(brute.front));
     expect(fast.lightest?.value ?? null).toEqual(brute.front.at(-1)?.value ?? null);
     expect(fast.stats.fullEvaluations).toBeLessThanOrEqual(brute.evaluations);
+    // every candidate of the space is accounted for once: judged in full, or pruned for one reason
+    const pruned = Object.values(fast.stats.pruned).reduce((a, b) => a + b, 0);
+    expect(pruned + fast.stats.fullEvaluations).toBe(fast.stats.spaceSize);
   });
 });
 
