@@ -121,8 +121,6 @@ interface Plates {
   d: number;
   g: number;
   fit: BearingFlat | null;
-  /** per panel count (its slot): whether the patch-loading bounds pass, 0 unknown, 1 yes, 2 no (memo of panelOk; made when first asked) */
-  panelOk: Uint8Array | null;
   /** Mel,Rd of the gross section (0 until needed) */
   MelRd: number;
   effects?: Effects;
@@ -447,6 +445,9 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
   const panelsByCount = new Map<number, { x0: number; x1: number; a: number }[]>();
   const panelSlots = new Map<number, number>();
   for (const n of new Set(sp.panels)) panelSlots.set(n, panelSlots.size);
+  // the slot of a panel count, by array (panel counts are small non-negative integers)
+  const slotOf = new Int32Array(Math.max(0, ...sp.panels) + 1).fill(-1);
+  for (const [n, k] of panelSlots) slotOf[n] = k;
   for (const n of new Set(sp.panels)) {
     const r = panelsOf(supports, n > 0 ? Lmax / n : null);
     stiffCount.set(n, n > 0 ? r.stiffenerXs.length : 0);
@@ -671,7 +672,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     const slots = panelSlots.size;
     const table = (plate.patch ??= new Float64Array(nFlange * slots).fill(Number.NaN));
     const need = (plate.patchNeed ??= new Float64Array(nFlange * slots));
-    const key = ti * slots + panelSlots.get(n)!;
+    const key = ti * slots + slotOf[n]!;
     if (Number.isNaN(table[key]!)) {
       const etas = patchEta2s(forces, plate.w, flanges[ti]!, panelsByCount.get(n)!, o.E, o.factors.gammaM1);
       let u = 0;
@@ -707,22 +708,17 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     }
     return ps.MelRd;
   };
-  /** Whether a panel count passes the patch-loading bounds on these plates: 6.4 and the 7.2 floor (memoised). */
+  /** Whether a panel count passes the patch-loading bounds on these plates: 6.4 and the 7.2 floor (from the plate's tables). */
   const panelOk = (ps: Plates, np: number): boolean => {
     if (forces.length === 0) return true;
-    const memo = (ps.panelOk ??= new Uint8Array(panelSlots.size));
-    const slot = panelSlots.get(np)!;
-    let ok = memo[slot] === 0 ? undefined : memo[slot] === 1;
-    if (ok === undefined) {
-      const key = patchTables(ps.plate, ps.ti, np);
-      ok = ps.plate.patch![key]! <= 1 + 1e-9;
-      // the 7.2 floor: Mel,Rd at least its need (a hair of margin: only a clear failure drops it)
-      const need = ps.plate.patchNeed![key]!;
-      if (ok && need > 0) ok = melRdOf(ps) >= need * (1 - 1e-9);
-      memo[slot] = ok ? 1 : 2;
-    }
-    return ok;
+    // the plate's tables hold the per-flange work; only Mel,Rd is the pair's own (kept on it)
+    const key = patchTables(ps.plate, ps.ti, np);
+    if (!(ps.plate.patch![key]! <= 1 + 1e-9)) return false;
+    // the 7.2 floor: Mel,Rd at least its need (a hair of margin: only a clear failure drops it)
+    const need = ps.plate.patchNeed![key]!;
+    return !(need > 0) || melRdOf(ps) >= need * (1 - 1e-9);
   };
+
   /** per stiffener grade: the bearing flats the sizing can accept (torsion, crushing under a reaction) */
   const bearingByGrade = new Map<string, BearingCandidates>();
   const bearingOf = (grade: WebConfig['grade']): BearingCandidates => {
@@ -927,7 +923,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     }
     // patch loading reads the web, the top flange and the panels: some panel count must pass it
     // (the first that does is enough here; the others are judged when a layout asks)
-    const ps: Plates = { plate, ti, bi, T, B, d, g, fit: null, panelOk: null, MelRd: 0, k: 0, layoutCalls: 0, panelDead: null };
+    const ps: Plates = { plate, ti, bi, T, B, d, g, fit: null, MelRd: 0, k: 0, layoutCalls: 0, panelDead: null };
     if (forces.length > 0) {
       let any = false;
       let patchFails = false;

@@ -44,6 +44,9 @@ import type { MomentRange } from './load.js';
  * - Mb,Rd = χLT(λ̄LT)·Wy fy/γM1 with λ̄LT = √(Wy fy/Mcr) grows with Mcr (χ falls with λ̄) and with
  *   Wy fy for a fixed Mcr (χ·λ̄² grows with λ̄ on both curves used; a test checks it on a fine
  *   grid). Where the reduction may be ignored (MEd/Mcr ≤ λ̄LT,0² possible), Mb,Rd ≤ Wy fy/γM1.
+ * Each member's bound is the largest of its segments' (MEd over the largest Mb,Rd it can have
+ * there); the set's bound is the least of its members' bounds, so every member fails when the set's
+ * bound exceeds 1 even if they fail on different segments.
  * With the modification factor f of 6.3.2.3(2) (ltbModification) χ·λ̄² is not monotone; the bound
  * is then not offered (undefined).
  */
@@ -143,7 +146,8 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
           if (s.MEdLo > tiny * (1 + 1e-9)) segs.push({ top, L: cuts[i + 1]! - cuts[i]!, MEdLo: s.MEdLo, shapes: s.shapes });
         }
       }
-      return segs;
+      // most loaded first (the order overPlates tries them in; the bound does not depend on it)
+      return segs.sort((x, y) => y.MEdLo - x.MEdLo);
     },
     over(segs, widest, fixedTop, others, stopAt) {
       // the set's members differ only in the other flange's width: the plates alone, one material
@@ -160,14 +164,18 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
     },
   };
 
-  /** overSections over plates of one material: members 0 … count−1 (member(k) may hand back one object, changed). */
+  /**
+   * overSections over plates of one material: members 0 … count−1 (member(k) may hand back one
+   * object, changed). Each member's own bound is the largest over the segments of MEd,lo·γM1 over
+   * the largest Mb,Rd it can have there (a bound on its utilisation: its governing segment is one of
+   * them); the set's bound is the least of its members' — every member fails when each fails on
+   * some segment, not necessarily the same one. With stopAt, a member stops at the first segment
+   * above it (already shown to fail), and the set at the first member not shown to fail.
+   */
   function overPlates(segs: readonly Segment[], count: number, member: (k: number) => Plates3, m: PlateStrengths, stopAt: number | undefined): number {
     if (segs.length === 0 || count === 0) return 0;
-    // per segment, the largest Mb,Rd·γM1 any section of the set can have
-    const best = new Float64Array(segs.length);
-    // segments whose best is still below what a bound of stopAt needs (early return at 0)
-    let open = stopAt === undefined ? Infinity : segs.length;
-    const need = (i: number) => (segs[i]!.MEdLo * o.factors.gammaM1) / stopAt!;
+    const limit = stopAt ?? Infinity;
+    let least = Infinity;
     for (let k = 0; k < count; k++) {
       const sec = member(k);
       const p = stackProps(sec, m.fyTop, m.fyBot, m.fyw);
@@ -177,7 +185,9 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
       const curve = ltbCurveWelded(p.h, Math.min(sec.top.b, sec.bot.b));
       let zjTop = Number.NaN;
       let zjBot = Number.NaN;
-      for (let i = 0; i < segs.length; i++) {
+      let uk = 0;
+      // segments most loaded first (segments() sorts them): the likeliest to show a failure soonest
+      for (let i = 0; i < segs.length && !(uk > limit); i++) {
         const sg = segs[i]!;
         let zj: number;
         if (sg.top) zj = Number.isNaN(zjTop) ? (zjTop = zjOf(sec, p, 1)) : zjTop;
@@ -193,14 +203,13 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
         else Mk = Number.isNaN(MkBot) ? (MkBot = wyFyBound(sec, p, false, m, throat)) : MkBot;
         const Mb = sg.MEdLo / McrMax <= lambda0 * lambda0 * (1 + 1e-9) ? Mk : reduced(Mk, McrMax, curve);
         if (!(Mb < Infinity)) return 0;
-        if (open !== Infinity && best[i]! < need(i) && Mb >= need(i)) open--;
-        best[i] = Math.max(best[i]!, Mb);
+        uk = Math.max(uk, (sg.MEdLo * o.factors.gammaM1) / Mb);
       }
-      if (open === 0) break;
+      least = Math.min(least, uk);
+      // a member not shown to fail: the set is not all dead (and the bound is at most stopAt)
+      if (stopAt !== undefined && !(least > limit)) return least;
     }
-    let u = 0;
-    for (let i = 0; i < segs.length; i++) u = Math.max(u, (segs[i]!.MEdLo * o.factors.gammaM1) / best[i]!);
-    return u;
+    return least;
   }
 }
 

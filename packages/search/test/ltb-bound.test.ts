@@ -141,6 +141,10 @@ describe('ltbSetBound', () => {
     // with an early stop the answer is on the same side of the stop value (consistency property)
     const set = ltbSetBound(o)!;
     const segs = set.segments(load.momentEnvelopeRange!(gLo, gHi), c.fixedTop);
+    // the set's bound is the least of its members' own (each may fail on another segment), in any order
+    const single = Math.min(...c.others.map((b) => set.over(segs, widest, c.fixedTop, [b])));
+    expect(set.over(segs, widest, c.fixedTop, c.others)).toBe(single);
+    expect(set.over(segs, widest, c.fixedTop, [...c.others].reverse())).toBe(single);
     for (const stop of [0.5, 1, 1 + 1e-6, 2]) {
       const early = set.over(segs, widest, c.fixedTop, [...c.others].reverse(), stop);
       expect(early > stop).toBe(bound > stop);
