@@ -1,7 +1,7 @@
 import { describe, expect } from 'vitest';
 import { fc, test } from '@fast-check/vitest';
 import { fy } from '@platesmith/catalogue';
-import { assembleVerdict, bearingCandidates, bearingCrushing, CHECK_ORDER, flatTorsion, iyNeedRange, minIyForDeflectionAt, checkGirder, defaultOptions, firstFailure, firstFailureAmong, inJudgeOrder, judgeGirder, type Judged, minIyForDeflection, panelsOf, patchBendingFloor, patchBendingMelNeed, patchEta2s, patchUtilisation, prepare, type Effects, type Section } from '../src/index.js';
+import { chi, chiValue, mcr, mcrOf, assembleVerdict, bearingCandidates, bearingCrushing, CHECK_ORDER, flatTorsion, iyNeedRange, minIyForDeflectionAt, checkGirder, defaultOptions, firstFailure, firstFailureAmong, inJudgeOrder, judgeGirder, type Judged, minIyForDeflection, panelsOf, patchBendingFloor, patchBendingMelNeed, patchEta2s, patchUtilisation, prepare, type Effects, type Section } from '../src/index.js';
 
 /**
  * Properties of the functions the search relies on (no published values: these are consistency
@@ -52,6 +52,15 @@ function effectsOf(L: number, w: number, P: number, sag: boolean): Effects {
 const loadArb = fc.record({ L: fc.constantFrom(8000, 16000, 24000), w: fc.double({ min: 5, max: 120, noNaN: true }), P: fc.constantFrom(0, 2e5, 8e5), sag: fc.boolean() });
 
 describe('functions the search relies on', () => {
+  test.prop([fc.double({ min: 0, max: 4, noNaN: true }), fc.constantFrom('a0' as const, 'a' as const, 'b' as const, 'c' as const, 'd' as const)], { numRuns: 300 })('chiValue is chi(…).chi exactly', (l, curve) => {
+    expect(chiValue(l, curve)).toBe(chi(l, curve).chi);
+  });
+  test.prop([fc.double({ min: 1e6, max: 1e10, noNaN: true }), fc.double({ min: 1e5, max: 1e8, noNaN: true }), fc.double({ min: 1e10, max: 1e15, noNaN: true }), fc.integer({ min: 1000, max: 20000 }), fc.double({ min: 1, max: 2.6, noNaN: true }), fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 0, max: 1.8, noNaN: true }), fc.double({ min: -900, max: 900, noNaN: true }), fc.double({ min: -600, max: 600, noNaN: true })], { numRuns: 300 })(
+    'mcrOf is mcr exactly',
+    (Iz, It, Iw, L, C1, C2, C3, zg, zj) => {
+      expect(mcrOf(210000, 81000, Iz, It, Iw, L, C1, C2, C3, zg, zj)).toBe(mcr({ E: 210000, G: 81000, Iz, It, Iw, L, C1, C2, C3, zg, zj }));
+    },
+  );
   test.prop([sectionArb, loadArb], { numRuns: 300 })('judgeGirder is checkGirder(...).passes, and firstFailure names a failing check', (r, l) => {
     const s = sectionOf(r);
     const e = effectsOf(l.L, l.w, l.P, l.sag);
@@ -106,7 +115,8 @@ describe('functions the search relies on', () => {
     const ctx = prepare(s, o);
     const v = checkGirder(s, e, o).checks.find((c) => c.id === 'patch-loading')!;
     const u = patchUtilisation(e.forces, { hw: s.hw, tw: s.tw, fyw: ctx.m.fyw }, { b: s.top.b, t: s.top.t, fy: ctx.m.fyTop }, panelsOf(o.supports, s.stiffeners?.a ?? null).panels, o.E, o.factors.gammaM1);
-    expect(u).toBeCloseTo(v.utilisation, 12);
+    // the same operations in the same order: equal, not merely close
+    expect(u).toBe(v.utilisation);
   });
 
   test.prop([sectionArb, fc.array(fc.record({ x: fc.integer({ min: 500, max: 15500 }), F: fc.double({ min: 2e4, max: 1.5e6, noNaN: true }), ss: fc.constantFrom(0, 100, 250), M: fc.oneof(fc.constant(0), fc.double({ min: -5e9, max: -1e5, noNaN: true }), fc.double({ min: 1e5, max: 8e9, noNaN: true })) }), { minLength: 1, maxLength: 4 }), fc.constantFrom(1, 1 + 1e-9)], { numRuns: 300 })(

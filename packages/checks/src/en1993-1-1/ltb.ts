@@ -38,12 +38,15 @@ export interface McrInput {
  * Mcr = C1 π²EIz/(kL)² {√[(k/kw)² Iw/Iz + (kL)² G It/(π² E Iz) + (C2 zg − C3 zj)²] − (C2 zg − C3 zj)}.
  */
 export function mcr(p: McrInput): number {
-  const k = p.k ?? 1;
-  const kw = p.kw ?? 1;
-  const kL = k * p.L;
-  const a = (p.C2 ?? 0) * (p.zg ?? 0) - (p.C3 ?? 0) * (p.zj ?? 0);
-  const base = (p.C1 * Math.PI ** 2 * p.E * p.Iz) / (kL * kL);
-  const root = Math.sqrt((k / kw) ** 2 * (p.Iw / p.Iz) + (kL * kL * p.G * p.It) / (Math.PI ** 2 * p.E * p.Iz) + a * a);
+  return mcrOf(p.E, p.G, p.Iz, p.It, p.Iw, p.L, p.C1, p.C2 ?? 0, p.C3 ?? 0, p.zg ?? 0, p.zj ?? 0, p.k ?? 1, p.kw ?? 1);
+}
+
+/** mcr from plain numbers (no input object: for callers that evaluate it very often). */
+export function mcrOf(E: number, G: number, Iz: number, It: number, Iw: number, L: number, C1: number, C2: number, C3: number, zg: number, zj: number, k = 1, kw = 1): number {
+  const kL = k * L;
+  const a = C2 * zg - C3 * zj;
+  const base = (C1 * Math.PI ** 2 * E * Iz) / (kL * kL);
+  const root = Math.sqrt((k / kw) ** 2 * (Iw / Iz) + (kL * kL * G * It) / (Math.PI ** 2 * E * Iz) + a * a);
   return base * (root - a);
 }
 
