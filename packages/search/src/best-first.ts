@@ -154,6 +154,8 @@ interface Grid {
   nextRow: number;
   /** per row: 1 once the LTB set bound has been asked (when the merge first reaches one of its pairs) */
   rowLtb: Uint8Array;
+  /** per row: the least Mel,Rd any panel count's 7.2 floor lets pass (0: none needed) */
+  rowMel: Float64Array;
   /** the Iy every pair of the run needs (the deflection bounds that do not read the pair's own self-weight), 0 none */
   iyNeed: number;
   /** the merge's heap: row, column and the pair's mass */
@@ -174,6 +176,7 @@ const enum GRID_OUT {
   LTB = 2,
   BENDING = 3,
   DEFLECTION = 4,
+  PATCH_BENDING = 5,
 }
 
 interface Pairs {
@@ -637,7 +640,8 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       const lb = floorOf(plate.webMass + kgFloor + minLayoutKg, 0);
       const fibT = plate.fibTop === Infinity ? Infinity : plate.fibTop / (GT.fy * GT.fy);
       const fibB = plate.fibBot === Infinity ? Infinity : plate.fibBot / (GB.fy * GB.fy);
-      heap.push({ kind: 0, lb, seq: seq++, plate, pairs, k, d, Freq, fibT, fibB, gt, gb });
+      // every field from the start: one object shape for all runs (the heap reads many of them)
+      heap.push({ kind: 0, lb, seq: seq++, plate, pairs, k, d, Freq, fibT, fibB, gt, gb, ltbTop: undefined, ltbBot: undefined, segsTop: undefined, segsBot: undefined, block: undefined, grid: undefined, iyRange: undefined });
     }
   }
 
@@ -688,9 +692,11 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
   };
   /** Mel,Rd of the plates' gross section: grossProps(·).Mel of the same three rectangles at the plates' own fy, over γM0 (to round-off). */
   const melRdOf = (ps: Plates): number => {
-    if (ps.MelRd === 0) {
-      const w = ps.plate.w;
-      const { T, B } = ps;
+    if (ps.MelRd === 0) ps.MelRd = melRd(ps.plate.w, ps.T, ps.B);
+    return ps.MelRd;
+  };
+  const melRd = (w: WebConfig, T: FlangeOption, B: FlangeOption): number => {
+    {
       const z1 = B.t;
       const z2 = B.t + w.hw;
       const h = z2 + T.t;
@@ -701,12 +707,11 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       const d0 = z1 / 2 - zc;
       const d1 = (z1 + z2) / 2 - zc;
       const d2 = (z2 + h) / 2 - zc;
-      const I = (B.b * B.t ** 3) / 12 + A0 * d0 * d0 + (w.tw * w.hw ** 3) / 12 + A1 * d1 * d1 + (T.b * T.t ** 3) / 12 + A2 * d2 * d2;
+      const I = (A0 * B.t * B.t) / 12 + A0 * d0 * d0 + (A1 * w.hw * w.hw) / 12 + A1 * d1 * d1 + (A2 * T.t * T.t) / 12 + A2 * d2 * d2;
       // first yield: each plate's farthest fibre at its own fy
       const M = Math.min((B.fy * I) / Math.max(zc, Math.abs(z1 - zc)), (w.fyw * I) / Math.max(Math.abs(z1 - zc), Math.abs(z2 - zc)), (T.fy * I) / Math.max(Math.abs(z2 - zc), h - zc));
-      ps.MelRd = M / o.factors.gammaM0;
+      return M / o.factors.gammaM0;
     }
-    return ps.MelRd;
   };
   /** Whether a panel count passes the patch-loading bounds on these plates: 6.4 and the 7.2 floor (from the plate's tables). */
   const panelOk = (ps: Plates, np: number): boolean => {
@@ -793,6 +798,15 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       memo[slot] = known;
     }
     return known === 1;
+  };
+  /** Whether the set bound shows pair (T, B) of run c failing LTB (either sign). */
+  const ltbPairDead = (c: Extract<Node, { kind: 0 }>, T: FlangeOption, B: FlangeOption): boolean => {
+    const section = buildSection(c.plate.w, partOf(c.plate, 0), T, B);
+    for (const top of [true, false]) {
+      if (!boundsSide(top)) continue;
+      if (ltbSet!.over(runSegments(c, top), section, top, [top ? B.b : T.b], 1 + 1e-6) > 1 + 1e-6) return true;
+    }
+    return false;
   };
   /** a group's widths, widest first (options are widths ascending) */
   const widthsDownOf: Float64Array[] = [];
@@ -955,6 +969,12 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       pruned.incumbent += nL;
       return;
     }
+    // the LTB set bound on this pair alone (its rows and columns were not shown dead as sets):
+    // far cheaper than the exact screen the plates would get next
+    if (ltbSet && !sp.symmetric && ltbPairDead(c, T, B)) {
+      pruned.lateralTorsional += nL;
+      return;
+    }
     ps.fit = fit;
     heap.push({ kind: 1, lb, seq: seq++, ps });
   };
@@ -989,13 +1009,14 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       col: new Int8Array(nb),
       nextRow: 0,
       rowLtb: new Uint8Array(nt),
+      rowMel: new Float64Array(nt),
       iyNeed,
       ha: ints.subarray(0, nt),
       hb: ints.subarray(nt, 2 * nt),
       hk: new Float64Array(nt),
       hn: 0,
       yielded: 0,
-      out: new Float64Array(5),
+      out: new Float64Array(6),
     };
     c.grid = g;
     return g;
@@ -1016,6 +1037,18 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     }
     return g.nb;
   };
+  /** The first live column at or after j whose pair with row a meets the row's 7.2 floor (pairs below it counted), or nb. */
+  const viableColumnFrom = (c: Extract<Node, { kind: 0 }>, g: Grid, a: number, j: number): number => {
+    const need = g.rowMel[a]!;
+    for (;;) {
+      j = liveColumnFrom(c, g, j);
+      if (j >= g.nb || !(need > 0)) return j;
+      // tryPair's test on every panel count at once: Mel,Rd below the least need fails them all
+      if (melRd(c.plate.w, flanges[g.t0 + a]!, flanges[g.b0 + j]!) >= need * (1 - 1e-9)) return j;
+      g.out[GRID_OUT.PATCH_BENDING]!++;
+      j++;
+    }
+  };
   /** Takes up the next row: judged on its own, then its first live column into the merge. */
   const takeUpRow = (c: Extract<Node, { kind: 0 }>, g: Grid): void => {
     const i = g.nextRow++;
@@ -1026,9 +1059,23 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       g.out[GRID_OUT.FIB]! += nb;
       return;
     }
-    if (forces.length > 0 && c.plate.panelCounts.every((np) => patchOf(c.plate, ti, np) > 1 + 1e-9)) {
-      g.out[GRID_OUT.PATCH]! += nb;
-      return;
+    if (forces.length > 0) {
+      // 6.4 on every panel count; the least Mel,Rd the 7.2 floor needs on the counts that pass it
+      let need = Infinity;
+      let any = false;
+      for (const np of c.plate.panelCounts) {
+        const key = patchTables(c.plate, ti, np);
+        if (c.plate.patch![key]! <= 1 + 1e-9) {
+          any = true;
+          need = Math.min(need, c.plate.patchNeed![key]!);
+        }
+      }
+      if (need === Infinity) {
+        // no count passes 6.4, or none that does leaves room for the 7.2 floor
+        g.out[any ? GRID_OUT.PATCH_BENDING : GRID_OUT.PATCH]! += nb;
+        return;
+      }
+      g.rowMel[i] = need;
     }
     // the columns below the bending bound, then below the deflection bound: prefixes
     const opts = groups[c.gb]!.options;
@@ -1057,7 +1104,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     g.out[GRID_OUT.DEFLECTION]! += j0 - jF;
     if (j0 >= nb) return;
     // into the merge at its first live column; the LTB set bound waits until the merge reaches it
-    const j = liveColumnFrom(c, g, j0);
+    const j = viableColumnFrom(c, g, i, j0);
     if (j < nb) gridPush(g, i, j);
   };
   /** The merge's heap: entry (row a, column b), keyed by its pair's mass, ties by (a, b). */
@@ -1112,7 +1159,8 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     pruned.lateralTorsional += o5[GRID_OUT.LTB]! * nL;
     pruned.bending += o5[GRID_OUT.BENDING]! * nL;
     pruned.deflection += o5[GRID_OUT.DEFLECTION]! * nL;
-    const counted = o5[0]! + o5[1]! + o5[2]! + o5[3]! + o5[4]!;
+    pruned.patchBending += o5[GRID_OUT.PATCH_BENDING]! * nL;
+    const counted = o5[0]! + o5[1]! + o5[2]! + o5[3]! + o5[4]! + o5[5]!;
     pruned.incumbent += (g.nt * g.nb - counted - g.yielded) * nL;
   };
   const advanceGrid = (c: Extract<Node, { kind: 0 }>): void => {
@@ -1154,7 +1202,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
         }
       }
       // the row's next live column
-      const nb = liveColumnFrom(c, g, b + 1);
+      const nb = viableColumnFrom(c, g, a, b + 1);
       if (nb < g.nb) gridPush(g, a, nb);
       g.yielded++;
       tryPair(c, g.t0 + a, g.b0 + b, kg);

@@ -6,11 +6,11 @@ import {
   c1EndMoments,
   c3EndMoments,
   chiLT,
-  chiLTGeneral,
+  chiValue,
   loadHeightZg,
   ltbCurveWelded,
   material,
-  mcr,
+  mcrOf,
   ALPHA,
   type BucklingCurve,
   type CheckOptions,
@@ -121,7 +121,8 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
   const reduced = (Mk: number, Mcr: number, curve: BucklingCurve): number => {
     const lambdaLT = Math.sqrt(Mk / Mcr);
     if (lambdaLT <= lambda0) return Mk;
-    const chi = rolled ? chiLT({ lambdaLT, alphaLT: ALPHA[curve], lambdaLT0: 0.4, beta: 0.75 }).chiLT : chiLTGeneral(lambdaLT, curve).chiLT;
+    // chiLTGeneral(λ̄, curve).chiLT is chi(λ̄, curve).chi: chiValue, without its objects
+    const chi = rolled ? chiLT({ lambdaLT, alphaLT: ALPHA[curve], lambdaLT0: 0.4, beta: 0.75 }).chiLT : chiValue(lambdaLT, curve);
     return chi * Mk;
   };
 
@@ -196,7 +197,7 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
         for (const sh of sg.shapes) {
           // the C3 of its range that makes C2·zg − C3·zj least
           const C3 = zj > 0 ? sh.C3 : sh.C3lo;
-          McrMax = Math.max(McrMax, mcr({ E: o.E, G: o.G, Iz: p.Iz, It: p.It, Iw: p.Iw, L: sg.L, C1: sh.C1, C2: sh.C2, C3, zg, zj }));
+          McrMax = Math.max(McrMax, mcrOf(o.E, o.G, p.Iz, p.It, p.Iw, sg.L, sh.C1, sh.C2, C3, zg, zj));
         }
         let Mk: number;
         if (sg.top) Mk = Number.isNaN(MkTop) ? (MkTop = wyFyBound(sec, p, true, m, throat)) : MkTop;
