@@ -227,6 +227,22 @@ describe('iyNeedRange', () => {
     sB: fc.double({ min: -1e7, max: 1e7, noNaN: true }),
     limit: fc.double({ min: 5, max: 100, noNaN: true }),
   });
+  test.prop([fc.array(pointArb, { minLength: 1, maxLength: 30 }), fc.double({ min: 0, max: 20, noNaN: true }), fc.double({ min: 0, max: 20, noNaN: true }), fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 0, max: 1, noNaN: true })], { numRuns: 300 })(
+    'over the points an enclosing range kept, a range within it gives the same answer as over every point',
+    (pts, a, b, u, v) => {
+      const [g0, g1] = [Math.min(a, b), Math.max(a, b)];
+      const lo = g0 + Math.min(u, v) * (g1 - g0);
+      const hi = g0 + Math.max(u, v) * (g1 - g0);
+      const f = (k: 'bA' | 'bB' | 'sA' | 'sB' | 'limit') => Float64Array.from(pts, (p) => p[k]);
+      const [bA, bB, sA, sB, limit] = [f('bA'), f('bB'), f('sA'), f('sB'), f('limit')];
+      const outer = iyNeedRange(g0, g1, bA, bB, sA, sB, limit, 12000, 210000, 81000);
+      const all = iyNeedRange(lo, hi, bA, bB, sA, sB, limit, 12000, 210000, 81000);
+      const some = iyNeedRange(lo, hi, bA, bB, sA, sB, limit, 12000, 210000, 81000, outer.points);
+      expect(some.lo).toBe(all.lo);
+      expect(some.hi).toBe(all.hi);
+      expect([...some.points]).toEqual([...all.points]);
+    },
+  );
   test.prop([fc.array(pointArb, { minLength: 1, maxLength: 30 }), fc.double({ min: 0, max: 20, noNaN: true }), fc.double({ min: 0, max: 20, noNaN: true }), fc.array(fc.double({ min: 0, max: 1, noNaN: true }), { minLength: 1, maxLength: 6 })], { numRuns: 300 })(
     'lo ≤ the requirement ≤ hi for every g of the range, and the kept points give the same requirement',
     (pts, g1, spread, ts) => {

@@ -153,14 +153,18 @@ export interface IyNeedRange {
  * least bend over the greatest room and the greatest bend over the least room (0 where it may not
  * bend downward, ∞ where the room may be gone). The requirement is at least the largest least
  * need and at most the largest greatest need, and a point whose greatest need is below that
- * largest least need never governs.
+ * largest least need never governs. With `only`, just those points are read: given the points an
+ * enclosing range kept, the answer for a range within it is the same as over every point (a point
+ * that never governs in the wider range has its greatest need below that range's largest least
+ * need, which the narrower range's can only exceed).
  */
-export function iyNeedRange(gLo: number, gHi: number, bA: Float64Array, bB: Float64Array, sA: Float64Array, sB: Float64Array, limit: Float64Array, Av: number, E: number, G: number): IyNeedRange {
-  const n = bA.length;
+export function iyNeedRange(gLo: number, gHi: number, bA: Float64Array, bB: Float64Array, sA: Float64Array, sB: Float64Array, limit: Float64Array, Av: number, E: number, G: number, only?: Int32Array): IyNeedRange {
+  const n = only ? only.length : bA.length;
   const most = new Float64Array(n);
   let lo = 0;
   let hi = 0;
-  for (let i = 0; i < n; i++) {
+  for (let k = 0; k < n; k++) {
+    const i = only ? only[k]! : k;
     const b0 = bA[i]! + gLo * bB[i]!;
     const b1 = bA[i]! + gHi * bB[i]!;
     const r0 = limit[i]! - (sA[i]! + gLo * sB[i]!) / (G * Av);
@@ -170,11 +174,11 @@ export function iyNeedRange(gLo: number, gHi: number, bA: Float64Array, bB: Floa
     const rMin = Math.min(r0, r1);
     const rMax = Math.max(r0, r1);
     const least = !(bMin > 0) ? 0 : rMax <= 0 ? Number.POSITIVE_INFINITY : bMin / (E * rMax);
-    most[i] = !(bMax > 0) ? 0 : rMin <= 0 ? Number.POSITIVE_INFINITY : bMax / (E * rMin);
+    most[k] = !(bMax > 0) ? 0 : rMin <= 0 ? Number.POSITIVE_INFINITY : bMax / (E * rMin);
     lo = Math.max(lo, least);
-    hi = Math.max(hi, most[i]!);
+    hi = Math.max(hi, most[k]!);
   }
   const keep: number[] = [];
-  for (let i = 0; i < n; i++) if (most[i]! >= lo) keep.push(i);
+  for (let k = 0; k < n; k++) if (most[k]! >= lo) keep.push(only ? only[k]! : k);
   return { lo, hi, points: Int32Array.from(keep) };
 }
