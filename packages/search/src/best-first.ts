@@ -104,6 +104,8 @@ interface Plate {
   fibBot: number;
   /** patch-loading utilisation per (top flange option, panel count) */
   patch: Float64Array | null;
+  /** the SLS points that can govern the deflection bound for some pair of flanges on this plate (iyNeedRange; made when first asked) */
+  iyPoints: Int32Array | null;
   /** per (top flange option, panel count): the least Mel,Rd the 7.2 floor lets pass (patchBendingMelNeed) */
   patchNeed: Float64Array | null;
   fit: Map<number, BearingFlat | null>;
@@ -594,6 +596,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       fibBot: fib(dem.hogAlways),
       patch: null,
       patchNeed: null,
+      iyPoints: null,
       fit: new Map(),
       orders: new Map(),
     };
@@ -898,10 +901,21 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
   /** The Iy the deflection bound asks over the run's self-weights, and the SLS points that can govern there (iyNeedRange). Once per run. */
   const iyRangeOf = (c: Extract<Node, { kind: 0 }>, da: NonNullable<typeof p.load.deflectionAffine>): IyNeedRange => {
     if (c.iyRange) return c.iyRange;
+    const w = c.plate.w;
+    // the points that can govern anywhere on the plate (its lightest to its heaviest pair of
+    // flanges), once per plate; a run's range lies within, so those points give its exact answer
+    const plate = c.plate;
+    if (!plate.iyPoints) {
+      const gLo = selfWeightOf(prep, w, lightestOption, lightestOption);
+      const gHi = selfWeightOf(prep, w, heaviestOption, heaviestOption);
+      plate.iyPoints = iyNeedRange(gLo, gHi, da.bA, da.bB, da.sA, da.sB, da.limit, w.hw * w.tw, o.E, o.G).points;
+    }
     const [gLo, gHi] = runSelfWeights(c);
-    c.iyRange = iyNeedRange(gLo, gHi, da.bA, da.bB, da.sA, da.sB, da.limit, c.plate.w.hw * c.plate.w.tw, o.E, o.G);
+    c.iyRange = iyNeedRange(gLo, gHi, da.bA, da.bB, da.sA, da.sB, da.limit, w.hw * w.tw, o.E, o.G, plate.iyPoints);
     return c.iyRange;
   };
+  const lightestOption = flanges.reduce((a, b) => (b.A < a.A ? b : a));
+  const heaviestOption = flanges.reduce((a, b) => (b.A > a.A ? b : a));
 
   /** Flange-induced buckling (EN 1993-1-5 8) rules out this flange as the one it limits, with any other. */
   const flangeFails = (c: Extract<Node, { kind: 0 }>, f: FlangeOption, lim: number): boolean => !fibOk(f, lim, c.plate.w.tw, throat0);
