@@ -10,3 +10,14 @@ export function verdict(id: CheckId, clause: string, utilisation: number, at: nu
   const u = Number.isFinite(utilisation) ? utilisation : Number.POSITIVE_INFINITY;
   return { id, clause, applies: true, utilisation: u, passes: u <= 1 + 1e-9, at, values };
 }
+
+/**
+ * Whether utilisation u governs over the worst found so far (null: none yet) when a check picks its
+ * governing station or case: the larger governs, and a value that is not a number governs and stays
+ * (it fails the check, wherever it comes: a plain u > worst would skip it unless it came first).
+ */
+export function governs(u: number, worst: number | null | undefined): boolean {
+  if (worst === null || worst === undefined) return true;
+  if (Number.isNaN(worst)) return false;
+  return Number.isNaN(u) || u > worst;
+}

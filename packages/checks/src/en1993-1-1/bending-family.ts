@@ -1,6 +1,6 @@
 import type { FlangeSide } from '../section.js';
 import type { CheckContext, CheckResult, CheckValue, Effects } from '../types.js';
-import { notApplicable, verdict } from '../result.js';
+import { governs, notApplicable, verdict } from '../result.js';
 import { bendingCheck, bendingForSign, envelopeAt, pickM, sideName, signsOf, type SignBending } from './bending.js';
 import { flangeInducedCheck } from '../en1993-1-5/flange-induced.js';
 import { patchBendingInteraction, patchForForce, patchLoadingCheck } from '../en1993-1-5/patch-loading.js';
@@ -115,7 +115,7 @@ function patchBendingCheck(ctx: CheckContext, e: Effects, bendingFor: (side: Fla
     const eta1 = Math.abs(MEd) / MRd;
     const eta2 = Math.abs(f.F) / r.FRd;
     const it = patchBendingInteraction(eta1, eta2);
-    if (!best || it.utilisation > best.u) {
+    if (governs(it.utilisation, best?.u)) {
       best = { u: it.utilisation, at: f.x, values: { eta1, eta2, interaction: it.value, limit: 1.4, MEd, MRdElastic: MRd, FRd: r.FRd, F: Math.abs(f.F) } };
     }
   }

@@ -1,6 +1,6 @@
 import type { FlangeSide } from '../section.js';
 import type { CheckContext, CheckResult, CheckValue, Effects, Station } from '../types.js';
-import { verdict } from '../result.js';
+import { governs, verdict } from '../result.js';
 import { effectiveSection, type EffectiveSection } from '../en1993-1-5/effective-section.js';
 import { classifySection, type SectionClassification } from './classification.js';
 
@@ -78,7 +78,7 @@ export function bendingCheck(ctx: CheckContext, e: Effects, per: ReadonlyMap<Fla
     const side: FlangeSide = per.has(want) ? want : [...per.keys()][0]!;
     const b = per.get(side)!;
     const u = Math.abs(st.MEd) / b.McRd;
-    if (u > worst.u || worst.at === null) worst = { u, at: st.x, side };
+    if (governs(u, worst.at === null ? null : worst.u)) worst = { u, at: st.x, side };
   }
   const gov = per.get(worst.side) ?? [...per.values()][0]!;
   const values: Record<string, CheckValue> = {

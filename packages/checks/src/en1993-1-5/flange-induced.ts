@@ -1,6 +1,6 @@
 import type { FlangeSide } from '../section.js';
 import type { CheckContext, CheckResult, CheckValue } from '../types.js';
-import { verdict } from '../result.js';
+import { governs, verdict } from '../result.js';
 import type { SignBending } from '../en1993-1-1/bending.js';
 
 /**
@@ -35,7 +35,7 @@ export function flangeInducedCheck(ctx: CheckContext, per: ReadonlyMap<FlangeSid
     const k = kFibFor(o.kFib, b.plastic);
     const limit = fibLimit({ k, E: o.E, fyf, Aw: s.hw * s.tw, Afc });
     const u = ratio / limit;
-    if (!best || u > best.u) {
+    if (governs(u, best?.u)) {
       best = {
         u,
         values: {

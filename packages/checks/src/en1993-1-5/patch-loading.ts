@@ -1,5 +1,5 @@
 import type { CheckContext, CheckResult, CheckValue, Effects } from '../types.js';
-import { notApplicable, verdict } from '../result.js';
+import { governs, notApplicable, verdict } from '../result.js';
 
 /**
  * Resistance to transverse forces, EN 1993-1-5:2006 (+AC:2009) section 6, eqs. 6.1–6.13.
@@ -128,7 +128,7 @@ export function patchLoadingCheck(ctx: CheckContext, e: Effects): CheckResult {
   for (const f of e.forces) {
     const r = patchForForce(ctx, f.x, f.ss);
     const u = Math.abs(f.F) / r.FRd;
-    if (!best || u > best.u) {
+    if (governs(u, best?.u)) {
       best = {
         u,
         at: f.x,

@@ -1,4 +1,4 @@
-import { notApplicable, verdict } from '../result.js';
+import { governs, notApplicable, verdict } from '../result.js';
 import { absAt, envelopeAt, pickM, pickV } from '../en1993-1-1/bending.js';
 import type { CheckContext, CheckResult, Effects, Station } from '../types.js';
 import { bearingStiffenerAt, rigidEndPost } from './end-post.js';
@@ -122,7 +122,7 @@ export function bendingShearCheck(ctx: CheckContext, panels: readonly PanelShear
   for (let i = 1; i < panels.length; i++) if (panels[i]!.panel.x0 < panels[i - 1]!.panel.x0 || panels[i]!.panel.x1 < panels[i - 1]!.panel.x1) ordered = false;
   const consider = (ps: PanelShear, st: Station): void => {
     const c = ps.needed ? stationInteraction71(ctx, ps, st) : stationInteraction628(ctx, st);
-    if (c.required && (worst === null || c.utilisation > worst.utilisation)) worst = c;
+    if (c.required && governs(c.utilisation, worst?.utilisation)) worst = c;
   };
   const visit = (st: Station): void => {
     const inside = (p: PanelShear) => st.x >= p.panel.x0 - 1e-9 && st.x <= p.panel.x1 + 1e-9;

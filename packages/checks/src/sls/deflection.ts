@@ -1,5 +1,5 @@
 import type { CheckContext, CheckResult, CheckValue, Effects } from '../types.js';
-import { notApplicable, verdict } from '../result.js';
+import { governs, notApplicable, verdict } from '../result.js';
 
 /**
  * Vertical deflection, EN 1990:2002 A1.4.3 and EN 1993-1-1:2005 7.2.1 (limits to be agreed with the
@@ -86,7 +86,7 @@ export function deflectionCheck(ctx: CheckContext, e: Effects): CheckResult {
       const span = spanAt(ctx.o.supports, p.x);
       const limit = span.L / lim.ratio;
       const u = Math.abs(delta) / limit;
-      if (!best || u > best.u) best = { u, at: p.x, values: { delta, limit, name: lim.name, ratio: lim.ratio, span: span.L, Iy: ctx.g.Iy, Av } };
+      if (governs(u, best?.u)) best = { u, at: p.x, values: { delta, limit, name: lim.name, ratio: lim.ratio, span: span.L, Iy: ctx.g.Iy, Av } };
     }
   }
   if (!best) return notApplicable('deflection', clause, 'no deflection points given');
