@@ -3,6 +3,7 @@ import {
   epsilon,
   firstAbove,
   flangeOutstand,
+  effectiveSection,
   c1EndMoments,
   c3EndMoments,
   chiLT,
@@ -14,6 +15,7 @@ import {
   ALPHA,
   type BucklingCurve,
   type CheckOptions,
+  type Material,
   type Section,
 } from '@platesmith/checks';
 import type { MomentRange } from './load.js';
@@ -154,7 +156,7 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
       // the set's members differ only in the other flange's width: the plates alone, one material
       const { hw, tw, top, bot } = widest;
       // one section, its other flange's width set member by member (nothing keeps it)
-      const sec: Plates3 = { hw, tw, top: { b: top.b, t: top.t }, bot: { b: bot.b, t: bot.t } };
+      const sec: Section = { ...widest, top: { b: top.b, t: top.t }, bot: { b: bot.b, t: bot.t } };
       const free = fixedTop ? sec.bot : sec.top;
       return overPlates(segs, others.length, (k) => ((free.b = others[k]!), sec), material(widest, o), stopAt);
     },
@@ -173,45 +175,96 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
    * some segment, not necessarily the same one. With stopAt, a member stops at the first segment
    * above it (already shown to fail), and the set at the first member not shown to fail.
    */
-  function overPlates(segs: readonly Segment[], count: number, member: (k: number) => Plates3, m: PlateStrengths, stopAt: number | undefined): number {
+  function overPlates(segs: readonly Segment[], count: number, member: (k: number) => Section, m: Material, stopAt: number | undefined): number {
     if (segs.length === 0 || count === 0) return 0;
     const limit = stopAt ?? Infinity;
+    let hasTop = false;
+    let hasBot = false;
+    for (const sg of segs) {
+      if (sg.top) hasTop = true;
+      else hasBot = true;
+    }
     let least = Infinity;
     for (let k = 0; k < count; k++) {
       const sec = member(k);
       const p = stackProps(sec, m.fyTop, m.fyBot, m.fyw);
-      let MkTop = Number.NaN;
-      let MkBot = Number.NaN;
       const zg = loadHeightZg({ o, g: p });
       const curve = ltbCurveWelded(p.h, Math.min(sec.top.b, sec.bot.b));
-      let zjTop = Number.NaN;
-      let zjBot = Number.NaN;
-      let uk = 0;
-      // segments most loaded first (segments() sorts them): the likeliest to show a failure soonest
-      for (let i = 0; i < segs.length && !(uk > limit); i++) {
-        const sg = segs[i]!;
-        let zj: number;
-        if (sg.top) zj = Number.isNaN(zjTop) ? (zjTop = zjOf(sec, p, 1)) : zjTop;
-        else zj = Number.isNaN(zjBot) ? (zjBot = zjOf(sec, p, -1)) : zjBot;
-        let McrMax = 0;
-        for (const sh of sg.shapes) {
-          // the C3 of its range that makes C2·zg − C3·zj least
-          const C3 = zj > 0 ? sh.C3 : sh.C3lo;
-          McrMax = Math.max(McrMax, mcrOf(o.E, o.G, p.Iz, p.It, p.Iw, sg.L, sh.C1, sh.C2, C3, zg, zj));
+      const zjTop = hasTop ? zjOf(sec, p, 1) : 0;
+      const zjBot = hasBot ? zjOf(sec, p, -1) : 0;
+      let MkTop = hasTop ? wyFyBound(sec, p, true, m, throat) : 0;
+      let MkBot = hasBot ? wyFyBound(sec, p, false, m, throat) : 0;
+      let uk = memberBound(segs, p, zg, curve, zjTop, zjBot, MkTop, MkBot, limit);
+      if (!(uk > limit)) {
+        // not shown to fail with the modulus bound: where the section is surely Class 4 for a
+        // sign, the check's own Meff (a smaller Wy fy can only raise the bound)
+        const eTop = hasTop ? class4Meff(sec, p, true, m) : Infinity;
+        const eBot = hasBot ? class4Meff(sec, p, false, m) : Infinity;
+        if (eTop < MkTop || eBot < MkBot) {
+          MkTop = Math.min(MkTop, eTop);
+          MkBot = Math.min(MkBot, eBot);
+          uk = memberBound(segs, p, zg, curve, zjTop, zjBot, MkTop, MkBot, limit);
         }
-        let Mk: number;
-        if (sg.top) Mk = Number.isNaN(MkTop) ? (MkTop = wyFyBound(sec, p, true, m, throat)) : MkTop;
-        else Mk = Number.isNaN(MkBot) ? (MkBot = wyFyBound(sec, p, false, m, throat)) : MkBot;
-        const Mb = sg.MEdLo / McrMax <= lambda0 * lambda0 * (1 + 1e-9) ? Mk : reduced(Mk, McrMax, curve);
-        if (!(Mb < Infinity)) return 0;
-        uk = Math.max(uk, (sg.MEdLo * o.factors.gammaM1) / Mb);
       }
+      if (Number.isNaN(uk)) return 0;
       least = Math.min(least, uk);
       // a member not shown to fail: the set is not all dead (and the bound is at most stopAt)
       if (stopAt !== undefined && !(least > limit)) return least;
     }
     return least;
   }
+
+  /** One member's bound: the largest over the segments (most loaded first) of MEd,lo·γM1 over its largest Mb,Rd there; stops above `limit`. NaN when some Mb,Rd is not finite. */
+  function memberBound(segs: readonly Segment[], p: ReturnType<typeof stackProps>, zg: number, curve: BucklingCurve, zjTop: number, zjBot: number, MkTop: number, MkBot: number, limit: number): number {
+    let uk = 0;
+    for (let i = 0; i < segs.length && !(uk > limit); i++) {
+      const sg = segs[i]!;
+      const zj = sg.top ? zjTop : zjBot;
+      let McrMax = 0;
+      for (const sh of sg.shapes) {
+        // the C3 of its range that makes C2·zg − C3·zj least
+        const C3 = zj > 0 ? sh.C3 : sh.C3lo;
+        McrMax = Math.max(McrMax, mcrOf(o.E, o.G, p.Iz, p.It, p.Iw, sg.L, sh.C1, sh.C2, C3, zg, zj));
+      }
+      const Mk = sg.top ? MkTop : MkBot;
+      const Mb = sg.MEdLo / McrMax <= lambda0 * lambda0 * (1 + 1e-9) ? Mk : reduced(Mk, McrMax, curve);
+      if (!(Mb < Infinity)) return Number.NaN;
+      uk = Math.max(uk, (sg.MEdLo * o.factors.gammaM1) / Mb);
+    }
+    return uk;
+  }
+
+  /**
+   * The check's Wy fy for a sign where the section is surely Class 4 (beyond the Class 3 limit of
+   * the compression flange or of the web by more than round-off): Meff of effectiveSection, the
+   * very computation bendingForSign makes for Class 4 (same section, material and throat), with a
+   * hair of margin. Infinity where it is not surely Class 4.
+   */
+  function class4Meff(sec: Section, p: ReturnType<typeof stackProps>, top: boolean, m: Material): number {
+    const zc = p.zElastic;
+    const zw0 = sec.bot.t;
+    const zw1 = sec.bot.t + sec.hw;
+    const flange = top ? sec.top : sec.bot;
+    const fyF = top ? m.fyTop : m.fyBot;
+    let sure = flangeOutstand(flange, sec.tw, fyF, throat).c / flange.t > 14 * epsilon(fyF) * (1 + 1e-9);
+    // the check's web is Class 1 when the plastic neutral axis leaves none of it in compression
+    const webCompressed = top ? p.zPlastic < zw1 - 1e-9 * sec.hw : p.zPlastic > zw0 + 1e-9 * sec.hw;
+    if (!sure && webCompressed && (top ? zc < zw1 : zc > zw0)) {
+      // Table 5.2 Class 3 limit of the web at ψ from the gross section (as classifySection), the
+      // largest within a hair of ψ (the limit falls with ψ above −1, rises as ψ falls below, and
+      // jumps at −1 from 123.5ε to 124ε)
+      const psi = top ? (zw0 - zc) / (zw1 - zc) : (zw1 - zc) / (zw0 - zc);
+      const eW = epsilon(m.fyw);
+      const l3 = (q: number): number => (q > -1 ? (42 * eW) / (0.67 + 0.33 * q) : 62 * eW * (1 - q) * Math.sqrt(-q));
+      const d = 1e-9 * Math.max(1, Math.abs(psi));
+      let lim = Math.max(l3(psi - d), l3(psi), l3(psi + d));
+      if (psi - d <= -1 && psi + d > -1) lim = Math.max(lim, l3(-1), (42 * eW) / (0.67 - 0.33));
+      sure = sec.hw / sec.tw > lim * (1 + 1e-9);
+    }
+    if (!sure) return Infinity;
+    return effectiveSection(sec, m, top ? 'top' : 'bot', throat).Meff * (1 + 1e-12);
+  }
+
 }
 
 /**
