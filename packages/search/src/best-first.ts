@@ -104,6 +104,8 @@ interface Plate {
   fibBot: number;
   /** patch-loading utilisation per (top flange option, panel count) */
   patch: Float64Array | null;
+  /** per top flange option: rowPatchNeed's answer (NaN until asked) */
+  rowNeed: Float64Array | null;
   /** the SLS points that can govern the deflection bound for some pair of flanges on this plate (iyNeedRange; made when first asked) */
   iyPoints: Int32Array | null;
   /** per (top flange option, panel count): the least Mel,Rd the 7.2 floor lets pass (patchBendingMelNeed) */
@@ -597,6 +599,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       patch: null,
       patchNeed: null,
       iyPoints: null,
+      rowNeed: null,
       fit: new Map(),
       orders: new Map(),
     };
@@ -1051,6 +1054,29 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     }
     return g.nb;
   };
+  /**
+   * Patch loading of top option ti on a plate, over its panel counts: the least Mel,Rd the 7.2 floor
+   * needs on the counts that pass 6.4; −1 when none passes 6.4, −2 when none that does leaves room
+   * for the floor. Once per plate and option (the runs of every bottom thickness share it).
+   */
+  const rowPatchNeed = (plate: Plate, ti: number): number => {
+    const memo = (plate.rowNeed ??= new Float64Array(nFlange).fill(Number.NaN));
+    let need = memo[ti]!;
+    if (Number.isNaN(need)) {
+      need = Infinity;
+      let any = false;
+      for (const np of plate.panelCounts) {
+        const key = patchTables(plate, ti, np);
+        if (plate.patch![key]! <= 1 + 1e-9) {
+          any = true;
+          need = Math.min(need, plate.patchNeed![key]!);
+        }
+      }
+      if (need === Infinity) need = any ? -2 : -1;
+      memo[ti] = need;
+    }
+    return need;
+  };
   /** The first live column at or after j whose pair with row a meets the row's 7.2 floor (pairs below it counted), or nb. */
   const viableColumnFrom = (c: Extract<Node, { kind: 0 }>, g: Grid, a: number, j: number): number => {
     const need = g.rowMel[a]!;
@@ -1074,19 +1100,10 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       return;
     }
     if (forces.length > 0) {
-      // 6.4 on every panel count; the least Mel,Rd the 7.2 floor needs on the counts that pass it
-      let need = Infinity;
-      let any = false;
-      for (const np of c.plate.panelCounts) {
-        const key = patchTables(c.plate, ti, np);
-        if (c.plate.patch![key]! <= 1 + 1e-9) {
-          any = true;
-          need = Math.min(need, c.plate.patchNeed![key]!);
-        }
-      }
-      if (need === Infinity) {
-        // no count passes 6.4, or none that does leaves room for the 7.2 floor
-        g.out[any ? GRID_OUT.PATCH_BENDING : GRID_OUT.PATCH]! += nb;
+      const need = rowPatchNeed(c.plate, ti);
+      if (need < 0) {
+        // no count passes 6.4 (−1), or none that does leaves room for the 7.2 floor (−2)
+        g.out[need === -1 ? GRID_OUT.PATCH : GRID_OUT.PATCH_BENDING]! += nb;
         return;
       }
       g.rowMel[i] = need;
