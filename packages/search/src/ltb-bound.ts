@@ -185,9 +185,11 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
       else hasBot = true;
     }
     let least = Infinity;
+    // one scratch for every member (nothing keeps it past the member)
+    const p = stackScratch();
     for (let k = 0; k < count; k++) {
       const sec = member(k);
-      const p = stackProps(sec, m.fyTop, m.fyBot, m.fyw);
+      stackProps(sec, m.fyTop, m.fyBot, m.fyw, p);
       const zg = loadHeightZg({ o, g: p });
       const curve = ltbCurveWelded(p.h, Math.min(sec.top.b, sec.bot.b));
       const zjTop = hasTop ? zjOf(sec, p, 1) : 0;
@@ -215,7 +217,7 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
   }
 
   /** One member's bound: the largest over the segments (most loaded first) of MEd,lo·γM1 over its largest Mb,Rd there; stops above `limit`. NaN when some Mb,Rd is not finite. */
-  function memberBound(segs: readonly Segment[], p: ReturnType<typeof stackProps>, zg: number, curve: BucklingCurve, zjTop: number, zjBot: number, MkTop: number, MkBot: number, limit: number): number {
+  function memberBound(segs: readonly Segment[], p: StackProps, zg: number, curve: BucklingCurve, zjTop: number, zjBot: number, MkTop: number, MkBot: number, limit: number): number {
     let uk = 0;
     for (let i = 0; i < segs.length && !(uk > limit); i++) {
       const sg = segs[i]!;
@@ -240,7 +242,7 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
    * very computation bendingForSign makes for Class 4 (same section, material and throat), with a
    * hair of margin. Infinity where it is not surely Class 4.
    */
-  function class4Meff(sec: Section, p: ReturnType<typeof stackProps>, top: boolean, m: Material): number {
+  function class4Meff(sec: Section, p: StackProps, top: boolean, m: Material): number {
     const zc = p.zElastic;
     const zw0 = sec.bot.t;
     const zw1 = sec.bot.t + sec.hw;
@@ -276,7 +278,7 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
  * which lowers I over that distance (provided the whole flange lies on the compression side of
  * the gross neutral axis; else Mpl).
  */
-export function wyFyBound(sec: Plates3, p: ReturnType<typeof stackProps>, top: boolean, m: PlateStrengths, throat: number): number {
+export function wyFyBound(sec: Plates3, p: StackProps, top: boolean, m: PlateStrengths, throat: number): number {
   const zc = p.zElastic;
   const zw0 = sec.bot.t;
   const zw1 = sec.bot.t + sec.hw;
@@ -307,12 +309,31 @@ export function wyFyBound(sec: Plates3, p: ReturnType<typeof stackProps>, top: b
  * (the shear centre of grossProps' formula; the centroid and Iy of the plate stack): what zg and
  * zj read.
  */
-export function stackProps(
-  s: Plates3,
-  fyTop: number,
-  fyBot: number,
-  fyw: number,
-): { h: number; zElastic: number; zPlastic: number; Iy: number; zShear: number; Iz: number; It: number; Iw: number; Mpl: number } {
+export interface StackProps {
+  h: number;
+  zElastic: number;
+  zPlastic: number;
+  Iy: number;
+  zShear: number;
+  Iz: number;
+  It: number;
+  Iw: number;
+  Mpl: number;
+}
+
+/** A StackProps to fill again and again (stackProps' `out`). */
+export function stackScratch(): StackProps {
+  return { h: 0, zElastic: 0, zPlastic: 0, Iy: 0, zShear: 0, Iz: 0, It: 0, Iw: 0, Mpl: 0 };
+}
+
+/** Plastic moment of one plate [lo, hi] at strength f about the plastic neutral axis zp. */
+function plasticPart(b: number, f: number, lo: number, hi: number, zp: number): number {
+  if (hi <= zp) return b * f * (hi - lo) * (zp - (lo + hi) / 2);
+  if (lo >= zp) return b * f * (hi - lo) * ((lo + hi) / 2 - zp);
+  return (b * f * ((zp - lo) * (zp - lo) + (hi - zp) * (hi - zp))) / 2;
+}
+
+export function stackProps(s: Plates3, fyTop: number, fyBot: number, fyw: number, out: StackProps = stackScratch()): StackProps {
   // three rectangles from the bottom: bottom flange, web, top flange (width, z0, z1, fy)
   const tb = s.bot.t;
   const tt = s.top.t;
@@ -342,38 +363,22 @@ export function stackProps(
   if (F0 >= half) zp = half / (b0 * fyBot);
   else if (F0 + F1 >= half) zp = z1 + (half - F0) / (b1 * fyw);
   else zp = z2 + (half - F0 - F1) / (b2 * fyTop);
-  const part = (b: number, f: number, lo: number, hi: number): number => {
-    if (hi <= zp) return b * f * (hi - lo) * (zp - (lo + hi) / 2);
-    if (lo >= zp) return b * f * (hi - lo) * ((lo + hi) / 2 - zp);
-    return (b * f * ((zp - lo) * (zp - lo) + (hi - zp) * (hi - zp))) / 2;
-  };
-  const Mpl = part(b0, fyBot, 0, z1) + part(b1, fyw, z1, z2) + part(b2, fyTop, z2, h);
-  return {
-    h,
-    zElastic: zc,
-    zPlastic: zp,
-    Iy,
-    zShear: tb / 2 + (hs * IzTop) / (IzTop + IzBot),
-    Iz: IzTop + IzBot + (s.hw * s.tw * s.tw * s.tw) / 12,
-    It: (b2 * tt * tt * tt + b0 * tb * tb * tb + s.hw * s.tw * s.tw * s.tw) / 3,
-    Iw: (IzTop * IzBot * hs * hs) / (IzTop + IzBot),
-    Mpl,
-  };
+  out.h = h;
+  out.zElastic = zc;
+  out.zPlastic = zp;
+  out.Iy = Iy;
+  out.zShear = tb / 2 + (hs * IzTop) / (IzTop + IzBot);
+  out.Iz = IzTop + IzBot + (s.hw * s.tw * s.tw * s.tw) / 12;
+  out.It = (b2 * tt * tt * tt + b0 * tb * tb * tb + s.hw * s.tw * s.tw * s.tw) / 3;
+  out.Iw = (IzTop * IzBot * hs * hs) / (IzTop + IzBot);
+  out.Mpl = plasticPart(b0, fyBot, 0, z1, zp) + plasticPart(b1, fyw, z1, z2, zp) + plasticPart(b2, fyTop, z2, h, zp);
+  return out;
 }
 
 /** wagnerZj of the check library without its temporary objects (sgn +1: top flange in compression). */
 export function zjOf(s: Plates3, g: { zElastic: number; h: number; Iy: number; zShear: number }, sgn: 1 | -1): number {
   const zc = g.zElastic;
-  const term = (z0: number, z1: number, b: number): number => {
-    const a = sgn * (z0 - zc);
-    const c = sgn * (z1 - zc);
-    const lo = Math.min(a, c);
-    const hi = Math.max(a, c);
-    const h2 = hi * hi;
-    const l2 = lo * lo;
-    return ((b * b * b) / 12) * (hi - lo) * ((lo + hi) / 2) + (b * (h2 * h2 - l2 * l2)) / 4;
-  };
-  const integral = term(0, s.bot.t, s.bot.b) + term(s.bot.t, s.bot.t + s.hw, s.tw) + term(s.bot.t + s.hw, g.h, s.top.b);
+  const integral = zjTerm(0, s.bot.t, s.bot.b, zc, sgn) + zjTerm(s.bot.t, s.bot.t + s.hw, s.tw, zc, sgn) + zjTerm(s.bot.t + s.hw, g.h, s.top.b, zc, sgn);
   return sgn * (g.zShear - zc) - integral / (2 * g.Iy);
 }
 
@@ -437,4 +442,15 @@ function segmentBound(xs: Float64Array, lo: Float64Array, hi: Float64Array, x0: 
     shapes.push(UDL, POINT);
   }
   return { MEdLo, shapes };
+}
+
+/** One plate's ∫ z(y² + z²) dA about the centroid zc (z positive towards the compression flange: sgn). */
+function zjTerm(z0: number, z1: number, b: number, zc: number, sgn: 1 | -1): number {
+  const a = sgn * (z0 - zc);
+  const c = sgn * (z1 - zc);
+  const lo = Math.min(a, c);
+  const hi = Math.max(a, c);
+  const h2 = hi * hi;
+  const l2 = lo * lo;
+  return ((b * b * b) / 12) * (hi - lo) * ((lo + hi) / 2) + (b * (h2 * h2 - l2 * l2)) / 4;
 }
