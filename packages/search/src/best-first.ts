@@ -171,6 +171,8 @@ interface Grid {
   yielded: number;
   /** pairs ruled out without being taken, by reason (GRID_OUT) */
   out: Float64Array;
+  /** the first column any row can use (the bending and deflection bounds with the widest row) */
+  col0: number;
 }
 
 /** Why a grid's pairs were ruled out without being taken (Grid.out). */
@@ -1034,8 +1036,37 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       hn: 0,
       yielded: 0,
       out: new Float64Array(6),
+      col0: 0,
     };
     c.grid = g;
+    // the rows and columns no pair of which meets the bending and deflection bounds, at once: a
+    // row fails them with every column when it fails them with the widest (area and Iy grow with
+    // either width), so those rows are a prefix; likewise the columns that fail with the widest row
+    const w = c.plate.w;
+    const T = groups[c.gt]!.options;
+    const B = groups[c.gb]!.options;
+    const meets = (t: FlangeOption, b: FlangeOption): 0 | 1 | 2 =>
+      t.A * t.fy + b.A * b.fy < c.Freq ? 1 : iyNeed > 0 && iyOfPlates(w.hw, w.tw, t.b, t.t, b.b, b.t) * (1 + 1e-9) < iyNeed ? 2 : 0;
+    let lo = 0;
+    let hi = nt;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (meets(T[mid]!, B[nb - 1]!) !== 0) lo = mid + 1;
+      else hi = mid;
+    }
+    for (let i = 0; i < lo; i++) g.out[meets(T[i]!, B[nb - 1]!) === 1 ? GRID_OUT.BENDING : GRID_OUT.DEFLECTION]! += nb;
+    g.nextRow = lo;
+    if (lo < nt) {
+      let l = 0;
+      let h = nb;
+      while (l < h) {
+        const mid = (l + h) >> 1;
+        if (meets(T[nt - 1]!, B[mid]!) !== 0) l = mid + 1;
+        else h = mid;
+      }
+      // every row's own bisection starts at or beyond it (its first column is at least this one)
+      g.col0 = l;
+    }
     return g;
   };
   /** The first live column at or after j (judging columns as it goes; the pairs of row-to-be skipped over dead ones are counted), or nb. */
@@ -1197,7 +1228,8 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
   const advanceGrid = (c: Extract<Node, { kind: 0 }>): void => {
     const g = gridOf(c);
     const { plate, d } = c;
-    const mB0 = g.mB[0]!;
+    // a row's lightest conceivable pair: with the first column any row can use
+    const mB0 = g.mB[g.col0]!;
     for (;;) {
       const rowKg = g.nextRow < g.nt ? g.mT[g.nextRow]! + mB0 : Infinity;
       const pairKg = g.hn > 0 ? g.hk[0]! : Infinity;
