@@ -77,7 +77,7 @@ describe('wyFyBound: the modulus the bound takes for Wy fy', () => {
     bb: fc.integer({ min: 120, max: 800 }),
     tb: fc.constantFrom(8, 10, 12, 15, 20, 25, 30, 40, 50, 60),
     grades: fc.constantFrom(['S235', 'S235', 'S235'], ['S355', 'S355', 'S355'], ['S355', 'S460', 'S460'], ['S460', 'S355', 'S275']) as fc.Arbitrary<('S235' | 'S275' | 'S355' | 'S460')[]>,
-    throats: fc.constantFrom([4], [5, 7], [3, 6, 8]),
+    throats: fc.constantFrom<number[]>([4], [5, 7], [3, 6, 8]),
   });
   let reduced = 0;
   test.prop([sectionArb], { numRuns: 600 })('is never below the check\'s Mc,Rd·γM0 for either sign, whatever the class (consistency property)', (c) => {
