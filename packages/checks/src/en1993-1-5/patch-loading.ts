@@ -154,16 +154,9 @@ export function patchBendingInteraction(eta1: number, eta2: number): { value: nu
  * the search that is exact: a candidate with a value above 1 fails 'patch-loading'.
  * panels: the web's panels (x0, x1, a), as panelsOf gives them; forces F in N, ss in mm.
  */
-export function patchUtilisation(
-  forces: readonly { x: number; F: number; ss: number }[],
-  web: { hw: number; tw: number; fyw: number },
-  top: { b: number; t: number; fy: number },
-  panels: readonly { x0: number; x1: number; a: number }[],
-  E: number,
-  gammaM1: number,
-): number {
+export function patchUtilisation(...args: Parameters<typeof patchEta2s>): number {
   let u = 0;
-  for (const e of patchEta2s(forces, web, top, panels, E, gammaM1)) u = Math.max(u, e);
+  for (const e of patchEta2s(...args)) u = Math.max(u, e);
   return u;
 }
 
