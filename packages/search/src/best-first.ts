@@ -703,24 +703,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     if (ps.MelRd === 0) ps.MelRd = melRd(ps.plate.w, ps.T, ps.B);
     return ps.MelRd;
   };
-  const melRd = (w: WebConfig, T: FlangeOption, B: FlangeOption): number => {
-    {
-      const z1 = B.t;
-      const z2 = B.t + w.hw;
-      const h = z2 + T.t;
-      const A0 = B.b * B.t;
-      const A1 = w.tw * w.hw;
-      const A2 = T.b * T.t;
-      const zc = (A0 * (z1 / 2) + A1 * ((z1 + z2) / 2) + A2 * ((z2 + h) / 2)) / (A0 + A1 + A2);
-      const d0 = z1 / 2 - zc;
-      const d1 = (z1 + z2) / 2 - zc;
-      const d2 = (z2 + h) / 2 - zc;
-      const I = (A0 * B.t * B.t) / 12 + A0 * d0 * d0 + (A1 * w.hw * w.hw) / 12 + A1 * d1 * d1 + (A2 * T.t * T.t) / 12 + A2 * d2 * d2;
-      // first yield: each plate's farthest fibre at its own fy
-      const M = Math.min((B.fy * I) / Math.max(zc, Math.abs(z1 - zc)), (w.fyw * I) / Math.max(Math.abs(z1 - zc), Math.abs(z2 - zc)), (T.fy * I) / Math.max(Math.abs(z2 - zc), h - zc));
-      return M / o.factors.gammaM0;
-    }
-  };
+  const melRd = (w: WebConfig, T: FlangeOption, B: FlangeOption): number => plateStackMel(w, T, B) / o.factors.gammaM0;
   /** Whether a panel count passes the patch-loading bounds on these plates: 6.4 and the 7.2 floor (from the plate's tables). */
   const panelOk = (ps: Plates, np: number): boolean => {
     if (forces.length === 0) return true;
@@ -1452,6 +1435,26 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     .sort((x, y) => x.verdict.governing.utilisation - y.verdict.governing.utilisation)
     .slice(0, 5);
   return { front: [...stairs], nearMisses, spaceSize, fullEvaluations, pruned, failedBy };
+}
+
+/**
+ * Mel (N·mm, no partial factor) of the gross section of a web plate and two flanges, each plate at
+ * its own fy: the first yield of any plate's farthest fibre, as grossProps(·).Mel computes it from
+ * the same three rectangles (to round-off; a property test keeps them equal).
+ */
+export function plateStackMel(w: Pick<WebConfig, 'hw' | 'tw' | 'fyw'>, T: Pick<FlangeOption, 'b' | 't' | 'fy'>, B: Pick<FlangeOption, 'b' | 't' | 'fy'>): number {
+  const z1 = B.t;
+  const z2 = B.t + w.hw;
+  const h = z2 + T.t;
+  const A0 = B.b * B.t;
+  const A1 = w.tw * w.hw;
+  const A2 = T.b * T.t;
+  const zc = (A0 * (z1 / 2) + A1 * ((z1 + z2) / 2) + A2 * ((z2 + h) / 2)) / (A0 + A1 + A2);
+  const d0 = z1 / 2 - zc;
+  const d1 = (z1 + z2) / 2 - zc;
+  const d2 = (z2 + h) / 2 - zc;
+  const I = (A0 * B.t * B.t) / 12 + A0 * d0 * d0 + (A1 * w.hw * w.hw) / 12 + A1 * d1 * d1 + (A2 * T.t * T.t) / 12 + A2 * d2 * d2;
+  return Math.min((B.fy * I) / Math.max(zc, Math.abs(z1 - zc)), (w.fyw * I) / Math.max(Math.abs(z1 - zc), Math.abs(z2 - zc)), (T.fy * I) / Math.max(Math.abs(z2 - zc), h - zc));
 }
 
 /** An upper bound on the self-weight per length of any candidate, kg/mm (for the demand range). */

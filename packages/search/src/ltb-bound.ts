@@ -40,9 +40,10 @@ import type { MomentRange } from './load.js';
  *   end of its range lowers that term).
  * - Section properties (Iz, It, Iw, Mpl, zj, zg, h/b) are those of each plate of the set, by the
  *   closed forms grossProps uses (to round-off; the search's margin on the bound is 1e-6).
- * - Wy fy [Mpl, Mel or Meff by the class]: at most Mpl; and where the section is surely Class 3
+ * - Wy fy [Mpl, Mel or Meff by the class]: at most Mpl; where the section is surely Class 3
  *   or 4 for that sign, at most fy of the compression flange times the gross Iy over the distance
- *   from the neutral axis to its extreme fibre (wyFyBound).
+ *   from the neutral axis to its extreme fibre (wyFyBound); and where it is surely Class 4 and that
+ *   has not shown the member failing, the check's own Meff (class4Meff).
  * - Mb,Rd = χLT(λ̄LT)·Wy fy/γM1 with λ̄LT = √(Wy fy/Mcr) grows with Mcr (χ falls with λ̄) and with
  *   Wy fy for a fixed Mcr (χ·λ̄² grows with λ̄ on both curves used; a test checks it on a fine
  *   grid). Where the reduction may be ignored (MEd/Mcr ≤ λ̄LT,0² possible), Mb,Rd ≤ Wy fy/γM1.
@@ -266,7 +267,6 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
     if (!sure) return Infinity;
     return effectiveSection(sec, m, top ? 'top' : 'bot', throat).Meff * (1 + 1e-12);
   }
-
 }
 
 /**
