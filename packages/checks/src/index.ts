@@ -62,7 +62,7 @@ export { rigidEndPost, bearingCrushing } from './en1993-1-5/end-post.js';
 
 // EN 1993-1-1 bending family and the clauses beneath it
 export { bendingChecks } from './en1993-1-1/bending-family.js';
-export { classifyOutstand, classifyWebBending, classifyWebBendingCompression, classifyInternalCompression, classifySection } from './en1993-1-1/classification.js';
+export { classifyOutstand, classifyWebBending, classifyWebBendingCompression, webClass2Limit, webClass3Limit, classifyInternalCompression, classifySection } from './en1993-1-1/classification.js';
 export { bendingForSign, bracket, firstAbove, envelopeAt, wplDoublySymmetric, iyDoublySymmetric, signsOf, type SignBending } from './en1993-1-1/bending.js';
 export { kSigmaInternal, kSigmaOutstand, lambdaP, rhoInternal, rhoOutstand, internalEffectiveWidths, effectiveSection } from './en1993-1-5/effective-section.js';
 export { kF, patchResistance, patchBendingInteraction, patchUtilisation, patchEta2s, patchBendingMelNeed, patchBendingFloor, type PatchType, type PatchInput, type PatchResult } from './en1993-1-5/patch-loading.js';

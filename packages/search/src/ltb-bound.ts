@@ -4,6 +4,8 @@ import {
   firstAbove,
   flangeOutstand,
   effectiveSection,
+  webClass2Limit,
+  webClass3Limit,
   c1EndMoments,
   c3EndMoments,
   chiLT,
@@ -258,7 +260,7 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
       // jumps at −1 from 123.5ε to 124ε)
       const psi = top ? (zw0 - zc) / (zw1 - zc) : (zw1 - zc) / (zw0 - zc);
       const eW = epsilon(m.fyw);
-      const l3 = (q: number): number => (q > -1 ? (42 * eW) / (0.67 + 0.33 * q) : 62 * eW * (1 - q) * Math.sqrt(-q));
+      const l3 = (q: number): number => webClass3Limit(eW, q);
       const d = 1e-9 * Math.max(1, Math.abs(psi));
       let lim = Math.max(l3(psi - d), l3(psi), l3(psi + d));
       if (psi - d <= -1 && psi + d > -1) lim = Math.max(lim, l3(-1), (42 * eW) / (0.67 - 0.33));
@@ -295,7 +297,7 @@ export function wyFyBound(sec: Plates3, p: StackProps, top: boolean, m: PlateStr
       // limit of any α within a hair of this one is the limit at α − a hair (at least 83ε at 0.5)
       const a = alpha * (1 - 1e-9);
       const eW = epsilon(m.fyw);
-      const lim = a > 0.5 ? (456 * eW) / (13 * a - 1) : (41.5 * eW) / a;
+      const lim = webClass2Limit(eW, a);
       slender = sec.hw / sec.tw > lim * (1 + 1e-9);
     }
   }

@@ -55,11 +55,19 @@ export function classifyInternalCompression(c: number, t: number, eps: number): 
 export function classifyWebBendingCompression(c: number, t: number, eps: number, alpha: number, psi: number): PartClassification {
   if (Math.abs(alpha - 0.5) < 1e-12 && Math.abs(psi + 1) < 1e-12) return classifyWebBending(c, t, eps);
   const l1 = alpha > 0.5 ? (396 * eps) / (13 * alpha - 1) : (36 * eps) / alpha;
-  const l2 = alpha > 0.5 ? (456 * eps) / (13 * alpha - 1) : (41.5 * eps) / alpha;
-  const l3 = psi > -1 ? (42 * eps) / (0.67 + 0.33 * psi) : 62 * eps * (1 - psi) * Math.sqrt(-psi);
-  const limits: [number, number, number] = [l1, l2, l3];
+  const limits: [number, number, number] = [l1, webClass2Limit(eps, alpha), webClass3Limit(eps, psi)];
   const cOverT = c / t;
   return { cOverT, limits, cls: classOf(cOverT, limits) };
+}
+
+/** Table 5.2 sheet 1, bending and compression: the Class 2 limit of c/t, 456ε/(13α − 1) for α > 0.5, else 41.5ε/α. */
+export function webClass2Limit(eps: number, alpha: number): number {
+  return alpha > 0.5 ? (456 * eps) / (13 * alpha - 1) : (41.5 * eps) / alpha;
+}
+
+/** Table 5.2 sheet 1, bending and compression: the Class 3 limit of c/t, 42ε/(0.67 + 0.33ψ) for ψ > −1, else 62ε(1 − ψ)√(−ψ). */
+export function webClass3Limit(eps: number, psi: number): number {
+  return psi > -1 ? (42 * eps) / (0.67 + 0.33 * psi) : 62 * eps * (1 - psi) * Math.sqrt(-psi);
 }
 
 export interface SectionClassification {
