@@ -146,6 +146,29 @@ describe('functions the search relies on', () => {
     },
   );
 
+  test.prop(
+    [
+      sectionArb,
+      fc.array(fc.record({ x: fc.integer({ min: 500, max: 15500 }), F: fc.double({ min: 2e4, max: 1.5e6, noNaN: true }), ss: fc.constantFrom(0, 100, 250) }), { minLength: 1, maxLength: 3 }),
+      fc.array(fc.integer({ min: 100, max: 900 }), { minLength: 2, maxLength: 8 }),
+      fc.constantFrom(235, 275, 345, 355, 440, 460),
+    ],
+    { numRuns: 300 },
+  )('patchEta2s never rises as the loaded flange widens (its thickness and fy fixed): the search drops a run when its widest top flange fails 6.4', (r, fs, widths, fyf) => {
+    const s = sectionOf(r);
+    const o = defaultOptions(16000);
+    const panels = panelsOf(o.supports, s.stiffeners?.a ?? null).panels;
+    const web = { hw: s.hw, tw: s.tw, fyw: fy('S355', s.tw) };
+    const bs = [...widths].sort((x, y) => x - y);
+    let prev: Float64Array | null = null;
+    for (const b of bs) {
+      const etas = patchEta2s(fs, web, { b, t: s.top.t, fy: fyf }, panels, o.E, o.factors.gammaM1);
+      // the same operations on a wider flange: never a larger η2, to round-off
+      if (prev) for (let i = 0; i < etas.length; i++) expect(etas[i]!).toBeLessThanOrEqual(prev[i]! * (1 + 1e-12));
+      prev = etas;
+    }
+  });
+
   test.prop([sectionArb, loadArb], { numRuns: 300 })('a section with Iy below minIyForDeflection fails deflection', (r, l) => {
     const s = sectionOf(r);
     const e = effectsOf(l.L, l.w, 0, true);

@@ -228,6 +228,8 @@ type Node =
       grid?: Grid;
       /** the deflection bound's Iy over the run's self-weights (iyRangeOf) */
       iyRange?: IyNeedRange;
+      /** popped before (the run-level bounds were asked at its first pop) */
+      opened: boolean;
     }
   | { kind: 1; lb: number; seq: number; ps: Plates }
   | { kind: 2; lb: number; seq: number; ps: Plates };
@@ -660,7 +662,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       const fibT = plate.fibTop === Infinity ? Infinity : plate.fibTop / (GT.fy * GT.fy);
       const fibB = plate.fibBot === Infinity ? Infinity : plate.fibBot / (GB.fy * GB.fy);
       // every field from the start: one object shape for all runs (the heap reads many of them)
-      heap.push({ kind: 0, lb, seq: seq++, plate, pairs, k, d, Freq, fibT, fibB, gt, gb, ltbTop: undefined, ltbBot: undefined, segsTop: undefined, segsBot: undefined, block: undefined, grid: undefined, iyRange: undefined });
+      heap.push({ kind: 0, lb, seq: seq++, plate, pairs, k, d, Freq, fibT, fibB, gt, gb, ltbTop: undefined, ltbBot: undefined, segsTop: undefined, segsBot: undefined, block: undefined, grid: undefined, iyRange: undefined, opened: false });
     }
   }
 
@@ -1102,6 +1104,19 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     }
     return need;
   };
+  /**
+   * Whether every pair of run c fails patch loading (6.4) on every panel count: its widest top
+   * option does. η2 never rises as the loaded flange widens with its thickness and fy fixed (ℓy
+   * grows with m1, and FRd with ℓy, through either branch of m2; a property test in the check
+   * library), so every narrower option of the group fails where the widest does — judged with a
+   * hair more than the per-pair test's margin, which covers the round-off of that comparison.
+   */
+  const runFailsPatch = (c: Extract<Node, { kind: 0 }>): boolean => {
+    if (forces.length === 0) return false;
+    const widest = groupStart[c.gt]! + groups[c.gt]!.options.length - 1;
+    for (const np of c.plate.panelCounts) if (!(patchOf(c.plate, widest, np) > (1 + 1e-9) * (1 + 1e-12))) return false;
+    return true;
+  };
   /** The first live column at or after j whose pair with row a meets the row's 7.2 floor (pairs below it counted), or nb. */
   const viableColumnFrom = (c: Extract<Node, { kind: 0 }>, g: Grid, a: number, j: number): number => {
     const need = g.rowMel[a]!;
@@ -1447,7 +1462,17 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     if (signal?.aborted) break;
     const nd = heap.pop();
     if (!nd) break;
-    if (nd.kind === 0) advancePairs(nd);
+    if (nd.kind === 0) {
+      if (!nd.opened) {
+        nd.opened = true;
+        if (runFailsPatch(nd)) {
+          // every pair left (the prefix below the bending and deflection bounds is counted already)
+          pruned.patchLoading += (nd.pairs.kg.length - nd.k) * nd.plate.layouts.length;
+          continue;
+        }
+      }
+      advancePairs(nd);
+    }
     else if (nd.kind === 1) judgePlates(nd);
     else judgeLayouts(nd);
   }
