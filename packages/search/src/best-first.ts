@@ -145,9 +145,9 @@ interface Plates {
   lbs?: Float64Array;
   k: number;
   layoutCalls: number;
-  panelDead: Set<string> | null;
+  panelDead: Set<number> | null;
   /** per panels and end post: the PANEL_ONLY results that passed on one layout (the same on every flat and side) */
-  panelPassed?: Map<string, Map<CheckId, CheckResult>>;
+  panelPassed?: Map<number, Map<CheckId, CheckResult>>;
 }
 
 /**
@@ -513,7 +513,8 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
 
   const heap = new Heap();
   const webDead = new Set<number>();
-  const torsionFails = new Map<string, boolean>();
+  // per grade, per flat (the stock's objects, shared by every configuration that uses them)
+  const torsionFails = new Map<string, Map<object, boolean>>();
   let seq = 0;
   const pairCache = new Map<number, Pairs>();
   const pairsOf = (gt: number, gb: number): Pairs => {
@@ -679,12 +680,13 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
   /** The torsional requirement of intermediate flats (EN 1993-1-5 9.2.1(8)) reads the flat alone: once per flat. */
   const flatFailsTorsion = (w: WebConfig): boolean => {
     if (!w.flat || w.panels === 0) return false;
-    const key = `${w.grade}|${w.flat.b}|${w.flat.t}`;
-    let fails = torsionFails.get(key);
+    let byFlat = torsionFails.get(w.grade);
+    if (!byFlat) torsionFails.set(w.grade, (byFlat = new Map()));
+    let fails = byFlat.get(w.flat);
     if (fails === undefined) {
       const t = flatTorsion(w.flat.b, w.flat.t, fy(w.grade, w.flat.t, prep.fySource), o.E);
       fails = t.limit / t.ItOverIp > 1 + 1e-9;
-      torsionFails.set(key, fails);
+      byFlat.set(w.flat, fails);
     }
     return fails;
   };
@@ -1406,7 +1408,8 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
         pruned.patchLoading++;
         continue;
       }
-      const panelKey = `${w.panels}|${w.endPost}`;
+      // panels and end post (the panel-only checks read nothing else of the layout)
+      const panelKey = 2 * w.panels + (w.endPost === 'rigid' ? 1 : 0);
       if (ps.panelDead?.has(panelKey)) {
         pruned.sameFlanges++;
         continue;
