@@ -73,7 +73,7 @@ function moments(rs: readonly Rect[]): { A: number; S: number; I0: number } {
     const zc = (r.z0 + r.z1) / 2;
     A += a;
     S += a * zc;
-    I0 += (r.b * h ** 3) / 12 + a * zc * zc;
+    I0 += (r.b * (h * h * h)) / 12 + a * zc * zc;
   }
   return { A, S, I0 };
 }
@@ -131,10 +131,10 @@ export function grossProps(s: Section, m: Material): GrossProps {
   const pl = plastic(rs);
   const h = s.hw + s.top.t + s.bot.t;
   const hs = s.hw + (s.top.t + s.bot.t) / 2;
-  const IzTop = (s.top.t * s.top.b ** 3) / 12;
-  const IzBot = (s.bot.t * s.bot.b ** 3) / 12;
-  const Iz = IzTop + IzBot + (s.hw * s.tw ** 3) / 12;
-  const It = (s.top.b * s.top.t ** 3 + s.bot.b * s.bot.t ** 3 + s.hw * s.tw ** 3) / 3;
+  const IzTop = (s.top.t * (s.top.b * s.top.b * s.top.b)) / 12;
+  const IzBot = (s.bot.t * (s.bot.b * s.bot.b * s.bot.b)) / 12;
+  const Iz = IzTop + IzBot + (s.hw * (s.tw * s.tw * s.tw)) / 12;
+  const It = (s.top.b * (s.top.t * s.top.t * s.top.t) + s.bot.b * (s.bot.t * s.bot.t * s.bot.t) + s.hw * (s.tw * s.tw * s.tw)) / 3;
   const Iw = (IzTop * IzBot * hs * hs) / (IzTop + IzBot);
   const zShear = s.bot.t / 2 + (hs * IzTop) / (IzTop + IzBot);
   return {
@@ -346,5 +346,5 @@ export function iyOfPlates(hw: number, tw: number, bt: number, tt: number, bb: n
   const zb = tb / 2;
   const A = At + Aw + Ab;
   const z = (At * zt + Aw * zw + Ab * zb) / A;
-  return (bt * tt ** 3 + tw * hw ** 3 + bb * tb ** 3) / 12 + At * (zt - z) ** 2 + Aw * (zw - z) ** 2 + Ab * (zb - z) ** 2;
+  return (bt * (tt * tt * tt) + tw * (hw * hw * hw) + bb * (tb * tb * tb)) / 12 + At * (zt - z) ** 2 + Aw * (zw - z) ** 2 + Ab * (zb - z) ** 2;
 }

@@ -16,7 +16,7 @@ export function wplDoublySymmetric(hw: number, tw: number, bf: number, tf: numbe
 
 /** Second moment of area of a doubly symmetric welded I (mm⁴). */
 export function iyDoublySymmetric(hw: number, tw: number, bf: number, tf: number): number {
-  return 2 * ((bf * tf ** 3) / 12 + bf * tf * ((hw + tf) / 2) ** 2) + (tw * hw ** 3) / 12;
+  return 2 * ((bf * (tf * tf * tf)) / 12 + bf * tf * ((hw + tf) / 2) ** 2) + (tw * (hw * hw * hw)) / 12;
 }
 
 /** EN 1993-1-1 6.2.5(2): Mc,Rd = W fy / γM0 with W = Wpl (Class 1, 2), Wel,min (3), Weff,min (4). */

@@ -199,7 +199,7 @@ export function wagnerZj(ctx: { s: CheckContext['s']; g: Pick<CheckContext['g'],
     const hi = Math.max(a, b);
     const t = hi - lo;
     const zm = (lo + hi) / 2;
-    integral += ((p.b ** 3) / 12) * t * zm + (p.b * (hi ** 4 - lo ** 4)) / 4;
+    integral += ((p.b * p.b * p.b) / 12) * t * zm + (p.b * (hi * hi * hi * hi - lo * lo * lo * lo)) / 4;
   }
   const zs = sgn * (g.zShear - zc);
   return zs - integral / (2 * g.Iy);

@@ -64,7 +64,7 @@ export function kF(type: PatchType, hw: number, a: number, ss = 0, c = 0): numbe
 export function patchResistance(p: PatchInput): PatchResult {
   const c = p.c ?? 0;
   const k = kF(p.type, p.hw, p.a, p.ss, c);
-  const Fcr = (0.9 * k * p.E * p.tw ** 3) / p.hw;
+  const Fcr = (0.9 * k * p.E * (p.tw * p.tw * p.tw)) / p.hw;
   const m1 = (p.fyf * p.bf) / (p.fyw * p.tw);
   const le = p.type === 'c' ? Math.min((k * p.E * p.tw ** 2) / (2 * p.fyw * p.hw), p.ss + c) : null;
   let m2 = 0.02 * (p.hw / p.tf) ** 2;
@@ -211,7 +211,7 @@ function forceFRd(
  */
 function frdTypeA(hw: number, tw: number, bf: number, tf: number, fyw: number, fyf: number, ss: number, a: number, E: number, gammaM1: number): number {
   const k = 6 + 2 * (hw / a) ** 2;
-  const Fcr = (0.9 * k * E * tw ** 3) / hw;
+  const Fcr = (0.9 * k * E * (tw * tw * tw)) / hw;
   const m1 = (fyf * bf) / (fyw * tw);
   let ly = Math.min(ss + 2 * tf * (1 + Math.sqrt(m1 + 0.02 * (hw / tf) ** 2)), a);
   let lambdaF = Math.sqrt((ly * tw * fyw) / Fcr);

@@ -24,10 +24,10 @@ export function stiffenerSection(
 ): { A: number; I: number; webLength: number } {
   const webLength = ts + w1 + w2;
   const Aweb = webLength * tw;
-  const Iweb = (webLength * tw ** 3) / 12;
+  const Iweb = (webLength * (tw * tw * tw)) / 12;
   const Aflat = bs * ts;
   const d = tw / 2 + bs / 2; // flat centroid from the web mid-plane
-  const Iflat = (ts * bs ** 3) / 12;
+  const Iflat = (ts * (bs * bs * bs)) / 12;
   if (sides === 2) {
     return { A: Aweb + 2 * Aflat, I: Iweb + 2 * (Iflat + Aflat * d * d), webLength };
   }
@@ -43,7 +43,7 @@ export function stiffenerSection(
  * at a/hw = √2 (1.5/2 = 0.75).
  */
 export function stiffenerIstMin(a: number, hw: number, tw: number): number {
-  return a / hw < Math.SQRT2 ? (1.5 * hw ** 3 * tw ** 3) / (a * a) : 0.75 * hw * tw ** 3;
+  return a / hw < Math.SQRT2 ? (1.5 * (hw * hw * hw) * (tw * tw * tw)) / (a * a) : 0.75 * hw * (tw * tw * tw);
 }
 
 /**
@@ -72,8 +72,8 @@ export function strutResistance(A: number, I: number, Lcr: number, fy: number, E
  * edge: It = bs ts³/3, Ip (polar, about the welded edge) = bs³ ts/3 + bs ts³/3. Returns both sides.
  */
 export function flatTorsion(bs: number, ts: number, fy: number, E: number): { ItOverIp: number; limit: number } {
-  const It = (bs * ts ** 3) / 3;
-  const Ip = (bs ** 3 * ts) / 3 + (bs * ts ** 3) / 3;
+  const It = (bs * (ts * ts * ts)) / 3;
+  const Ip = ((bs * bs * bs) * ts) / 3 + (bs * (ts * ts * ts)) / 3;
   return { ItOverIp: It / Ip, limit: (5.3 * fy) / E };
 }
 
