@@ -170,13 +170,13 @@ interface Grid {
   /** per row: 1 once the LTB set bound has been asked (when the merge first reaches one of its pairs) */
   rowLtb: Uint8Array;
   /** per row: the least Mel,Rd any panel count's 7.2 floor lets pass (0: none needed) */
-  rowMel: Float64Array;
+  rowMel: number[];
   /** the Iy every pair of the run needs (the deflection bounds that do not read the pair's own self-weight), 0 none */
   iyNeed: number;
   /** the merge's heap: row, column and the pair's mass */
-  ha: Int32Array;
-  hb: Int32Array;
-  hk: Float64Array;
+  ha: number[];
+  hb: number[];
+  hk: number[];
   hn: number;
   /** pairs taken from the merge */
   yielded: number;
@@ -184,6 +184,19 @@ interface Grid {
   out: Float64Array;
   /** the first column any row can use (the bending and deflection bounds with the widest row) */
   col0: number;
+}
+
+/**
+ * n zeros as a plain array of doubles: on the JS heap with the object that holds it. A typed array
+ * above 64 bytes keeps its data in a separate buffer, one more allocation for the collector to
+ * track and one more cache miss each time a run comes back from the heap (the merge's arrays were
+ * the first-touch hot spots of the mono-symmetric search).
+ */
+function doubles(n: number): number[] {
+  const a: number[] = [];
+  for (let i = 0; i < n; i++) a.push(0.5);
+  a.fill(0);
+  return a;
 }
 
 /** Why a grid's pairs were ruled out without being taken (Grid.out). */
@@ -1013,7 +1026,6 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     if (c.grid) return c.grid;
     const nt = groups[c.gt]!.options.length;
     const nb = groups[c.gb]!.options.length;
-    const ints = new Int32Array(2 * nt);
     const da = p.load.deflectionAffine;
     const iyNeed = Math.max(c.plate.IyReq, da ? iyRangeOf(c, da).lo : 0);
     const g: Grid = {
@@ -1026,11 +1038,11 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       col: new Int8Array(nb),
       nextRow: 0,
       rowLtb: new Uint8Array(nt),
-      rowMel: new Float64Array(nt),
+      rowMel: doubles(nt),
       iyNeed,
-      ha: ints.subarray(0, nt),
-      hb: ints.subarray(nt, 2 * nt),
-      hk: new Float64Array(nt),
+      ha: doubles(nt),
+      hb: doubles(nt),
+      hk: doubles(nt),
       hn: 0,
       yielded: 0,
       out: new Float64Array(6),
