@@ -62,13 +62,6 @@ const KG_PER_MM3 = STEEL_DENSITY * 1e-9;
  * verdict of these checks is the same for all of them.
  */
 const PLATE_IDS = inJudgeOrder(['deflection', 'lateral-torsional-buckling', 'bending', 'shear', 'flange-induced-buckling', 'web-flange-weld', 'classification']);
-/**
- * PLATE_IDS as judgePlates runs them, after the LTB screen has passed: lateral-torsional buckling
- * itself (LTB_ONLY) waits until a layout of the plates passes everything else, since its result is
- * only needed for a verdict (the screen rejects all but round-off doubts before).
- */
-const SCREENED_PLATE_IDS = PLATE_IDS.filter((id) => id !== 'lateral-torsional-buckling');
-const LTB_ONLY: readonly CheckId[] = ['lateral-torsional-buckling'];
 /** The other checks: judged per stiffener layout. PLATE_IDS and LAYOUT_IDS together are CHECK_ORDER. */
 const LAYOUT_IDS = (() => {
   // stiffener stiffness first: cheap, and its failure is shared by every flange on the web
@@ -135,12 +128,10 @@ interface Plates {
   /** Mel,Rd of the gross section (0 until needed) */
   MelRd: number;
   effects?: Effects;
-  /** the results of the layout-free checks but LTB (all passed) */
+  /** the results of the layout-free checks (all passed), once a layout has passed the others */
   plateResults?: Judged['results'];
   /** the section of layout 0 (the layout-free checks read its plates only) */
   section?: Section;
-  /** the LTB check's result, once a layout has passed everything else */
-  ltb?: CheckResult;
   order?: Int32Array;
   lbs?: number[];
   k: number;
@@ -1354,18 +1345,10 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       }
       ps.fit = fit;
     }
-    const judged: Judged = { results: [] };
-    const fail = firstFailureAmong(section, effects, o, SCREENED_PLATE_IDS, judged);
-    if (fail) {
-      // one candidate judged in full; the plates' other layouts fail with it
-      fullEvaluations++;
-      failedBy[fail.id] = (failedBy[fail.id] ?? 0) + 1;
-      pruned.sameFlanges += nL - 1;
-      keepMiss({ key: [plate.layouts[0]!, ps.ti, ps.bi], section, depth: d, g: ps.g, lb: nd.lb });
-      return;
-    }
+    // the layout-free checks wait until a layout has passed the others (judgeLayouts): past the
+    // bounds and the LTB screen they rarely fail, and most sets never get that far (on the
+    // mono-symmetric problem 130 of 4 244)
     ps.effects = effects;
-    ps.plateResults = judged.results;
     ps.section = section;
     // a plain array: read on every return of the node from the heap, with the node (no separate buffer)
     const lbs = doubles(nL);
@@ -1464,23 +1447,23 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       ps.layoutCalls++;
       fullEvaluations++;
       const key: CandidateKey = [wi, ps.ti, ps.bi];
-      if (fail === null && !ps.ltb) {
-        // the LTB check itself, once for these plates (its screen passed them to within round-off)
-        const lj: Judged = { results: [] };
-        firstFailureAmong(ps.section!, effects, o, LTB_ONLY, lj);
-        ps.ltb = lj.results[0]!;
-      }
-      if (fail === null && !ps.ltb!.passes) {
-        // it fails every layout of these plates: the rest are dropped with this one
-        failedBy[ps.ltb!.id] = (failedBy[ps.ltb!.id] ?? 0) + 1;
-        keepMiss({ key, section, depth: d, g: ps.g, lb });
-        pruned.sameFlanges += order.length - ps.k;
-        ps.k = order.length;
-        return;
+      if (fail === null && !ps.plateResults) {
+        // the layout-free checks, once for these plates, now that a layout needs their verdict
+        const pj: Judged = { results: [] };
+        const plateFail = firstFailureAmong(ps.section!, effects, o, PLATE_IDS, pj);
+        if (plateFail) {
+          // it fails every layout of these plates: the rest are dropped with this one
+          failedBy[plateFail.id] = (failedBy[plateFail.id] ?? 0) + 1;
+          keepMiss({ key, section, depth: d, g: ps.g, lb });
+          pruned.sameFlanges += order.length - ps.k;
+          ps.k = order.length;
+          return;
+        }
+        ps.plateResults = pj.results;
       }
       if (fail === null) {
         // both parts passed: together they are checkGirder's verdict (a property test keeps them equal)
-        const verdict = assembleVerdict([...ps.plateResults!, ps.ltb!, ...judged.results], judged.bearing!, judged.bearingSized!);
+        const verdict = assembleVerdict([...ps.plateResults!, ...judged.results], judged.bearing!, judged.bearingSized!);
         const plates = parts.webMass + parts.stiffMass + (flangeMass(T, L) + flangeMass(B, L));
         const { mass, value } = settle(prep, w, parts, T, B, plates, verdict, throat0);
         admit({ key, section: { ...section, bearing: verdict.bearing }, depth: d, mass, value, verdict });
