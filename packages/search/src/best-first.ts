@@ -1333,8 +1333,8 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       keepMiss({ key: [plate.layouts[0]!, ps.ti, ps.bi], section, depth: d, g: ps.g, lb: nd.lb });
       return;
     }
-    const effects = p.load.effects(ps.g);
     if (ps.fit && !p.load.maxReaction) {
+      const effects = (ps.effects = p.load.effects(ps.g));
       // a load model without maxReaction: the bearing floor from the reactions of the effects
       let R = 0;
       for (const r of effects.reactions) R = Math.max(R, Math.abs(r.R));
@@ -1347,8 +1347,8 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     }
     // the layout-free checks wait until a layout has passed the others (judgeLayouts): past the
     // bounds and the LTB screen they rarely fail, and most sets never get that far (on the
-    // mono-symmetric problem 130 of 4 244)
-    ps.effects = effects;
+    // mono-symmetric problem 130 of 4 244); the effects wait for the first layout judged (487 of
+    // the 4 244 there: ~50 kB each, which the collector copied and kept for every set)
     ps.section = section;
     // a plain array: read on every return of the node from the heap, with the node (no separate buffer)
     const lbs = doubles(nL);
@@ -1396,7 +1396,6 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     const { plate, T, B, d } = ps;
     const order = ps.order!;
     const lbs = ps.lbs!;
-    const effects = ps.effects!;
     while (ps.k < order.length) {
       const j = order[ps.k]!;
       const lb = lbs[j]!;
@@ -1433,6 +1432,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       const section = buildSection(w, parts, T, B);
       const judged: Judged = { results: [] };
       const known = ps.panelPassed?.get(panelKey);
+      const effects = (ps.effects ??= p.load.effects(ps.g));
       const fail = firstFailureAmong(section, effects, o, LAYOUT_IDS, judged, known);
       // the panel-only checks that passed here pass, with the same results, on every flat and side
       for (const r of judged.results) {
