@@ -184,10 +184,9 @@ interface Grid {
  * the first-touch hot spots of the mono-symmetric search).
  */
 function doubles(n: number): number[] {
-  const a: number[] = [];
-  for (let i = 0; i < n; i++) a.push(0.5);
-  a.fill(0);
-  return a;
+  // allocated at its length once (a push loop regrew it several times); filled with a double
+  // first so that its elements are stored as doubles from the start
+  return new Array<number>(n).fill(0.5).fill(0);
 }
 
 /**
