@@ -31,6 +31,7 @@ import {
   type EndPost,
   type Effects,
   type Judged,
+  type Material,
   type Section,
   type SignBending,
 } from '@platesmith/checks';
@@ -158,8 +159,13 @@ interface Grid {
   col: Int8Array;
   /** the next row to take up (rows are taken up in order, when the merge reaches their lightest pair) */
   nextRow: number;
-  /** per row: 1 once the LTB set bound has been asked (when the merge first reaches one of its pairs) */
-  rowLtb: Uint8Array;
+  /**
+   * per row: the column before which the LTB set bound has shown every pair failing (0: not asked
+   * yet), or −1 once a stretch of it was not all dead (its pairs are then bounded one by one)
+   */
+  rowLtb: Int16Array;
+  /** per row: how many stretches the LTB set bound has been asked for (each is twice the last) */
+  rowChunks: Uint8Array;
   /** per row: the least Mel,Rd any panel count's 7.2 floor lets pass (0: none needed) */
   rowMel: number[];
   /** the Iy every pair of the run needs (the deflection bounds that do not read the pair's own self-weight), 0 none */
@@ -196,6 +202,11 @@ function doubles(n: number): number[] {
  * candidates judged in full did not change (1 328).
  */
 const GRID_SLACK = 0.02;
+/**
+ * The columns of a mono-symmetric row the LTB set bound takes first (then twice as many each
+ * time the merge reaches past them).
+ */
+const ROW_STRETCH = 4;
 /**
  * The same for the layouts of a set of plates. Each layout taken early may be judged where a
  * feasible point found later would have dropped it: on the same problem 0 → 7.3 s with 1 328
@@ -239,6 +250,8 @@ type Node =
       /** the LTB segments' bounds over the self-weights of every pair of the run, per compressed flange */
       segsTop?: readonly Segment[];
       segsBot?: readonly Segment[];
+      /** the run's section the LTB stretch bounds set widths on, and its material (one per run: thicknesses and grades are the run's) */
+      ltbSec?: { sec: Section; m: Material };
       /** symmetric runs: how many pairs the next LTB block bound tries to drop at once (0: no more tries) */
       block?: number;
       /** mono-symmetric runs: the enumeration over live top and bottom options (made when first popped) */
@@ -680,7 +693,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       const fibT = plate.fibTop === Infinity ? Infinity : plate.fibTop / (GT.fy * GT.fy);
       const fibB = plate.fibBot === Infinity ? Infinity : plate.fibBot / (GB.fy * GB.fy);
       // every field from the start: one object shape for all runs (the heap reads many of them)
-      heap.push({ kind: 0, lb, seq: seq++, plate, pairs, k, d, Freq, fibT, fibB, gt, gb, ltbTop: undefined, ltbBot: undefined, segsTop: undefined, segsBot: undefined, block: undefined, grid: undefined, iyRange: undefined, opened: false });
+      heap.push({ kind: 0, lb, seq: seq++, plate, pairs, k, d, Freq, fibT, fibB, gt, gb, ltbTop: undefined, ltbBot: undefined, segsTop: undefined, segsBot: undefined, ltbSec: undefined, block: undefined, grid: undefined, iyRange: undefined, opened: false });
     }
   }
 
@@ -798,8 +811,9 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
    * (widths ascending): ltbSetBound over those options, at the self-weights they give. Once per
    * option and run (a row asks with the columns its bending and deflection bounds leave).
    */
-  const ltbDeadWith = (c: Extract<Node, { kind: 0 }>, top: boolean, fixed: number, from = 0): boolean => {
+  const ltbDeadWith = (c: Extract<Node, { kind: 0 }>, top: boolean, fixed: number, from = 0, to = -1): boolean => {
     if (!boundsSide(top)) return false;
+    if (to >= 0) return ltbStretchDead(c, top, fixed, from, to);
     const own = top ? c.gt : c.gb;
     const memo = top ? (c.ltbTop ??= new Int8Array(groups[own]!.options.length)) : (c.ltbBot ??= new Int8Array(groups[own]!.options.length));
     const slot = fixed - groupStart[own]!;
@@ -821,6 +835,19 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       memo[slot] = known;
     }
     return known === 1;
+  };
+  /** ltbDeadWith over the other flange's options from … to−1 only (not kept: each stretch is asked once) */
+  const ltbStretchDead = (c: Extract<Node, { kind: 0 }>, top: boolean, fixed: number, from: number, to: number): boolean => {
+    const gi = top ? c.gb : c.gt;
+    const n = groups[gi]!.options.length;
+    const t = (c.ltbSec ??= ltbSecOf(c));
+    (top ? t.sec.top : t.sec.bot).b = flanges[fixed]!.b;
+    // widest first, as in ltbDeadWith: widthsDown holds option n−1−k at k
+    return ltbSet!.overWidths(runSegments(c, top), t.sec, t.m, top, widthsDown(gi), n - to, n - from, 1 + 1e-6) > 1 + 1e-6;
+  };
+  const ltbSecOf = (c: Extract<Node, { kind: 0 }>): { sec: Section; m: Material } => {
+    const sec = buildSection(c.plate.w, partOf(c.plate, 0), groups[c.gt]!.options[0]!, groups[c.gb]!.options[0]!);
+    return { sec, m: material(sec, o) };
   };
   /** Whether the set bound shows pair (T, B) of run c failing LTB (either sign). */
   const ltbPairDead = (c: Extract<Node, { kind: 0 }>, T: FlangeOption, B: FlangeOption): boolean => {
@@ -1041,7 +1068,8 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       mB: groupMass(c.gb),
       col: new Int8Array(nb),
       nextRow: 0,
-      rowLtb: new Uint8Array(nt),
+      rowLtb: new Int16Array(nt),
+      rowChunks: new Uint8Array(nt),
       rowMel: doubles(nt),
       iyNeed,
       ha: doubles(nt),
@@ -1286,12 +1314,21 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       const a = g.ha[0]!;
       const b = g.hb[0]!;
       gridPop(g);
-      // a row's first pair reached: the LTB set bound over the row's columns from here on
-      if (ltbSet && g.rowLtb[a] === 0) {
-        g.rowLtb[a] = 1;
-        if (ltbDeadWith(c, true, g.t0 + a, b)) {
-          g.out[GRID_OUT.LTB]! += g.nb - b;
-          continue;
+      // the merge has reached a pair of the row that no LTB set bound covers yet: the bound over
+      // its next stretch of columns (ROW_STRETCH, twice as many each time), not over the rest of
+      // the row at once — the heavier columns are most often never reached (beaten first)
+      if (ltbSet) {
+        const shown = g.rowLtb[a]!;
+        if (shown >= 0 && b >= shown) {
+          const e = Math.min(g.nb, b + (ROW_STRETCH << g.rowChunks[a]!++));
+          if (ltbDeadWith(c, true, g.t0 + a, b, e)) {
+            g.out[GRID_OUT.LTB]! += e - b;
+            g.rowLtb[a] = e;
+            const next = viableColumnFrom(c, g, a, e);
+            if (next < g.nb) gridPush(g, a, next);
+            continue;
+          }
+          g.rowLtb[a] = -1;
         }
       }
       // the row's next live column

@@ -77,6 +77,12 @@ export interface LtbSetBound {
    * bound exceeds stopAt is then known): the strongest sections first make that soonest.
    */
   overSections(segs: readonly Segment[], sections: readonly Section[], stopAt?: number): number;
+  /**
+   * `over` for the members widths[k0 … k1−1] on a section and material the caller keeps (for
+   * many sets of one run): the free flange's width of `sec` is set member by member and left at
+   * the last; nothing else of it is changed or kept.
+   */
+  overWidths(segs: readonly Segment[], sec: Section, m: Material, fixedTop: boolean, widths: ArrayLike<number>, k0: number, k1: number, stopAt?: number): number;
   /** whether lowerBound can be above 0 with this flange fixed (its compression flange is not restrained continuously) */
   bounds(fixedTop: boolean): boolean;
 }
@@ -131,6 +137,7 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
     return chi * Mk;
   };
 
+  const scratch = stackScratch();
   return {
     bounds: (fixedTop) => (fixedTop ? cutsTop : cutsBot) !== null,
     lowerBound(widest, fixedTop, others, range) {
@@ -163,6 +170,10 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
       const free = fixedTop ? sec.bot : sec.top;
       return overPlates(segs, others.length, (k) => ((free.b = others[k]!), sec), material(widest, o), stopAt);
     },
+    overWidths(segs, sec, m, fixedTop, widths, k0, k1, stopAt) {
+      const free = fixedTop ? sec.bot : sec.top;
+      return overPlates(segs, k1 - k0, (k) => ((free.b = widths[k0 + k]!), sec), m, stopAt);
+    },
     overSections(segs, sections, stopAt) {
       if (segs.length === 0 || sections.length === 0) return 0;
       // one grade and thickness per plate role across the set: one material
@@ -188,8 +199,8 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
       else hasBot = true;
     }
     let least = Infinity;
-    // one scratch for every member (nothing keeps it past the member)
-    const p = stackScratch();
+    // one scratch for every member (nothing keeps it past the member; overPlates is not re-entered)
+    const p = scratch;
     for (let k = 0; k < count; k++) {
       const sec = member(k);
       stackProps(sec, m.fyTop, m.fyBot, m.fyw, p);
