@@ -64,7 +64,7 @@ export { rigidEndPost, bearingCrushing } from './en1993-1-5/end-post.js';
 export { bendingChecks } from './en1993-1-1/bending-family.js';
 export { classifyOutstand, classifyWebBending, classifyWebBendingCompression, webClass2Limit, webClass3Limit, classifyInternalCompression, classifySection } from './en1993-1-1/classification.js';
 export { bendingForSign, bracket, firstAbove, envelopeAt, wplDoublySymmetric, iyDoublySymmetric, signsOf, type SignBending } from './en1993-1-1/bending.js';
-export { kSigmaInternal, kSigmaOutstand, lambdaP, rhoInternal, rhoOutstand, internalEffectiveWidths, effectiveSection } from './en1993-1-5/effective-section.js';
+export { kSigmaInternal, kSigmaOutstand, lambdaP, rhoInternal, rhoOutstand, internalEffectiveWidths, effectiveSection, effectiveMeff } from './en1993-1-5/effective-section.js';
 export { kF, patchResistance, patchBendingInteraction, patchUtilisation, patchEta2s, patchBendingMelNeed, patchBendingFloor, type PatchType, type PatchInput, type PatchResult } from './en1993-1-5/patch-loading.js';
 export { fibLimit, kFibFor } from './en1993-1-5/flange-induced.js';
 export { mcr, mcrOf, chiLT, chiLTGeneral, momentFactors, c1EndMoments, kcEndMoments, ltbCurveWelded, ltbUtilisation, momentEnvelopeOf, wagnerZj, loadHeightZg, c3EndMoments, type MomentEnvelope } from './en1993-1-1/ltb.js';

@@ -177,6 +177,15 @@ export function flangeOutstand(
   return { c, ratio, lambdaP, rho, bEff };
 }
 
+/** flangeOutstand(…).bEff alone, without its object (the same expressions, so the same number). */
+export function flangeEffectiveWidth(flange: FlangePlate, tw: number, fyFlange: number, throat: number): number {
+  const c = Math.max(0, (flange.b - tw) / 2 - Math.SQRT2 * throat);
+  const ratio = c / flange.t;
+  const lambdaP = ratio / (28.4 * epsilon(fyFlange) * Math.sqrt(0.43));
+  const rho = lambdaP > 0.748 ? Math.min(1, (lambdaP - 0.188) / (lambdaP * lambdaP)) : 1;
+  return flange.b - 2 * (1 - rho) * c;
+}
+
 export type FlangeSide = 'top' | 'bot';
 
 /** The flange in compression for a moment of this sign (positive = sagging → top). */

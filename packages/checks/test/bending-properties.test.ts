@@ -1,7 +1,8 @@
 // Property tests of the bending family (regression properties, no external values).
 import { expect } from 'vitest';
 import { test, fc } from '@fast-check/vitest';
-import { rhoInternal, rhoOutstand } from '../src/en1993-1-5/effective-section.js';
+import { effectiveMeff, effectiveSection, rhoInternal, rhoOutstand } from '../src/en1993-1-5/effective-section.js';
+import { material } from '../src/section.js';
 import { bendingChecks } from '../src/en1993-1-1/bending-family.js';
 import { bendingForSign } from '../src/en1993-1-1/bending.js';
 import { prepare } from '../src/context.js';
@@ -66,5 +67,15 @@ test.prop([section, fc.integer({ min: 17, max: 39 }), fc.integer({ min: 1, max: 
     const b = bendingForSign(prepare(sec(p.hw, p.tw, p.bt, t2, p.bb, p.tb), defaultOptions(10000)), 'top');
     fc.pre(a.cls.sectionClass === b.cls.sectionClass);
     expect(b.McRd).toBeGreaterThanOrEqual(a.McRd * (1 - 1e-12));
+  },
+);
+
+// consistency property: the search's allocation-free Meff is the effective section's, to the last bit
+test.prop([section, fc.constantFrom('S235', 'S355', 'S460'), fc.constantFrom('top', 'bot'), fc.constantFrom(0, 4, 6.5)], { numRuns: 600 })(
+  'effectiveMeff equals effectiveSection(…).Meff exactly, on either side, any grade and weld throat',
+  (p, grade, side, throat) => {
+    const s: Section = { ...sec(p.hw, p.tw, p.bt, p.tt, p.bb, p.tb), grade: { web: grade, top: grade, bot: grade, stiffener: grade } };
+    const m = material(s, defaultOptions(10000));
+    expect(Object.is(effectiveMeff(s, m, side, throat), effectiveSection(s, m, side, throat).Meff)).toBe(true);
   },
 );

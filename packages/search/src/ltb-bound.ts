@@ -3,17 +3,15 @@ import {
   epsilon,
   firstAbove,
   flangeOutstand,
-  effectiveSection,
+  effectiveMeff,
   webClass2Limit,
   webClass3Limit,
   c1EndMoments,
   c3EndMoments,
   chiLT,
   chiValue,
-  loadHeightZg,
   ltbCurveWelded,
   material,
-  mcrOf,
   ALPHA,
   type BucklingCurve,
   type CheckOptions,
@@ -110,8 +108,12 @@ export interface Segment {
   L: number;
   MEdLo: number;
   shapes: Shape[];
+  /** π²E/L² and L²G/(π²E): mcrOf's terms that read the segment alone (N/mm², mm²·…) */
+  pe: number;
+  gl: number;
 }
 
+const PI2 = Math.PI * Math.PI;
 const TRANSVERSE: Shape = { C1: 1.0, C2: 0.63, C3: 1.0, C3lo: 1.0 };
 const UDL: Shape = { C1: 1.127, C2: 0.454, C3: 0.525, C3lo: 0.525 };
 const POINT: Shape = { C1: 1.348, C2: 0.63, C3: 1.73, C3lo: 1.73 };
@@ -138,6 +140,10 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
   };
 
   const scratch = stackScratch();
+  const loadTop = o.loadHeight === 'top-flange';
+  const loadBot = o.loadHeight === 'bottom-flange';
+  const gammaM1 = o.factors.gammaM1;
+  const plateau = lambda0 * lambda0 * (1 + 1e-9);
   return {
     bounds: (fixedTop) => (fixedTop ? cutsTop : cutsBot) !== null,
     lowerBound(widest, fixedTop, others, range) {
@@ -156,7 +162,9 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
         for (let i = 0; i + 1 < cuts.length; i++) {
           const s = segmentBound(range.xs, lo, hi, cuts[i]!, cuts[i + 1]!);
           // the check skips a segment (or a sign) whose moment is at most its round-off threshold
-          if (s.MEdLo > tiny * (1 + 1e-9)) segs.push({ top, L: cuts[i + 1]! - cuts[i]!, MEdLo: s.MEdLo, shapes: s.shapes });
+          const L = cuts[i + 1]! - cuts[i]!;
+          const pe = (PI2 * o.E) / (L * L);
+          if (s.MEdLo > tiny * (1 + 1e-9)) segs.push({ top, L, MEdLo: s.MEdLo, shapes: s.shapes, pe, gl: (L * L * o.G) / (PI2 * o.E) });
         }
       }
       // most loaded first (the order overPlates tries them in; the bound does not depend on it)
@@ -204,7 +212,8 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
     for (let k = 0; k < count; k++) {
       const sec = member(k);
       stackProps(sec, m.fyTop, m.fyBot, m.fyw, p);
-      const zg = loadHeightZg({ o, g: p });
+      // loadHeightZg without its argument object
+      const zg = loadTop ? p.h - p.zShear : loadBot ? -p.zShear : 0;
       const curve = ltbCurveWelded(p.h, Math.min(sec.top.b, sec.bot.b));
       const zjTop = hasTop ? zjOf(sec, p, 1) : 0;
       const zjBot = hasBot ? zjOf(sec, p, -1) : 0;
@@ -233,19 +242,28 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
   /** One member's bound: the largest over the segments (most loaded first) of MEd,lo·γM1 over its largest Mb,Rd there; stops above `limit`. NaN when some Mb,Rd is not finite. */
   function memberBound(segs: readonly Segment[], p: StackProps, zg: number, curve: BucklingCurve, zjTop: number, zjBot: number, MkTop: number, MkBot: number, limit: number): number {
     let uk = 0;
+    // mcrOf (k = kw = 1) with the member's terms once: C1·π²E·Iz/L²·(√(Iw/Iz + L²G·It/(π²E·Iz) + a²) − a)
+    const rw = p.Iw / p.Iz;
+    const rt = p.It / p.Iz;
     for (let i = 0; i < segs.length && !(uk > limit); i++) {
       const sg = segs[i]!;
       const zj = sg.top ? zjTop : zjBot;
+      const t = rw + sg.gl * rt;
+      const base = sg.pe * p.Iz;
       let McrMax = 0;
-      for (const sh of sg.shapes) {
+      const shapes = sg.shapes;
+      for (let j = 0; j < shapes.length; j++) {
+        const sh = shapes[j]!;
         // the C3 of its range that makes C2·zg − C3·zj least
-        const C3 = zj > 0 ? sh.C3 : sh.C3lo;
-        McrMax = Math.max(McrMax, mcrOf(o.E, o.G, p.Iz, p.It, p.Iw, sg.L, sh.C1, sh.C2, C3, zg, zj));
+        const a = sh.C2 * zg - (zj > 0 ? sh.C3 : sh.C3lo) * zj;
+        const Mcr = sh.C1 * base * (Math.sqrt(t + a * a) - a);
+        // NaN carries through (an Mb,Rd that is not finite makes the bound 0)
+        McrMax = Math.max(McrMax, Mcr);
       }
       const Mk = sg.top ? MkTop : MkBot;
-      const Mb = sg.MEdLo / McrMax <= lambda0 * lambda0 * (1 + 1e-9) ? Mk : reduced(Mk, McrMax, curve);
+      const Mb = sg.MEdLo / McrMax <= plateau ? Mk : reduced(Mk, McrMax, curve);
       if (!(Mb < Infinity)) return Number.NaN;
-      uk = Math.max(uk, (sg.MEdLo * o.factors.gammaM1) / Mb);
+      uk = Math.max(uk, (sg.MEdLo * gammaM1) / Mb);
     }
     return uk;
   }
@@ -278,7 +296,7 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
       sure = sec.hw / sec.tw > lim * (1 + 1e-9);
     }
     if (!sure) return Infinity;
-    return effectiveSection(sec, m, top ? 'top' : 'bot', throat).Meff * (1 + 1e-12);
+    return effectiveMeff(sec, m, top ? 'top' : 'bot', throat) * (1 + 1e-12);
   }
 }
 

@@ -1,4 +1,4 @@
-import { elastic, firstYieldMoment, flangeOutstand, rects, type FlangeSide, type Rect } from '../section.js';
+import { elastic, firstYieldMoment, flangeEffectiveWidth, flangeOutstand, rects, type FlangeSide, type Rect } from '../section.js';
 import type { Material, Section } from '../types.js';
 
 /**
@@ -157,4 +157,111 @@ export function effectiveSection(s: Section, m: Material, side: FlangeSide, thro
     Meff: firstYieldMoment(parts, el.z, el.I),
     rects: parts,
   };
+}
+
+/** the rectangles effectiveMeff reads: b, z0, z1, fy of up to four (bottom flange, web in one or two parts, top flange) */
+const meffRects = new Float64Array(16);
+
+/**
+ * effectiveSection(s, m, side, throat).Meff without building the effective section: no objects
+ * (the search's LTB set bound asks it ~100 000 times a search, and effectiveSection was the
+ * search's largest allocator). The same steps on the same numbers in the same order — effective
+ * compression flange, ψ of the web from that section, Table 4.1 widths, the hole, the elastic
+ * section of what is left, first yield — so the same value to the last bit (a property test
+ * holds the two equal).
+ */
+export function effectiveMeff(s: Section, m: Material, side: FlangeSide, throat: number): number {
+  const top = side === 'top';
+  const tb = s.bot.t;
+  const zw0 = tb;
+  const zw1 = tb + s.hw;
+  const h3 = tb + s.hw + s.top.t;
+  const bEff = flangeEffectiveWidth(top ? s.top : s.bot, s.tw, top ? m.fyTop : m.fyBot, throat);
+  const bBot = top ? s.bot.b : bEff;
+  const bTop = top ? bEff : s.top.b;
+  // step 1: effective compression flange and gross web (elastic() over the three rectangles)
+  let z1 = momentsZ(bBot, 0, tb, s.tw, zw0, zw1, bTop, zw1, h3);
+  const zCompEdge = top ? zw1 : zw0;
+  const zOtherEdge = top ? zw0 : zw1;
+  const psi = (zOtherEdge - z1) / (zCompEdge - z1);
+  // internalEffectiveWidths(hw, tw, εw, ψ): be1, bc, be2
+  const psiK = Math.max(psi, -3);
+  const lp = lambdaP(s.hw, s.tw, m.epsW, kSigmaInternal(psiK));
+  const rho = rhoInternal(lp, psiK);
+  let bc: number;
+  let be1: number;
+  let be2: number;
+  if (psi >= 0) {
+    const beff = rho * s.hw;
+    bc = s.hw;
+    be1 = (2 * beff) / (5 - Math.min(psi, 1));
+    be2 = beff - be1;
+  } else {
+    bc = s.hw / (1 - psi);
+    const beff = rho * bc;
+    be1 = 0.4 * beff;
+    be2 = 0.6 * beff;
+  }
+  const dir = top ? -1 : 1;
+  const d0 = be1;
+  const d1 = bc - be2;
+  const r = meffRects;
+  let n = putRect(0, bBot, 0, tb, m.fyBot);
+  if (d1 - d0 > 1e-9) {
+    const za = zCompEdge + dir * d0;
+    const zb = zCompEdge + dir * d1;
+    n = putRect(n, s.tw, zw0, Math.min(za, zb), m.fyw);
+    n = putRect(n, s.tw, Math.max(za, zb), zw1, m.fyw);
+  } else n = putRect(n, s.tw, zw0, zw1, m.fyw);
+  n = putRect(n, bTop, zw1, h3, m.fyTop);
+  // elastic(parts): moments about z = 0 in the parts' order
+  let A = 0;
+  let S = 0;
+  let I0 = 0;
+  for (let i = 0; i < n; i++) {
+    const hh = r[4 * i + 2]! - r[4 * i + 1]!;
+    const a = r[4 * i]! * hh;
+    const zc = (r[4 * i + 1]! + r[4 * i + 2]!) / 2;
+    A += a;
+    S += a * zc;
+    I0 += (r[4 * i]! * (hh * hh * hh)) / 12 + a * zc * zc;
+  }
+  z1 = S / A;
+  const I = I0 - A * z1 * z1;
+  // firstYieldMoment(parts, z, I)
+  let M = Infinity;
+  for (let i = 0; i < n; i++) {
+    const d = Math.max(Math.abs(r[4 * i + 2]! - z1), Math.abs(r[4 * i + 1]! - z1));
+    if (d > 0) M = Math.min(M, (r[4 * i + 3]! * I) / d);
+  }
+  return M;
+}
+
+/** Rectangle n of meffRects when effectiveSection keeps it (z1 − z0 > 1e-12); the count after. */
+function putRect(n: number, b: number, lo: number, hi: number, fy: number): number {
+  if (!(hi - lo > 1e-12)) return n;
+  meffRects[4 * n] = b;
+  meffRects[4 * n + 1] = lo;
+  meffRects[4 * n + 2] = hi;
+  meffRects[4 * n + 3] = fy;
+  return n + 1;
+}
+
+/** elastic(rs).z of three rectangles (width, z0, z1 each) in that order: moments() then S / A. */
+function momentsZ(b0: number, p0: number, q0: number, b1: number, p1: number, q1: number, b2: number, p2: number, q2: number): number {
+  const h0 = q0 - p0;
+  const h1 = q1 - p1;
+  const h2 = q2 - p2;
+  const a0 = b0 * h0;
+  const a1 = b1 * h1;
+  const a2 = b2 * h2;
+  let A = 0;
+  let S = 0;
+  A += a0;
+  S += a0 * ((p0 + q0) / 2);
+  A += a1;
+  S += a1 * ((p1 + q1) / 2);
+  A += a2;
+  S += a2 * ((p2 + q2) / 2);
+  return S / A;
 }
