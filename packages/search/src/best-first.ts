@@ -50,7 +50,7 @@ import {
   type PruneStats,
   type SliceResult,
 } from './core.js';
-import { ltbSetBound, type Segment } from './ltb-bound.js';
+import { ltbSetBound, type Segments } from './ltb-bound.js';
 import { bearingPairs, buildSection, C2, flangeMass, webPartsWith, type WebParts } from './objective.js';
 import { lastAtOrBelow, type FlangeOption, type WebConfig } from './space.js';
 
@@ -248,8 +248,8 @@ type Node =
       ltbTop?: Int8Array;
       ltbBot?: Int8Array;
       /** the LTB segments' bounds over the self-weights of every pair of the run, per compressed flange */
-      segsTop?: readonly Segment[];
-      segsBot?: readonly Segment[];
+      segsTop?: Segments;
+      segsBot?: Segments;
       /** the run's section the LTB stretch bounds set widths on, and its material (one per run: thicknesses and grades are the run's) */
       ltbSec?: { sec: Section; m: Material };
       /** symmetric runs: how many pairs the next LTB block bound tries to drop at once (0: no more tries) */
@@ -878,7 +878,7 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
    * all its pairs (the self-weight grows with each flange's area, so the lightest and heaviest
    * options of the two groups bound every pair's).
    */
-  const runSegments = (c: Extract<Node, { kind: 0 }>, top: boolean): readonly Segment[] => {
+  const runSegments = (c: Extract<Node, { kind: 0 }>, top: boolean): Segments => {
     let segs = top ? c.segsTop : c.segsBot;
     if (!segs) {
       const range = p.load.momentEnvelopeRange!(...runSelfWeights(c));

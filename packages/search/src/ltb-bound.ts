@@ -66,21 +66,21 @@ export interface LtbSetBound {
    * depend on the range and the side only, so one set serves every flange of a run whose range
    * contains them all), then the bound over a set of sections.
    */
-  segments(range: MomentRange, fixedTop: boolean): readonly Segment[];
-  over(segs: readonly Segment[], widest: Section, fixedTop: boolean, others: ArrayLike<number>, stopAt?: number): number;
+  segments(range: MomentRange, fixedTop: boolean): Segments;
+  over(segs: Segments, widest: Section, fixedTop: boolean, others: ArrayLike<number>, stopAt?: number): number;
   /**
    * The bound over explicit sections (one web plate, flanges of one thickness and grade per side,
    * any widths): each section's own properties, as in `over`. With `stopAt`, it may return early
    * with a value ≤ stopAt once the sections seen show the bound is at most that (only whether the
    * bound exceeds stopAt is then known): the strongest sections first make that soonest.
    */
-  overSections(segs: readonly Segment[], sections: readonly Section[], stopAt?: number): number;
+  overSections(segs: Segments, sections: readonly Section[], stopAt?: number): number;
   /**
    * `over` for the members widths[k0 … k1−1] on a section and material the caller keeps (for
    * many sets of one run): the free flange's width of `sec` is set member by member and left at
    * the last; nothing else of it is changed or kept.
    */
-  overWidths(segs: readonly Segment[], sec: Section, m: Material, fixedTop: boolean, widths: ArrayLike<number>, k0: number, k1: number, stopAt?: number): number;
+  overWidths(segs: Segments, sec: Section, m: Material, fixedTop: boolean, widths: ArrayLike<number>, k0: number, k1: number, stopAt?: number): number;
   /** whether lowerBound can be above 0 with this flange fixed (its compression flange is not restrained continuously) */
   bounds(fixedTop: boolean): boolean;
 }
@@ -103,14 +103,24 @@ export interface PlateStrengths {
   fyw: number;
 }
 
-export interface Segment {
+interface Segment {
   top: boolean;
   L: number;
   MEdLo: number;
   shapes: Shape[];
-  /** π²E/L² and L²G/(π²E): mcrOf's terms that read the segment alone (N/mm², mm²·…) */
-  pe: number;
-  gl: number;
+}
+
+/**
+ * The segments of `segments`, most loaded first, packed in one array of numbers (read once per
+ * member: one allocation, one stretch of memory, where an object per segment and shape was a
+ * cache miss each): [count, then per segment: 1 if the top flange is in compression else 0, L,
+ * MEd,lo, π²E/L², L²G/(π²E), number of shapes, then C1, C2, C3, C3lo per shape].
+ */
+export type Segments = readonly number[] & { readonly __segments: true };
+
+/** the number of segments packed */
+export function segmentCount(segs: Segments): number {
+  return segs[0]!;
 }
 
 const PI2 = Math.PI * Math.PI;
@@ -162,13 +172,18 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
         for (let i = 0; i + 1 < cuts.length; i++) {
           const s = segmentBound(range.xs, lo, hi, cuts[i]!, cuts[i + 1]!);
           // the check skips a segment (or a sign) whose moment is at most its round-off threshold
-          const L = cuts[i + 1]! - cuts[i]!;
-          const pe = (PI2 * o.E) / (L * L);
-          if (s.MEdLo > tiny * (1 + 1e-9)) segs.push({ top, L, MEdLo: s.MEdLo, shapes: s.shapes, pe, gl: (L * L * o.G) / (PI2 * o.E) });
+          if (s.MEdLo > tiny * (1 + 1e-9)) segs.push({ top, L: cuts[i + 1]! - cuts[i]!, MEdLo: s.MEdLo, shapes: s.shapes });
         }
       }
       // most loaded first (the order overPlates tries them in; the bound does not depend on it)
-      return segs.sort((x, y) => y.MEdLo - x.MEdLo);
+      segs.sort((x, y) => y.MEdLo - x.MEdLo);
+      const packed: number[] = [segs.length];
+      for (const sg of segs) {
+        const L = sg.L;
+        packed.push(sg.top ? 1 : 0, L, sg.MEdLo, (PI2 * o.E) / (L * L), (L * L * o.G) / (PI2 * o.E), sg.shapes.length);
+        for (const sh of sg.shapes) packed.push(sh.C1, sh.C2, sh.C3, sh.C3lo);
+      }
+      return packed as unknown as Segments;
     },
     over(segs, widest, fixedTop, others, stopAt) {
       // the set's members differ only in the other flange's width: the plates alone, one material
@@ -183,7 +198,7 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
       return overPlates(segs, k1 - k0, (k) => ((free.b = widths[k0 + k]!), sec), m, stopAt);
     },
     overSections(segs, sections, stopAt) {
-      if (segs.length === 0 || sections.length === 0) return 0;
+      if (segs[0] === 0 || sections.length === 0) return 0;
       // one grade and thickness per plate role across the set: one material
       return overPlates(segs, sections.length, (k) => sections[k]!, material(sections[0]!, o), stopAt);
     },
@@ -197,13 +212,13 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
    * some segment, not necessarily the same one. With stopAt, a member stops at the first segment
    * above it (already shown to fail), and the set at the first member not shown to fail.
    */
-  function overPlates(segs: readonly Segment[], count: number, member: (k: number) => Section, m: Material, stopAt: number | undefined): number {
-    if (segs.length === 0 || count === 0) return 0;
+  function overPlates(segs: Segments, count: number, member: (k: number) => Section, m: Material, stopAt: number | undefined): number {
+    if (segs[0] === 0 || count === 0) return 0;
     const limit = stopAt ?? Infinity;
     let hasTop = false;
     let hasBot = false;
-    for (const sg of segs) {
-      if (sg.top) hasTop = true;
+    for (let i = 0, q = 1; i < segs[0]!; i++, q += 6 + 4 * segs[q + 5]!) {
+      if (segs[q] === 1) hasTop = true;
       else hasBot = true;
     }
     let least = Infinity;
@@ -240,30 +255,31 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
   }
 
   /** One member's bound: the largest over the segments (most loaded first) of MEd,lo·γM1 over its largest Mb,Rd there; stops above `limit`. NaN when some Mb,Rd is not finite. */
-  function memberBound(segs: readonly Segment[], p: StackProps, zg: number, curve: BucklingCurve, zjTop: number, zjBot: number, MkTop: number, MkBot: number, limit: number): number {
+  function memberBound(segs: Segments, p: StackProps, zg: number, curve: BucklingCurve, zjTop: number, zjBot: number, MkTop: number, MkBot: number, limit: number): number {
     let uk = 0;
     // mcrOf (k = kw = 1) with the member's terms once: C1·π²E·Iz/L²·(√(Iw/Iz + L²G·It/(π²E·Iz) + a²) − a)
     const rw = p.Iw / p.Iz;
     const rt = p.It / p.Iz;
-    for (let i = 0; i < segs.length && !(uk > limit); i++) {
-      const sg = segs[i]!;
-      const zj = sg.top ? zjTop : zjBot;
-      const t = rw + sg.gl * rt;
-      const base = sg.pe * p.Iz;
+    const n = segs[0]!;
+    for (let i = 0, q = 1; i < n && !(uk > limit); i++) {
+      const top = segs[q] === 1;
+      const MEdLo = segs[q + 2]!;
+      const zj = top ? zjTop : zjBot;
+      const t = rw + segs[q + 4]! * rt;
+      const base = segs[q + 3]! * p.Iz;
+      const ns = segs[q + 5]!;
+      q += 6;
       let McrMax = 0;
-      const shapes = sg.shapes;
-      for (let j = 0; j < shapes.length; j++) {
-        const sh = shapes[j]!;
+      for (let j = 0; j < ns; j++, q += 4) {
         // the C3 of its range that makes C2·zg − C3·zj least
-        const a = sh.C2 * zg - (zj > 0 ? sh.C3 : sh.C3lo) * zj;
-        const Mcr = sh.C1 * base * (Math.sqrt(t + a * a) - a);
+        const a = segs[q + 1]! * zg - (zj > 0 ? segs[q + 2]! : segs[q + 3]!) * zj;
         // NaN carries through (an Mb,Rd that is not finite makes the bound 0)
-        McrMax = Math.max(McrMax, Mcr);
+        McrMax = Math.max(McrMax, segs[q]! * base * (Math.sqrt(t + a * a) - a));
       }
-      const Mk = sg.top ? MkTop : MkBot;
-      const Mb = sg.MEdLo / McrMax <= plateau ? Mk : reduced(Mk, McrMax, curve);
+      const Mk = top ? MkTop : MkBot;
+      const Mb = MEdLo / McrMax <= plateau ? Mk : reduced(Mk, McrMax, curve);
       if (!(Mb < Infinity)) return Number.NaN;
-      uk = Math.max(uk, (sg.MEdLo * gammaM1) / Mb);
+      uk = Math.max(uk, (MEdLo * gammaM1) / Mb);
     }
     return uk;
   }
