@@ -807,13 +807,12 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
   }
   /**
    * Whether every pair of run c with flange option `fixed` on the top (or the bottom) fails
-   * lateral-torsional buckling, whatever the other flange of its group from option `from` on
+   * lateral-torsional buckling, whatever the other flange of its group
    * (widths ascending): ltbSetBound over those options, at the self-weights they give. Once per
-   * option and run (a row asks with the columns its bending and deflection bounds leave).
+   * option and run (the columns of a mono-symmetric grid ask it; its rows ask ltbStretchDead).
    */
-  const ltbDeadWith = (c: Extract<Node, { kind: 0 }>, top: boolean, fixed: number, from = 0, to = -1): boolean => {
+  const ltbDeadWith = (c: Extract<Node, { kind: 0 }>, top: boolean, fixed: number): boolean => {
     if (!boundsSide(top)) return false;
-    if (to >= 0) return ltbStretchDead(c, top, fixed, from, to);
     const own = top ? c.gt : c.gb;
     const memo = top ? (c.ltbTop ??= new Int8Array(groups[own]!.options.length)) : (c.ltbBot ??= new Int8Array(groups[own]!.options.length));
     const slot = fixed - groupStart[own]!;
@@ -828,15 +827,14 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       const widest = group.options[group.options.length - 1]!;
       const section = top ? buildSection(w, part, F, widest) : buildSection(w, part, widest, F);
       // widest first: as a rule the strongest, so a set that is not all dead is shown so soonest
-      const widths = widthsDown(other).subarray(0, group.options.length - from);
-      const u = ltbSet!.over(segs, section, top, widths, 1 + 1e-6);
+      const u = ltbSet!.over(segs, section, top, widthsDown(other), 1 + 1e-6);
       // a bound: only a clear failure drops the set (the margin covers round-off)
       known = u > 1 + 1e-6 ? 1 : 2;
       memo[slot] = known;
     }
     return known === 1;
   };
-  /** ltbDeadWith over the other flange's options from … to−1 only (not kept: each stretch is asked once) */
+  /** ltbDeadWith over the other flange's options from … to−1 only (not kept: each stretch is asked once), where boundsSide(top) */
   const ltbStretchDead = (c: Extract<Node, { kind: 0 }>, top: boolean, fixed: number, from: number, to: number): boolean => {
     const gi = top ? c.gb : c.gt;
     const n = groups[gi]!.options.length;
@@ -1317,11 +1315,11 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
       // the merge has reached a pair of the row that no LTB set bound covers yet: the bound over
       // its next stretch of columns (ROW_STRETCH, twice as many each time), not over the rest of
       // the row at once — the heavier columns are most often never reached (beaten first)
-      if (ltbSet) {
+      if (ltbSet && boundsSide(true)) {
         const shown = g.rowLtb[a]!;
         if (shown >= 0 && b >= shown) {
           const e = Math.min(g.nb, b + (ROW_STRETCH << g.rowChunks[a]!++));
-          if (ltbDeadWith(c, true, g.t0 + a, b, e)) {
+          if (ltbStretchDead(c, true, g.t0 + a, b, e)) {
             g.out[GRID_OUT.LTB]! += e - b;
             g.rowLtb[a] = e;
             const next = viableColumnFrom(c, g, a, e);
