@@ -287,8 +287,9 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
   /**
    * The check's Wy fy for a sign where the section is surely Class 4 (beyond the Class 3 limit of
    * the compression flange or of the web by more than round-off): Meff of effectiveSection, the
-   * very computation bendingForSign makes for Class 4 (same section, material and throat), with a
-   * hair of margin. Infinity where it is not surely Class 4.
+   * computation bendingForSign makes for Class 4 (same section, material and throat; through
+   * effectiveMeff, the same number without its objects), with a hair of margin. Infinity where it
+   * is not surely Class 4.
    */
   function class4Meff(sec: Section, p: StackProps, top: boolean, m: Material): number {
     const zc = p.zElastic;
