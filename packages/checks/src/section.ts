@@ -169,21 +169,32 @@ export function flangeOutstand(
   fyFlange: number,
   throat: number,
 ): { c: number; ratio: number; lambdaP: number; rho: number; bEff: number } {
-  const c = Math.max(0, (flange.b - tw) / 2 - Math.SQRT2 * throat);
+  const c = outstandC(flange.b, tw, throat);
   const ratio = c / flange.t;
-  const lambdaP = ratio / (28.4 * epsilon(fyFlange) * Math.sqrt(0.43));
-  const rho = lambdaP > 0.748 ? Math.min(1, (lambdaP - 0.188) / (lambdaP * lambdaP)) : 1;
+  const lambdaP = outstandLambdaP(ratio, fyFlange);
+  const rho = outstandRho(lambdaP);
   const bEff = flange.b - 2 * (1 - rho) * c;
   return { c, ratio, lambdaP, rho, bEff };
 }
 
-/** flangeOutstand(…).bEff alone, without its object (the same expressions, so the same number). */
+/** flangeOutstand(…).bEff alone, without its object (the same steps, so the same number). */
 export function flangeEffectiveWidth(flange: FlangePlate, tw: number, fyFlange: number, throat: number): number {
-  const c = Math.max(0, (flange.b - tw) / 2 - Math.SQRT2 * throat);
-  const ratio = c / flange.t;
-  const lambdaP = ratio / (28.4 * epsilon(fyFlange) * Math.sqrt(0.43));
-  const rho = lambdaP > 0.748 ? Math.min(1, (lambdaP - 0.188) / (lambdaP * lambdaP)) : 1;
+  const c = outstandC(flange.b, tw, throat);
+  const rho = outstandRho(outstandLambdaP(c / flange.t, fyFlange));
   return flange.b - 2 * (1 - rho) * c;
+}
+
+/** c of the outstand to the weld toe, mm */
+function outstandC(b: number, tw: number, throat: number): number {
+  return Math.max(0, (b - tw) / 2 - Math.SQRT2 * throat);
+}
+/** λp of the outstand in uniform compression (kσ = 0.43) from c/t */
+function outstandLambdaP(ratio: number, fyFlange: number): number {
+  return ratio / (28.4 * epsilon(fyFlange) * Math.sqrt(0.43));
+}
+/** ρ of the outstand, eq. 4.3 */
+function outstandRho(lambdaP: number): number {
+  return lambdaP > 0.748 ? Math.min(1, (lambdaP - 0.188) / (lambdaP * lambdaP)) : 1;
 }
 
 export type FlangeSide = 'top' | 'bot';
