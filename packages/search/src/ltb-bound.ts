@@ -4,6 +4,7 @@ import {
   firstAbove,
   flangeOutstand,
   effectiveMeff,
+  zgOf,
   webClass2Limit,
   webClass3Limit,
   c1EndMoments,
@@ -118,11 +119,6 @@ interface Segment {
  */
 export type Segments = readonly number[] & { readonly __segments: true };
 
-/** the number of segments packed */
-export function segmentCount(segs: Segments): number {
-  return segs[0]!;
-}
-
 const PI2 = Math.PI * Math.PI;
 const TRANSVERSE: Shape = { C1: 1.0, C2: 0.63, C3: 1.0, C3lo: 1.0 };
 const UDL: Shape = { C1: 1.127, C2: 0.454, C3: 0.525, C3lo: 0.525 };
@@ -150,8 +146,6 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
   };
 
   const scratch = stackScratch();
-  const loadTop = o.loadHeight === 'top-flange';
-  const loadBot = o.loadHeight === 'bottom-flange';
   const gammaM1 = o.factors.gammaM1;
   const plateau = lambda0 * lambda0 * (1 + 1e-9);
   return {
@@ -227,8 +221,7 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
     for (let k = 0; k < count; k++) {
       const sec = member(k);
       stackProps(sec, m.fyTop, m.fyBot, m.fyw, p);
-      // loadHeightZg without its argument object
-      const zg = loadTop ? p.h - p.zShear : loadBot ? -p.zShear : 0;
+      const zg = zgOf(o.loadHeight, p.h, p.zShear);
       const curve = ltbCurveWelded(p.h, Math.min(sec.top.b, sec.bot.b));
       const zjTop = hasTop ? zjOf(sec, p, 1) : 0;
       const zjBot = hasBot ? zjOf(sec, p, -1) : 0;

@@ -207,9 +207,13 @@ export function wagnerZj(ctx: { s: CheckContext['s']; g: Pick<CheckContext['g'],
 
 /** Load height above the shear centre (mm), positive destabilising, for downward (gravity) loads. */
 export function loadHeightZg(ctx: { o: Pick<CheckContext['o'], 'loadHeight'>; g: Pick<CheckContext['g'], 'h' | 'zShear'> }): number {
-  const { o, g } = ctx;
-  if (o.loadHeight === 'top-flange') return g.h - g.zShear;
-  if (o.loadHeight === 'bottom-flange') return -g.zShear;
+  return zgOf(ctx.o.loadHeight, ctx.g.h, ctx.g.zShear);
+}
+
+/** loadHeightZg on plain numbers: zg (mm) of the load height for a section of depth h with its shear centre at zShear above the underside. */
+export function zgOf(loadHeight: CheckContext['o']['loadHeight'], h: number, zShear: number): number {
+  if (loadHeight === 'top-flange') return h - zShear;
+  if (loadHeight === 'bottom-flange') return -zShear;
   return 0;
 }
 
