@@ -12,7 +12,7 @@ import { fileURLToPath } from 'node:url';
 import { afterAll, expect, test } from 'vitest';
 import { JobManager } from '../../services/api/src/jobs/manager.js';
 import { openJobStore, SqliteJobStore } from '../../services/api/src/jobs/sqlite.js';
-import type { JobRecord } from '../../services/api/src/jobs/store.js';
+import { summaryOf, type JobRecord, type JobSummary } from '../../services/api/src/jobs/store.js';
 import type { MarkResult, ScheduleJson } from '@platesmith/schedule';
 
 // better-sqlite3 is the service's dependency, not the test package's: load it from there
@@ -21,7 +21,7 @@ const dir = mkdtempSync(join(tmpdir(), 'platesmith-store-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 const input = { defaults: {}, girders: [{ mark: 'G1', quantity: 1 }, { mark: 'G2', quantity: 2 }] } as unknown as ScheduleJson;
-const job = (id: string, status: JobRecord['status'] = 'queued'): JobRecord => ({ id, kind: 'schedule', status, createdAt: '2026-01-01T00:00:00.000Z', startedAt: null, finishedAt: null, progress: null, input, result: null, error: null, resumed: 0 });
+const job = (id: string, status: JobRecord['status'] = 'queued'): JobRecord => ({ id, kind: 'schedule', owner: null, status, name: null, marks: 2, createdAt: '2026-01-01T00:00:00.000Z', startedAt: null, finishedAt: null, progress: null, input, result: null, error: null, resumed: 0 });
 const mark = (m: string): MarkResult => ({ mark: m, quantity: 1, status: 'failed', search: null, adopted: null, error: { code: 'X', message: 'invented' } });
 
 test('file store: WAL, round trip, marks, unfinished, cascade delete, reopen keeps everything', async () => {
@@ -31,9 +31,12 @@ test('file store: WAL, round trip, marks, unfinished, cascade delete, reopen kee
   await s.insert(job('j1'));
   await s.insert(job('j2', 'running'));
   await s.insert(job('j3', 'done'));
-  expect(await s.get('j1')).toEqual(job('j1'));
-  const up = await s.update('j1', { status: 'running', startedAt: '2026-01-01T00:00:01.000Z', progress: { marksDone: 1, marksTotal: 2, currentMark: 'G2', elapsedMs: 5, estimateMs: 5 } });
-  expect(up).toMatchObject({ id: 'j1', status: 'running', progress: { marksDone: 1 } });
+  expect(await s.get('j1')).toEqual(summaryOf(job('j1')));
+  expect(await s.input('j1')).toEqual(input);
+  expect(await s.result('j1')).toBeNull();
+  expect(await s.update('j1', { status: 'running', startedAt: '2026-01-01T00:00:01.000Z', progress: { marksDone: 1, marksTotal: 2, currentMark: 'G2', elapsedMs: 5, estimateMs: 5 } })).toBe(true);
+  expect(await s.get('j1')).toMatchObject({ id: 'j1', status: 'running', progress: { marksDone: 1 } });
+  expect(await s.update('nope', { status: 'done' })).toBe(false);
   await s.putMark('j1', 0, mark('G1'));
   await s.putMark('j1', 0, mark('G1')); // replaces, not duplicates
   await s.putMark('nope', 0, mark('G1')); // unknown job: ignored
@@ -84,7 +87,7 @@ test('manager on a store with interrupted jobs: takes them up, keeps stored mark
     return { name: null, marks, totals: { marks: marks.length, marksFailed: marks.length, girders: 0, tonnage: 0, marksWithoutFeasible: [], adoptedFailing: [] } };
   });
   await m.ready;
-  const done = await new Promise<JobRecord>((resolve) => {
+  const done = await new Promise<JobSummary>((resolve) => {
     const unsub = m.subscribe('k1', (e) => {
       if (e.type === 'done') {
         unsub();
@@ -94,7 +97,7 @@ test('manager on a store with interrupted jobs: takes them up, keeps stored mark
   });
   expect(ran).toEqual([['G2']]); // G1 was stored: not run again
   expect(done).toMatchObject({ status: 'done', resumed: 1, progress: { marksDone: 2, marksTotal: 2 } });
-  expect(done.result!.marks.map((x) => x.mark)).toEqual(['G1', 'G2']);
+  expect((await s.result('k1'))!.marks.map((x) => x.mark)).toEqual(['G1', 'G2']);
   expect((await s.marks('k1')).map((x) => x.mark.mark)).toEqual(['G1', 'G2']);
   await m.shutdown();
   await s.close();

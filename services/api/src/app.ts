@@ -5,7 +5,9 @@ import { searchOnPool } from '@platesmith/search/pool';
 import Fastify, { type FastifyBaseLogger, type FastifyInstance, type FastifyServerOptions } from 'fastify';
 import { ApiError } from './errors.js';
 import { runScheduleJob } from './domain.js';
-import { JobManager } from './jobs/manager.js';
+import { JobManager, type JobManagerOptions } from './jobs/manager.js';
+import type { ApiKeys } from './keys.js';
+import { accessPlugin } from './plugins/access.js';
 import { MemoryJobStore, type JobStore } from './jobs/store.js';
 import { docsPlugin } from './plugins/docs.js';
 import { poolPlugin } from './plugins/pool.js';
@@ -38,9 +40,15 @@ export interface ApiOptions {
   spaceCap?: number;
   /** where schedule jobs live (default in memory) */
   jobStore?: JobStore;
-  /** schedule jobs run at once (1) and queued before 503 (100) */
+  /** marks of schedule jobs searched at once (1: each uses every worker) and jobs queued or running before 503 (100) */
   jobConcurrency?: number;
   maxQueuedJobs?: number;
+  /** API keys (PLATESMITH_API_KEYS / _FILE); null or absent: /v1 is open */
+  keys?: ApiKeys | null;
+  /** requests a minute per key, or per client address without keys; 0: no limit (PLATESMITH_RATE_LIMIT, default 600) */
+  rateLimit?: number;
+  /** per-key quota, time budgets and retention of schedule jobs (PLATESMITH_JOB_QUOTA, _MARK_BUDGET_MS, _JOB_BUDGET_MS, _JOB_RETENTION) */
+  jobs?: Pick<JobManagerOptions, 'quota' | 'markBudgetMs' | 'jobBudgetMs' | 'retentionMs'>;
   /** adds the internal test routes (worker crash); never in production */
   testHooks?: boolean;
 }
@@ -81,6 +89,7 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
   });
 
   await app.register(problemPlugin);
+  await app.register(accessPlugin, { keys: opts.keys ?? null, ...(opts.rateLimit !== undefined ? { rateLimit: opts.rateLimit } : {}) });
   await app.register(docsPlugin);
   await app.register(fastifySSE, { heartbeatInterval: 15_000 });
   await app.register(poolPlugin, {
@@ -90,17 +99,27 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
   });
 
   const spaceCap = opts.spaceCap ?? DEFAULT_SPACE_CAP;
-  // schedules search on the same pool, one job at a time, outside the synchronous searches' gate
+  // schedules search on the same pool, outside the synchronous searches' gate: each mark takes a
+  // fair turn (round-robin over keys, then jobs) within the mark's and the job's time budgets
   const jobs = new JobManager(
     opts.jobStore ?? new MemoryJobStore(),
-    (input, signal, onProgress) => runScheduleJob(input, (task, s) => searchOnPool(app.searcher.pool, task, s), signal, onProgress, spaceCap),
+    (input, signal, onProgress, turn) => runScheduleJob(input, (task) => turn((s) => searchOnPool(app.searcher.pool, task, s)), signal, onProgress, spaceCap),
     {
-      ...(opts.jobConcurrency !== undefined ? { concurrency: opts.jobConcurrency } : {}),
-      ...(opts.maxQueuedJobs !== undefined ? { maxQueued: opts.maxQueuedJobs } : {}),
-      onFailure: (id, err) => app.log.error({ err, jobId: id }, 'schedule job failed'),
+      ...opts.jobs,
+      ...(opts.jobConcurrency !== undefined ? { slots: opts.jobConcurrency } : {}),
+      ...(opts.maxQueuedJobs !== undefined ? { maxActive: opts.maxQueuedJobs } : {}),
+      onFailure: (id, err) => {
+        const code = (err as { code?: unknown } | null)?.code;
+        if (code === 'STORE_BUSY') app.log.warn({ jobId: id, code }, 'job store busy: a job write was skipped (the next one carries its state)');
+        else app.log.error({ err, jobId: id }, 'schedule job failed');
+      },
     },
   );
   app.decorate('jobs', jobs);
+  app.addHook('onReady', async () => {
+    const h = jobs.store.health();
+    if (!h.ok) app.log.error({ cause: h.cause }, 'the job store is unusable: schedule routes answer 503 STORE_UNAVAILABLE and /ready 503 until it is repaired or replaced (PLATESMITH_DB)');
+  });
   app.addHook('preClose', async () => {
     closing = true;
     await jobs.shutdown();

@@ -1,67 +1,138 @@
 import { randomUUID } from 'node:crypto';
-import { isDomainError } from '@platesmith/catalogue';
+import { DomainError, isDomainError } from '@platesmith/catalogue';
 import { finishSchedule, type MarkResult, type ScheduleJson, type ScheduleProgress, type ScheduleResult } from '@platesmith/schedule';
 import { ApiError } from '../errors.js';
-import { TERMINAL, type JobPatch, type JobRecord, type JobStore } from './store.js';
+import { FairGate } from './fair.js';
+import { TERMINAL, type JobPatch, type JobRecord, type JobStore, type JobSummary } from './store.js';
 
-export type JobEvent = { type: 'progress' | 'done'; job: JobRecord };
+export type JobEvent = { type: 'progress' | 'done'; job: JobSummary };
 
-export type ScheduleWork = (input: ScheduleJson, signal: AbortSignal, onProgress: (p: ScheduleProgress) => void) => Promise<ScheduleResult>;
+/**
+ * One fair turn on the pool: waits for the job's turn (fairness between keys and jobs), then
+ * runs `search` with a signal that aborts on cancellation and at the mark's or the job's time
+ * budget. A mark past its budget rejects with the DomainError MARK_BUDGET_EXCEEDED (the mark
+ * fails alone, as data); a job past its budget is stopped.
+ */
+export type Turn = <T>(search: (signal: AbortSignal) => Promise<T>) => Promise<T>;
+
+export type ScheduleWork = (input: ScheduleJson, signal: AbortSignal, onProgress: (p: ScheduleProgress) => void, turn: Turn) => Promise<ScheduleResult>;
+
+/** Defaults of the job settings (README: "Running it for a team"). */
+export const JOB_DEFAULTS = {
+  maxActive: 100,
+  quota: 10,
+  slots: 1,
+  markBudgetMs: 10 * 60_000,
+  jobBudgetMs: 6 * 3_600_000,
+  retentionMs: 7 * 86_400_000,
+} as const;
 
 export interface JobManagerOptions {
-  /** jobs run at once (default 1: each job already uses every worker) */
-  concurrency?: number;
-  /** jobs waiting before 503 (default 100) */
-  maxQueued?: number;
-  /** called with an unexpected failure of a job (for the log) */
+  /** marks searched at once, over all jobs (default 1: each search already uses every worker) */
+  slots?: number;
+  /** jobs queued or running, over all keys, before 503 JOBS_SATURATED (default 100) */
+  maxActive?: number;
+  /** jobs queued or running per owner before 429 JOB_QUOTA_EXCEEDED (default 10; jobs without an owner have none) */
+  quota?: number;
+  /** time one mark's search may take, ms; past it the mark fails alone (default 10 min) */
+  markBudgetMs?: number;
+  /** time the searches of one job may take in all (its own turns, not its waits), ms; past it the job fails (default 6 h) */
+  jobBudgetMs?: number;
+  /** finished jobs are deleted this long after they finished, ms; 0 keeps them (default 7 days) */
+  retentionMs?: number;
+  /** called with an unexpected failure of a job or of a store write (for the log) */
   onFailure?: (id: string, err: unknown) => void;
   /**
    * take up at start the jobs the store holds as queued or running (left by a service that
    * stopped or was killed): finished marks are kept, the others run again (default true)
    */
   resume?: boolean;
+  /** clock, ms since the epoch (retention tests inject one) */
+  now?: () => number;
 }
 
-/** Abort reason of a job stopped by shutdown (not by a client): it stays queued in the store. */
+/** Abort reasons of a job stopped by shutdown (it stays queued in the store) or by its budget. */
 const SHUTDOWN = Symbol('shutdown');
+const JOB_BUDGET = Symbol('job budget');
+/** waits before the retries of a job's final write, ms (~15 s in all) */
+const FINAL_RETRIES_MS = [500, 1000, 2000, 4000, 8000];
+
+interface Active {
+  job: JobSummary;
+  ac: AbortController;
+  done: Promise<void>;
+  /** ms of search this job's turns have taken */
+  spentMs: number;
+  /** marks whose write failed (retried before the job's next write) */
+  unsaved: Map<number, MarkResult>;
+}
 
 /**
- * Runs schedule jobs from a queue, records their state in the store, and tells listeners.
+ * Runs schedule jobs, records their state in the store, and tells listeners.
+ *
+ * Every admitted job runs at once; their marks take fair turns on the pool (FairGate): round-robin
+ * over owners, then over each owner's jobs. A job is `queued` until its first mark gets a turn.
  *
  * Restart rule: each mark's result is stored as soon as the mark finishes. When the service
  * stops, by a signal (shutdown) or by being killed, the jobs it ran stay (or are put back)
  * queued in the store; the next manager on the same store takes them up at start, keeps every
  * finished mark as it was stored and runs only the marks without a result. `resumed` counts
  * how often a job was taken up again after it had started.
+ *
+ * Store failures never reject into the caller's void: a failed progress write is logged and the
+ * next one carries the state; a failed mark write is retried before the job's next write; a job
+ * whose final write fails stays queued or running in the store and is taken up at the next start.
  */
 export class JobManager {
   readonly #store: JobStore;
   readonly #work: ScheduleWork;
-  readonly #concurrency: number;
-  readonly #maxQueued: number;
+  readonly #gate: FairGate;
+  readonly #o: Required<Omit<JobManagerOptions, 'onFailure' | 'resume' | 'now'>>;
   readonly #onFailure: (id: string, err: unknown) => void;
-  readonly #queue: string[] = [];
-  readonly #running = new Map<string, { ac: AbortController; done: Promise<void> }>();
+  readonly #now: () => number;
+  readonly #active = new Map<string, Active>();
   readonly #listeners = new Map<string, Set<(e: JobEvent) => void>>();
   /** per-job chain of store writes, so events leave in the order they happened */
-  readonly #writes = new Map<string, Promise<unknown>>();
+  readonly #writes = new Map<string, Promise<void>>();
   readonly #ready: Promise<void>;
+  #sweeper: NodeJS.Timeout | undefined;
   #stopping = false;
+  readonly #stopped = new AbortController();
 
   constructor(store: JobStore, work: ScheduleWork, opts: JobManagerOptions = {}) {
     this.#store = store;
     this.#work = work;
-    this.#concurrency = opts.concurrency ?? 1;
-    this.#maxQueued = opts.maxQueued ?? 100;
+    this.#o = {
+      slots: opts.slots ?? JOB_DEFAULTS.slots,
+      maxActive: opts.maxActive ?? JOB_DEFAULTS.maxActive,
+      quota: opts.quota ?? JOB_DEFAULTS.quota,
+      markBudgetMs: opts.markBudgetMs ?? JOB_DEFAULTS.markBudgetMs,
+      jobBudgetMs: opts.jobBudgetMs ?? JOB_DEFAULTS.jobBudgetMs,
+      retentionMs: opts.retentionMs ?? JOB_DEFAULTS.retentionMs,
+    };
+    this.#gate = new FairGate(this.#o.slots);
     this.#onFailure = opts.onFailure ?? (() => {});
+    this.#now = opts.now ?? Date.now;
     this.#ready = opts.resume === false ? Promise.resolve() : this.#recover();
+    if (this.#o.retentionMs > 0) {
+      // a sweep at start and then every tenth of the retention (at most hourly); never keeps the process alive
+      const every = Math.min(this.#o.retentionMs / 10, 3_600_000);
+      void this.#ready.then(() => this.sweep());
+      this.#sweeper = setInterval(() => void this.sweep(), Math.max(every, 1000));
+      this.#sweeper.unref();
+    }
   }
 
   get store(): JobStore {
     return this.#store;
   }
 
-  /** resolves when the jobs left in the store by an earlier service are queued again */
+  /** the fair gate of the marks' turns (tests watch it) */
+  get gate(): FairGate {
+    return this.#gate;
+  }
+
+  /** resolves when the jobs left in the store by an earlier service are taken up again */
   get ready(): Promise<void> {
     return this.#ready;
   }
@@ -69,23 +140,55 @@ export class JobManager {
   async #recover(): Promise<void> {
     try {
       for (const j of await this.#store.unfinished()) {
-        await this.#store.update(j.id, { status: 'queued', resumed: j.startedAt !== null ? j.resumed + 1 : j.resumed });
-        this.#queue.push(j.id);
+        const resumed = j.startedAt !== null ? j.resumed + 1 : j.resumed;
+        await this.#store.update(j.id, { status: 'queued', resumed });
+        this.#start({ ...j, status: 'queued', resumed }, null);
       }
     } catch (e) {
       this.#onFailure('(recovery)', e);
     }
-    this.#pump();
   }
 
-  async submit(input: ScheduleJson): Promise<JobRecord> {
+  /**
+   * Deletes the finished jobs older than the retention; resolves with their count (0 on a store
+   * failure, which is logged). Runs on a timer; tests call it with their clock.
+   */
+  async sweep(): Promise<number> {
+    if (this.#o.retentionMs <= 0) return 0;
+    try {
+      return await this.#store.purgeFinished(new Date(this.#now() - this.#o.retentionMs).toISOString());
+    } catch (e) {
+      this.#onFailure('(retention)', e);
+      return 0;
+    }
+  }
+
+  /** Admits a job of `owner` (null when keys are off): 503 when the service holds too many, 429 over the owner's quota. */
+  async submit(input: ScheduleJson, owner: string | null = null): Promise<JobSummary> {
     await this.#ready;
-    if (this.#queue.length >= this.#maxQueued) throw new ApiError('JOBS_SATURATED', `${this.#queue.length} schedule jobs are queued (the limit is ${this.#maxQueued})`, { retryAfter: 5 });
-    const job: JobRecord = { id: randomUUID(), kind: 'schedule', status: 'queued', createdAt: new Date().toISOString(), startedAt: null, finishedAt: null, progress: null, input, result: null, error: null, resumed: 0 };
-    await this.#store.insert(job);
-    this.#queue.push(job.id);
-    this.#pump();
-    return job;
+    if (this.#stopping) throw new ApiError('SHUTTING_DOWN', 'the service is shutting down', { retryAfter: 5 });
+    if (this.#active.size >= this.#o.maxActive) throw new ApiError('JOBS_SATURATED', `${this.#active.size} schedule jobs are queued or running (the limit is ${this.#o.maxActive})`, { retryAfter: 5 });
+    const job: JobRecord = {
+      id: randomUUID(),
+      kind: 'schedule',
+      owner,
+      status: 'queued',
+      name: input.name ?? null,
+      marks: input.girders.length,
+      createdAt: new Date(this.#now()).toISOString(),
+      startedAt: null,
+      finishedAt: null,
+      progress: null,
+      input,
+      result: null,
+      error: null,
+      resumed: 0,
+    };
+    const stored = await this.#store.insert(job, owner !== null ? this.#o.quota : undefined);
+    if (!stored) throw new ApiError('JOB_QUOTA_EXCEEDED', `this key has ${this.#o.quota} schedule jobs queued or running (its quota); wait for one to finish or cancel one`, { retryAfter: 30, extra: { quota: this.#o.quota } });
+    const { input: _i, result: _r, ...summary } = job;
+    this.#start(summary, input);
+    return summary;
   }
 
   /** Listens to one job's events until the returned function is called. */
@@ -99,65 +202,96 @@ export class JobManager {
     };
   }
 
-  /** Cancels a queued or running job and resolves with its final record; a finished job is returned as it is. */
-  async cancel(id: string): Promise<JobRecord | undefined> {
-    const q = this.#queue.indexOf(id);
-    if (q >= 0) {
-      this.#queue.splice(q, 1);
-      await this.#write(id, { status: 'cancelled', finishedAt: new Date().toISOString() }, 'done');
-    }
-    const r = this.#running.get(id);
-    if (r) {
-      r.ac.abort(new DOMException('the schedule was cancelled', 'AbortError'));
-      await r.done;
+  /** Cancels a queued or running job and resolves with its final summary; a finished job is returned as it is. */
+  async cancel(id: string): Promise<JobSummary | undefined> {
+    const a = this.#active.get(id);
+    if (a) {
+      a.ac.abort(new DOMException('the schedule was cancelled', 'AbortError'));
+      await a.done;
     }
     return this.#store.get(id);
   }
 
-  /** Deletes a finished job (cancel first if it runs). */
+  /** Deletes a job (cancelled first if it runs). */
   async delete(id: string): Promise<boolean> {
     await this.cancel(id);
     return this.#store.delete(id);
   }
 
   /**
-   * Stops for a shutdown: queued jobs stay queued in the store, running ones are stopped and put
-   * back to queued (their finished marks are kept), so the next service on the same store
-   * resumes them. Waits for the running jobs to settle.
+   * Stops for a shutdown: running and waiting jobs are stopped and put back to queued (their
+   * finished marks are kept), so the next service on the same store resumes them. Waits for them
+   * to settle.
    */
   async shutdown(): Promise<void> {
     await this.#ready;
     this.#stopping = true;
-    this.#queue.length = 0;
-    const running = [...this.#running.values()];
-    for (const r of running) r.ac.abort(SHUTDOWN);
-    await Promise.all(running.map((r) => r.done));
+    this.#stopped.abort();
+    if (this.#sweeper) clearInterval(this.#sweeper);
+    const all = [...this.#active.values()];
+    for (const a of all) a.ac.abort(SHUTDOWN);
+    await Promise.all(all.map((a) => a.done));
   }
 
-  #pump(): void {
-    while (!this.#stopping && this.#running.size < this.#concurrency && this.#queue.length > 0) {
-      const id = this.#queue.shift()!;
-      const ac = new AbortController();
-      const entry = { ac, done: Promise.resolve() };
-      this.#running.set(id, entry);
-      entry.done = this.#run(id, ac).finally(() => {
-        this.#running.delete(id);
-        this.#pump();
+  #start(job: JobSummary, input: ScheduleJson | null): void {
+    const a: Active = { job, ac: new AbortController(), done: Promise.resolve(), spentMs: 0, unsaved: new Map() };
+    this.#active.set(job.id, a);
+    a.done = this.#run(a, input)
+      .catch((e: unknown) => this.#onFailure(job.id, e))
+      .finally(() => {
+        this.#active.delete(job.id);
+        this.#writes.delete(job.id);
       });
-    }
   }
 
-  async #run(id: string, ac: AbortController): Promise<void> {
-    const before = await this.#store.get(id);
-    if (!before) return;
-    const job = await this.#write(id, { status: 'running', startedAt: before.startedAt ?? new Date().toISOString() }, 'progress');
-    if (!job) return;
+  /** A fair turn for job `a`, with the mark's and the job's budgets (see Turn). */
+  #turn(a: Active): Turn {
+    const { markBudgetMs, jobBudgetMs } = this.#o;
+    return async (search) => {
+      const release = await this.#gate.acquire(a.job.owner ?? '', a.job.id, a.ac.signal);
+      const t0 = performance.now();
+      try {
+        if (a.job.status === 'queued') this.#write(a, { status: 'running', startedAt: a.job.startedAt ?? new Date(this.#now()).toISOString() }, 'progress');
+        const left = jobBudgetMs - a.spentMs;
+        if (left <= 0) {
+          a.ac.abort(JOB_BUDGET);
+          throw JOB_BUDGET;
+        }
+        const byJob = left < markBudgetMs;
+        const timer = AbortSignal.timeout(byJob ? left : markBudgetMs);
+        try {
+          return await search(AbortSignal.any([a.ac.signal, timer]));
+        } catch (e) {
+          if (!timer.aborted || a.ac.signal.aborted) throw e;
+          if (byJob) {
+            a.ac.abort(JOB_BUDGET);
+            throw JOB_BUDGET;
+          }
+          throw new DomainError(
+            'MARK_BUDGET_EXCEEDED',
+            `the search of this mark ran past its time budget of ${markBudgetMs} ms and was stopped`,
+            'narrow the mark\'s space (fewer web depths, plates or panel counts), or ask the operator to raise PLATESMITH_MARK_BUDGET_MS',
+            'space',
+          );
+        }
+      } finally {
+        a.spentMs += performance.now() - t0;
+        release();
+      }
+    };
+  }
+
+  async #run(a: Active, given: ScheduleJson | null): Promise<void> {
+    const id = a.job.id;
+    const ac = a.ac;
     let patch: JobPatch;
     try {
-      const girders = job.input.girders;
+      const input = given ?? (await this.#store.input(id));
+      if (!input) return;
+      const girders = input.girders;
       const indexOf = new Map(girders.map((g, i) => [g.mark, i]));
       const kept = new Map<number, MarkResult>();
-      for (const { index, mark } of await this.#store.marks(id)) if (girders[index]?.mark === mark.mark) kept.set(index, mark);
+      if (given === null) for (const { index, mark } of await this.#store.marks(id)) if (girders[index]?.mark === mark.mark) kept.set(index, mark);
       const todo = girders.filter((_, i) => !kept.has(i));
       const fresh = new Map<number, MarkResult>();
       if (todo.length > 0) {
@@ -166,58 +300,88 @@ export class JobManager {
           if (finished) {
             const i = indexOf.get(finished.mark)!;
             fresh.set(i, finished);
-            void this.#putMark(id, i, finished);
+            a.unsaved.set(i, finished);
           }
-          void this.#write(id, { progress: { ...rest, marksDone: rest.marksDone + kept.size, marksTotal: girders.length } }, 'progress');
+          this.#write(a, { progress: { ...rest, marksDone: rest.marksDone + kept.size, marksTotal: girders.length } }, 'progress');
         };
-        const r: ScheduleResult = await this.#work({ ...job.input, girders: todo }, ac.signal, onProgress);
+        const r: ScheduleResult = await this.#work({ ...input, girders: todo }, ac.signal, onProgress, this.#turn(a));
         // the marks of the result are authoritative (a work function need not report `finished`)
         for (const m of r.marks) {
           const i = indexOf.get(m.mark)!;
-          if (!fresh.has(i)) void this.#putMark(id, i, m);
+          if (!fresh.has(i)) a.unsaved.set(i, m);
           fresh.set(i, m);
         }
       } else {
-        void this.#write(id, { progress: { marksDone: girders.length, marksTotal: girders.length, currentMark: null, elapsedMs: 0, estimateMs: 0 } }, 'progress');
+        this.#write(a, { progress: { marksDone: girders.length, marksTotal: girders.length, currentMark: null, elapsedMs: 0, estimateMs: 0 } }, 'progress');
       }
       const marks = girders.map((g, i) => kept.get(i) ?? fresh.get(i));
       const missing = girders.filter((_, i) => marks[i] === undefined).map((g) => g.mark);
       if (missing.length > 0) throw new Error(`the work returned no result for marks ${missing.join(', ')}`);
-      patch = { status: 'done', result: finishSchedule(job.input, marks as MarkResult[]) };
+      patch = { status: 'done', result: finishSchedule(input, marks as MarkResult[]) };
     } catch (e) {
-      if (ac.signal.aborted && ac.signal.reason === SHUTDOWN) {
+      const reason: unknown = ac.signal.aborted ? ac.signal.reason : undefined;
+      if (reason === SHUTDOWN) {
         // stopped by a shutdown: back to the queue in the store; the next start resumes it
-        await this.#write(id, { status: 'queued' }, 'progress');
+        this.#write(a, { status: 'queued' }, 'progress');
+        await this.#writes.get(id);
         return;
       }
-      if (ac.signal.aborted) patch = { status: 'cancelled' };
+      if (reason === JOB_BUDGET) {
+        const done = (a.job.progress?.marksDone ?? 0);
+        patch = { status: 'failed', error: { code: 'JOB_BUDGET_EXCEEDED', message: `the schedule's searches ran past the job's time budget of ${this.#o.jobBudgetMs} ms; ${done} of ${a.job.marks} marks finished (GET its marks); split the schedule or narrow its spaces` } };
+      } else if (ac.signal.aborted) patch = { status: 'cancelled' };
       else if (isDomainError(e)) patch = { status: 'failed', error: { code: e.code, message: e.message } };
       else {
         this.#onFailure(id, e);
         patch = { status: 'failed', error: { code: 'INTERNAL', message: 'the schedule run failed unexpectedly; it is logged under the job id' } };
       }
     }
-    await this.#write(id, { ...patch, finishedAt: new Date().toISOString() }, 'done');
+    this.#write(a, { ...patch, finishedAt: new Date(this.#now()).toISOString() }, 'done');
+    await this.#writes.get(id);
   }
 
-  /** stores one finished mark, in the job's chain of writes (before the progress that counts it) */
-  #putMark(id: string, index: number, m: MarkResult): Promise<unknown> {
-    const prev = this.#writes.get(id) ?? Promise.resolve();
-    const next = prev.then(() => this.#store.putMark(id, index, m));
-    this.#writes.set(id, next.catch(() => undefined));
-    return next.catch((e: unknown) => this.#onFailure(id, e));
+  /** waits `ms`, or less when the manager stops */
+  #pause(ms: number): Promise<void> {
+    return new Promise((resolve) => {
+      const t = setTimeout(resolve, ms);
+      t.unref();
+      this.#stopped.signal.addEventListener('abort', () => {
+        clearTimeout(t);
+        resolve();
+      }, { once: true });
+    });
   }
 
-  #write(id: string, patch: JobPatch, type: JobEvent['type']): Promise<JobRecord | undefined> {
+  /**
+   * Queues a write of the job's state in its chain: applies the patch to the summary in memory,
+   * tells the listeners, and writes the patch's fields only (marks not yet stored go first). A
+   * failed write is logged, never thrown: the job runs on and the next write carries its state.
+   */
+  #write(a: Active, patch: JobPatch, type: JobEvent['type']): void {
+    const id = a.job.id;
+    const { result: _r, ...shown } = patch;
+    a.job = { ...a.job, ...shown };
+    const snapshot = a.job;
     const prev = this.#writes.get(id) ?? Promise.resolve();
     const next = prev.then(async () => {
-      const job = await this.#store.update(id, patch);
-      if (job) for (const fn of this.#listeners.get(id) ?? []) fn({ type, job });
-      return job;
+      // the final state is retried a few times (a lock held by another connection passes), not during a shutdown
+      for (let attempt = 0; ; attempt++) {
+        try {
+          for (const [i, m] of [...a.unsaved]) {
+            await this.#store.putMark(id, i, m);
+            a.unsaved.delete(i);
+          }
+          await this.#store.update(id, patch);
+          break;
+        } catch (e) {
+          this.#onFailure(id, e);
+          if (type !== 'done' || attempt >= FINAL_RETRIES_MS.length || this.#stopping) break;
+          await this.#pause(FINAL_RETRIES_MS[attempt]!);
+        }
+      }
+      for (const fn of this.#listeners.get(id) ?? []) fn({ type, job: snapshot });
     });
-    this.#writes.set(id, next.catch(() => undefined));
-    if (type === 'done') void next.finally(() => this.#writes.delete(id));
-    return next;
+    this.#writes.set(id, next);
   }
 }
 

@@ -34,7 +34,7 @@ export function toProblem(err: unknown, req: FastifyRequest): Mapped {
     };
   }
   if (err instanceof ApiError) {
-    const out: Mapped = { body: { ...base(err.code, err.message, req), ...err.extra }, internal: ERROR_CODES[err.code].status >= 500 && err.code !== 'TIME_BUDGET_EXCEEDED' };
+    const out: Mapped = { body: { ...base(err.code, err.message, req), ...err.extra }, internal: ERROR_CODES[err.code].status >= 500 && err.code !== 'TIME_BUDGET_EXCEEDED' && err.code !== 'STORE_BUSY' };
     if (err.retryAfter !== undefined) out.retryAfter = err.retryAfter;
     return out;
   }

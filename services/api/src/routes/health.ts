@@ -15,11 +15,13 @@ export const healthRoutes: FastifyPluginAsyncZod = async (app) => {
     {
       schema: {
         tags: ['service'],
-        summary: 'Readiness: the search worker pool answered a ping',
+        summary: 'Readiness: the search worker pool answered a ping and the job store is usable (503 NOT_READY names the cause)',
         response: { 200: z.object({ status: z.literal('ready'), threads: z.number(), activeSearches: z.number() }), 503: ProblemDetailsJson },
       },
     },
     async () => {
+      const store = app.jobs.store.health();
+      if (!store.ok) throw new ApiError('NOT_READY', `the job store is unusable: ${store.cause}`, { retryAfter: 30 });
       try {
         await pingPool(app.searcher.pool, AbortSignal.timeout(5000));
       } catch (e) {

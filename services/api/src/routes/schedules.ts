@@ -1,11 +1,12 @@
 import { scheduleReport } from '@platesmith/report';
 import { ProblemDetailsJson, type FieldIssue } from '@platesmith/schema';
 import { parseScheduleCsv, ScheduleJson, ScheduleProgressJson, ScheduleResultJson, ScheduleRunResultJson, type ScheduleRunResult } from '@platesmith/schedule';
+import type { FastifyRequest } from 'fastify';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { z } from 'zod';
 import { ApiError, RequestInvalid } from '../errors.js';
 import { TERMINAL, type JobManager } from '../jobs/manager.js';
-import type { JobRecord, JobState } from '../jobs/store.js';
+import type { JobState, JobSummary } from '../jobs/store.js';
 
 const States = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
 
@@ -26,13 +27,13 @@ export const JobStatusJson = z
   .meta({ id: 'ScheduleJob', description: 'status and progress of a schedule job' });
 export type JobStatusJson = z.output<typeof JobStatusJson>;
 
-export function statusOf(j: JobRecord): JobStatusJson {
+export function statusOf(j: JobSummary): JobStatusJson {
   const self = `/v1/schedules/${j.id}`;
   return {
     id: j.id,
     status: j.status,
-    name: j.input.name ?? null,
-    marks: j.input.girders.length,
+    name: j.name,
+    marks: j.marks,
     createdAt: j.createdAt,
     startedAt: j.startedAt,
     finishedAt: j.finishedAt,
@@ -78,17 +79,19 @@ function queue<T>() {
 
 export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async (app, { jobs }) => {
   const store = jobs.store;
-  const load = async (id: string): Promise<JobRecord> => {
+  // with keys on, a job is shown to the key that created it only: to any other it does not exist
+  const load = async (id: string, req: FastifyRequest): Promise<JobSummary> => {
     const j = await store.get(id);
-    if (!j) throw new ApiError('JOB_NOT_FOUND', `no schedule job ${id}`);
+    if (!j || (req.keyId !== null && j.owner !== req.keyId)) throw new ApiError('JOB_NOT_FOUND', `no schedule job ${id}`);
     return j;
   };
-  const finished = async (id: string): Promise<JobRecord & { result: ScheduleRunResult }> => {
-    const j = await load(id);
-    if (j.status !== 'done' || !j.result) {
+  const finished = async (id: string, req: FastifyRequest): Promise<JobSummary & { result: ScheduleRunResult }> => {
+    const j = await load(id, req);
+    const result = j.status === 'done' ? await store.result(id) : null;
+    if (!result) {
       throw new ApiError('JOB_NOT_FINISHED', `schedule job ${j.id} is ${j.status}`, { extra: { jobStatus: j.status }, ...(TERMINAL.has(j.status) ? {} : { retryAfter: 1 }) });
     }
-    return j as JobRecord & { result: ScheduleRunResult };
+    return { ...j, result };
   };
 
   // a CSV schedule (one row per mark, see the schedule package's CSV.md) becomes the JSON body;
@@ -113,7 +116,7 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
           rationalise: z.coerce.number().int().min(1).max(50).optional().meta({ description: 'rationalise to at most K distinct sections (when the body has no tender.rationalise)' }),
           massTolerance: z.coerce.number().min(0).max(1).optional().meta({ description: 'relative tolerance of the lightest mass in the comparison, - (default 0.01)' }),
         }),
-        response: { 202: JobStatusJson, 400: ProblemDetailsJson, 413: ProblemDetailsJson, 415: ProblemDetailsJson, 422: ProblemDetailsJson, 503: ProblemDetailsJson },
+        response: { 202: JobStatusJson, 400: ProblemDetailsJson, 413: ProblemDetailsJson, 415: ProblemDetailsJson, 422: ProblemDetailsJson, 429: ProblemDetailsJson, 503: ProblemDetailsJson },
       },
     },
     async (req, reply) => {
@@ -124,7 +127,7 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
         input.tender = { objective: 'mass', maxPairs: 20_000, ...input.tender, rationalise: q.rationalise };
       }
       if (q.massTolerance !== undefined && input.compare === undefined) input.compare = { massTolerance: q.massTolerance };
-      const job = await jobs.submit(input);
+      const job = await jobs.submit(input, req.keyId);
       return reply.code(202).header('location', `/v1/schedules/${job.id}`).header('retry-after', '1').send(statusOf(job));
     },
   );
@@ -140,8 +143,9 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
       },
     },
     async (req) => {
-      const q: { limit: number; status?: JobState } = { limit: req.query.limit };
+      const q: { limit: number; status?: JobState; owner?: string } = { limit: req.query.limit };
       if (req.query.status) q.status = req.query.status;
+      if (req.keyId !== null) q.owner = req.keyId;
       return { jobs: (await store.list(q)).map(statusOf) };
     },
   );
@@ -150,7 +154,7 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
     '/v1/schedules/:id',
     { schema: { tags: ['schedules'], summary: 'Status and progress of a schedule job', params: Params, response: { 200: JobStatusJson, 404: ProblemDetailsJson } } },
     async (req, reply) => {
-      const j = await load(req.params.id);
+      const j = await load(req.params.id, req);
       if (!TERMINAL.has(j.status)) void reply.header('retry-after', '1');
       return statusOf(j);
     },
@@ -166,7 +170,7 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
         response: { 200: ScheduleRunResultJson, 404: ProblemDetailsJson, 409: ProblemDetailsJson },
       },
     },
-    async (req) => (await finished(req.params.id)).result,
+    async (req) => (await finished(req.params.id, req)).result,
   );
 
   app.get(
@@ -180,8 +184,8 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
       },
     },
     async (req) => {
-      const j = await load(req.params.id);
-      return { id: j.id, status: j.status, marksTotal: j.input.girders.length, marks: (await store.marks(j.id)).map((m) => m.mark) };
+      const j = await load(req.params.id, req);
+      return { id: j.id, status: j.status, marksTotal: j.marks, marks: (await store.marks(j.id)).map((m) => m.mark) };
     },
   );
 
@@ -197,7 +201,7 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
       },
     },
     async (req, reply) => {
-      const j = await finished(req.params.id);
+      const j = await finished(req.params.id, req);
       const html = reportOf(j.result, { subtitle: `schedule job ${j.id}`, ...(j.finishedAt ? { generatedAt: j.finishedAt } : {}) });
       // a string with a non-JSON type is sent as it is (no response schema for 200)
       return reply.type('text/html; charset=utf-8').send(html as never);
@@ -215,7 +219,7 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
       },
     },
     async (req, reply) => {
-      const j = await load(req.params.id);
+      const j = await load(req.params.id, req);
       if (TERMINAL.has(j.status)) {
         await jobs.delete(j.id);
         return reply.code(204).send(null);
@@ -239,17 +243,18 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
       preHandler: async (req) => {
         const accept = req.headers.accept;
         if (accept && !/text\/event-stream|text\/\*|\*\/\*/.test(accept)) throw new ApiError('NOT_ACCEPTABLE', 'this route only produces text/event-stream');
-        await load((req.params as { id: string }).id);
+        await load((req.params as { id: string }).id, req);
       },
     },
     async (req, reply) => {
       const id = req.params.id;
-      const q = queue<{ type: 'progress' | 'done'; job: JobRecord }>();
+      const q = queue<{ type: 'progress' | 'done'; job: JobSummary }>();
       const unsubscribe = jobs.subscribe(id, (e) => q.push(e));
       reply.raw.on('close', () => q.close());
       async function* events() {
         try {
-          const snap = await store.get(id);
+          // the store may fail meanwhile (busy, full): the stream ends, the client reconnects
+          const snap = await store.get(id).catch((err: unknown) => void req.log.warn({ err }, 'job store read failed; the event stream ends'));
           if (!snap) return;
           let n = 0;
           yield { id: String(n++), event: 'snapshot', data: statusOf(snap) };

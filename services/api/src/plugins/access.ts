@@ -1,0 +1,66 @@
+import rateLimit from '@fastify/rate-limit';
+import fp from 'fastify-plugin';
+import { ApiError } from '../errors.js';
+import type { ApiKeys } from '../keys.js';
+
+/** Default of PLATESMITH_RATE_LIMIT: requests a minute per key (or per client address without keys). */
+export const DEFAULT_RATE_LIMIT = 600;
+
+export interface AccessOptions {
+  /** the API keys; null or absent: every /v1 route is open */
+  keys?: ApiKeys | null;
+  /** requests a minute per key, or per client address when keys are off; 0 turns the limit off (default DEFAULT_RATE_LIMIT) */
+  rateLimit?: number;
+}
+
+declare module 'fastify' {
+  interface FastifyRequest {
+    /** id of the API key of the request (never the secret); null when keys are off */
+    keyId: string | null;
+  }
+}
+
+const guarded = (url: string): boolean => url === '/v1' || url.startsWith('/v1/') || url.startsWith('/v1?');
+
+/**
+ * Who may call the /v1 routes, and how often. With keys on, every /v1 request needs
+ * `Authorization: Bearer <key>` (401 problem+json otherwise; /health, /ready and the docs stay
+ * open); the key's id goes into the request's log lines and onto the jobs it creates. Then a
+ * fixed window of `rateLimit` requests a minute per key (per client address without keys), with
+ * @fastify/rate-limit: 429 RATE_LIMITED with Retry-After past it.
+ */
+export const accessPlugin = fp<AccessOptions>(
+  async (app, opts) => {
+    const keys = opts.keys ?? null;
+    app.decorateRequest('keyId', null);
+    if (keys) {
+      app.addHook('onRequest', async (req, reply) => {
+        if (!guarded(req.url)) return;
+        const m = /^Bearer[ ]+([^\s]+)[ ]*$/i.exec(req.headers.authorization ?? '');
+        const id = m ? keys.identify(m[1]!) : undefined;
+        if (id === undefined) {
+          void reply.header('www-authenticate', 'Bearer realm="platesmith"');
+          throw new ApiError('UNAUTHORIZED', m ? 'the bearer key is not one of this service\'s keys' : 'this service needs Authorization: Bearer <key> on every /v1 route');
+        }
+        req.keyId = id;
+        // the key's id (never the secret) on every later log line of the request, the completion line too
+        req.log = req.log.child({ key: id });
+        reply.log = req.log;
+      });
+    }
+    const max = opts.rateLimit ?? DEFAULT_RATE_LIMIT;
+    if (max > 0) {
+      await app.register(rateLimit, {
+        global: true,
+        max,
+        timeWindow: 60_000,
+        // after the key hook (route hooks run after the instance's): the key when there is one
+        keyGenerator: (req) => (req.keyId !== null ? `key:${req.keyId}` : `ip:${req.ip}`),
+        allowList: (req) => !guarded(req.url),
+        errorResponseBuilder: (_req, ctx) =>
+          new ApiError('RATE_LIMITED', `over ${ctx.max} requests a minute; retry in ${ctx.after}`, { retryAfter: Math.max(1, Math.ceil(ctx.ttl / 1000)), extra: { limit: ctx.max } }),
+      });
+    }
+  },
+  { name: 'platesmith-access' },
+);
