@@ -1,6 +1,7 @@
 import closeWithGrace from 'close-with-grace';
 import { buildApp, type ApiOptions } from './app.js';
 import { openJobStore } from './jobs/sqlite.js';
+import { isLoopback, settingsFromEnv } from './settings.js';
 
 /**
  * Starts the service: HOST and PORT from the environment (default 127.0.0.1:8080), pino logs at
@@ -9,9 +10,23 @@ import { openJobStore } from './jobs/sqlite.js';
  * search workers up in the background (a few small invented searches, ~2 s on 2 cores).
  */
 export async function startServer(opts: ApiOptions & { host?: string; port?: number; graceMs?: number } = {}): Promise<{ url: string; close: () => Promise<void> }> {
+  // keys, rate limit, quota, budgets, retention (README: "Running it for a team"); a malformed one stops the start
+  const team = settingsFromEnv();
   // jobs are kept in SQLite (PLATESMITH_DB, default .platesmith/jobs.sqlite) so a restart loses no finished mark
   const jobStore = opts.jobStore ?? openJobStore();
-  const app = await buildApp({ logger: { level: process.env.LOG_LEVEL ?? 'info' }, warmUp: true, ...opts, jobStore });
+  const app = await buildApp({ logger: { level: process.env.LOG_LEVEL ?? 'info' }, warmUp: true, ...team, ...opts, jobs: { ...team.jobs, ...opts.jobs }, jobStore });
+  const keys = opts.keys !== undefined ? opts.keys : team.keys;
+  // keys rotate without a restart: SIGHUP re-reads PLATESMITH_API_KEYS_FILE (a bad file keeps the keys held)
+  const onHup = (): void => {
+    if (!keys?.file) return void app.log.warn('SIGHUP: no PLATESMITH_API_KEYS_FILE to re-read');
+    try {
+      app.log.info({ keys: keys.reload() }, 'API keys re-read');
+    } catch (err) {
+      app.log.error({ err }, 'API keys file not re-read; the keys held stay');
+    }
+  };
+  process.on('SIGHUP', onHup);
+  app.addHook('onClose', async () => void process.off('SIGHUP', onHup));
   const host = opts.host ?? process.env.HOST ?? '127.0.0.1';
   const port = opts.port ?? Number(process.env.PORT ?? 8080);
   const grace = closeWithGrace({ delay: opts.graceMs ?? 10_000 }, async ({ signal, err }) => {
@@ -21,6 +36,9 @@ export async function startServer(opts: ApiOptions & { host?: string; port?: num
   });
   app.addHook('onClose', async () => grace.uninstall());
   const url = await app.listen({ host, port });
+  if (!keys && !isLoopback(host)) {
+    app.log.warn({ host }, 'serving on a non-loopback address without API keys: anyone who reaches it can run, read and delete every job; set PLATESMITH_API_KEYS or PLATESMITH_API_KEYS_FILE');
+  }
   return { url, close: () => app.close() };
 }
 

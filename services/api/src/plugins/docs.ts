@@ -19,6 +19,31 @@ export const API_DESCRIPTION = [
   'Errors are RFC 9457 application/problem+json with a stable `code`: ' + Object.keys(ERROR_CODES).join(', ') + '; domain errors (422 UNPROCESSABLE) carry the code, field and hint of the engineering packages.',
 ].join('\n');
 
+type Operation = { responses?: Record<string, unknown>; security?: unknown[] };
+type OpenApiDoc = { paths?: Record<string, Record<string, Operation>>; components?: Record<string, Record<string, unknown>> };
+
+const PROBLEM = { description: 'problem details (RFC 9457)', content: { 'application/problem+json': { schema: { $ref: '#/components/schemas/ProblemDetails' } } } };
+
+/**
+ * Declares the bearer scheme: every /v1 operation may need `Authorization: Bearer <key>` (when
+ * the service runs with PLATESMITH_API_KEYS or _FILE; without keys the empty requirement holds)
+ * and may answer 401 UNAUTHORIZED and 429 RATE_LIMITED; /health, /ready and the docs are open.
+ */
+export function withBearer(doc: OpenApiDoc): OpenApiDoc {
+  const components = { ...doc.components, securitySchemes: { ...doc.components?.['securitySchemes'], bearerAuth: { type: 'http', scheme: 'bearer', description: 'an API key of the service (PLATESMITH_API_KEYS or PLATESMITH_API_KEYS_FILE); required on /v1 when the service runs with keys' } } };
+  const paths: NonNullable<OpenApiDoc['paths']> = {};
+  for (const [path, ops] of Object.entries(doc.paths ?? {})) {
+    if (!path.startsWith('/v1')) {
+      paths[path] = ops;
+      continue;
+    }
+    paths[path] = Object.fromEntries(
+      Object.entries(ops).map(([method, op]) => [method, { ...op, security: [{ bearerAuth: [] }, {}], responses: { ...op.responses, 401: op.responses?.['401'] ?? PROBLEM, 429: op.responses?.['429'] ?? PROBLEM } }]),
+    );
+  }
+  return { ...doc, components, paths };
+}
+
 /** OpenAPI 3.1 generated from the zod schemas, at /openapi.json, and a readable page at /docs. */
 export const docsPlugin = fp(
   async (app) => {
@@ -35,7 +60,7 @@ export const docsPlugin = fp(
         ],
       },
       transform: jsonSchemaTransform,
-      transformObject: jsonSchemaTransformObject,
+      transformObject: (doc) => withBearer(jsonSchemaTransformObject(doc) as OpenApiDoc) as ReturnType<typeof jsonSchemaTransformObject>,
     });
     await app.register(swaggerUi, { routePrefix: '/docs', uiConfig: { docExpansion: 'list', deepLinking: false } });
     app.get('/openapi.json', { schema: { hide: true } }, async () => app.swagger());
