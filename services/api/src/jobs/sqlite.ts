@@ -122,6 +122,8 @@ export interface SqliteJobStoreOptions {
   busyTimeoutMs?: number;
   /** run PRAGMA quick_check at open (default true); a store that fails it opens unusable, /ready says why */
   integrityCheck?: boolean;
+  /** cap on the file's size in pages of 4 KiB (PRAGMA max_page_count); past it a write fails as on a full disk (tests make a full store with it) */
+  maxPages?: number;
 }
 
 type Statements = {
@@ -181,6 +183,7 @@ export class SqliteJobStore implements JobStore {
       this.#db.pragma('journal_mode = WAL');
       this.#db.pragma('synchronous = FULL');
       this.#db.pragma('foreign_keys = ON');
+      if (opts.maxPages !== undefined) this.#db.pragma(`max_page_count = ${Math.max(1, Math.floor(opts.maxPages))}`);
     } catch (e) {
       const code = sqliteCode(e);
       if (code === 'SQLITE_NOTADB') {
