@@ -258,7 +258,7 @@ export class JobManager {
           throw JOB_BUDGET;
         }
         const byJob = left < markBudgetMs;
-        const timer = AbortSignal.timeout(byJob ? left : markBudgetMs);
+        const timer = AbortSignal.timeout(Math.max(1, Math.ceil(byJob ? left : markBudgetMs)));
         try {
           return await search(AbortSignal.any([a.ac.signal, timer]));
         } catch (e) {
