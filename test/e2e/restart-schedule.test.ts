@@ -42,7 +42,7 @@ afterAll(() => {
 function startChild(): Promise<{ child: ChildProcess; url: string }> {
   const child = spawn(process.execPath, ['--conditions=@platesmith/source', '--import', 'tsx', '--input-type=module', '-e', CHILD], {
     cwd: root,
-    env: { ...process.env, DB: db, LOG_LEVEL: 'silent' },
+    env: { ...process.env, DB: db, LOG_LEVEL: 'silent', PLATESMITH_RATE_LIMIT: 'off' },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   children.add(child);

@@ -38,17 +38,21 @@ export const poolPlugin = fp<PoolOptions>(
     const pool = createSearchPool({ ...(opts.threads !== undefined ? { threads: opts.threads } : {}), onError: (e) => app.log.error({ err: e }, 'search pool error') });
     const max = opts.maxActiveSearches ?? pool.threads * 4;
     let active = 0;
+    // a shutdown stops the searches in flight (503 SHUTTING_DOWN), or their requests would hold the close past its grace
+    const closing = new AbortController();
+    app.addHook('preClose', async () => closing.abort());
     const searcher: Searcher = {
       pool,
       active: () => active,
       async run(task, { client, budget, budgetMs }) {
         if (active >= max) throw new ApiError('POOL_SATURATED', `${active} searches are in flight (the limit is ${max})`, { retryAfter: 1 });
-        const signals = [client, budget].filter((s): s is AbortSignal => s !== undefined);
+        const signals = [client, budget, closing.signal].filter((s): s is AbortSignal => s !== undefined);
         active++;
         try {
           return await searchOnPool(pool, task, signals.length ? AbortSignal.any(signals) : undefined);
         } catch (e) {
           if (isDomainError(e)) throw e;
+          if (closing.signal.aborted) throw new ApiError('SHUTTING_DOWN', 'the service is shutting down; the search was stopped', { retryAfter: 5 });
           if (budget?.aborted) throw new ApiError('TIME_BUDGET_EXCEEDED', `the search was aborted at its time budget of ${budgetMs} ms; narrow the space or raise budgetMs`, { extra: { budgetMs } });
           if (client?.aborted) throw new ApiError('INTERNAL', 'the client went away; the search was aborted', { cause: e });
           if (e instanceof Error && /queue is at limit/i.test(e.message)) throw new ApiError('POOL_SATURATED', 'the search queue is full', { retryAfter: 1 });
