@@ -4,11 +4,12 @@
  * and eight synchronous searches of the default space, each several seconds of work, and is sent
  * SIGTERM while they run. It must exit by itself, cleanly (code 0), within 10 s: a liveness bound
  * (close-with-grace's delay), not a speed target. Then a restart on the same file finds both
- * jobs queued again (a shutdown puts running jobs back). Loopback only; the test kills what it
- * started.
+ * jobs queued again (a shutdown puts running jobs back). And SIGHUP re-reads the keys file without
+ * stopping the service (close-with-grace would close on it). Loopback only; the test kills what it
+ * started; the keys are invented.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
@@ -29,10 +30,10 @@ afterAll(() => {
   rmSync(dir, { recursive: true, force: true });
 });
 
-function startChild(): Promise<{ child: ChildProcess; url: string; exited: Promise<number | null> }> {
+function startChild(extra: Record<string, string> = {}): Promise<{ child: ChildProcess; url: string; exited: Promise<number | null> }> {
   const child = spawn(process.execPath, ['--conditions=@platesmith/source', '--import', 'tsx', '--input-type=module', '-e', CHILD], {
     cwd: root,
-    env: { ...process.env, PLATESMITH_DB: join(dir, 'jobs.sqlite'), LOG_LEVEL: 'silent', PLATESMITH_RATE_LIMIT: 'off' },
+    env: { ...process.env, PLATESMITH_DB: join(dir, 'jobs.sqlite'), LOG_LEVEL: 'silent', PLATESMITH_RATE_LIMIT: 'off', ...extra },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   children.add(child);
@@ -95,3 +96,27 @@ test('SIGTERM under load: the service exits by itself within 10 s (liveness boun
   second.child.kill('SIGKILL');
   await second.exited;
 }, 120_000);
+
+test('SIGHUP re-reads the keys file; the service keeps running', async () => {
+  const file = join(dir, 'keys.txt');
+  const A = 'alice:0123456789abcdef0123456789abcdef';
+  const B = 'bob:fedcba9876543210fedcba9876543210';
+  writeFileSync(file, `${A}\n`);
+  const s = await startChild({ PLATESMITH_API_KEYS_FILE: file, PLATESMITH_DB: join(dir, 'hup.sqlite') });
+  const as = async (line: string) => (await fetch(`${s.url}/v1/schedules`, { headers: { authorization: `Bearer ${line.split(':')[1]}` } })).status;
+  expect(await as(A)).toBe(200);
+  expect(await as(B)).toBe(401);
+  writeFileSync(file, `${B}\n`);
+  s.child.kill('SIGHUP');
+  // bounded: the reload happens when the signal is handled
+  let status = 0;
+  for (let i = 0; i < 100 && status !== 200; i++) {
+    status = await as(B);
+    if (status !== 200) await new Promise((r) => setTimeout(r, 50));
+  }
+  expect(status).toBe(200);
+  expect(await as(A)).toBe(401);
+  expect(s.child.exitCode).toBeNull();
+  s.child.kill('SIGKILL');
+  await s.exited;
+}, 60_000);

@@ -30,11 +30,11 @@ export function parseKeys(text: string, field: string): Key[] {
     const m = NAMED.exec(e);
     const secret = m ? m[2]!.trim() : e;
     if (secret.length < MIN_KEY_LENGTH) {
-      throw new DomainError('API_KEYS_INVALID', `${field}: key ${n + 1} has ${secret.length} characters; a key has at least ${MIN_KEY_LENGTH}`, 'use long random keys, e.g. the output of `openssl rand -hex 24`', field);
+      throw new DomainError('API_KEYS_INVALID', `key ${n + 1} of ${field} has ${secret.length} characters; a key has at least ${MIN_KEY_LENGTH}`, 'use long random keys, e.g. the output of `openssl rand -hex 24`', field);
     }
     const digest = sha256(secret);
     const id = m ? m[1]! : `key-${digest.toString('hex').slice(0, 10)}`;
-    if (ids.has(id)) throw new DomainError('API_KEYS_INVALID', `${field}: the key id ${id} is given twice`, 'give each key its own name (NAME:SECRET) and each secret once', field);
+    if (ids.has(id)) throw new DomainError('API_KEYS_INVALID', `the key id ${id} is given twice in ${field}`, 'give each key its own name (NAME:SECRET) and each secret once', field);
     ids.add(id);
     keys.push({ id, digest });
   }

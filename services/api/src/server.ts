@@ -29,7 +29,8 @@ export async function startServer(opts: ApiOptions & { host?: string; port?: num
   app.addHook('onClose', async () => void process.off('SIGHUP', onHup));
   const host = opts.host ?? process.env.HOST ?? '127.0.0.1';
   const port = opts.port ?? Number(process.env.PORT ?? 8080);
-  const grace = closeWithGrace({ delay: opts.graceMs ?? 10_000 }, async ({ signal, err }) => {
+  // SIGHUP re-reads the keys (below), it does not close the service
+  const grace = closeWithGrace({ delay: opts.graceMs ?? 10_000, skip: ['SIGHUP'] }, async ({ signal, err }) => {
     if (err) app.log.error({ err }, 'closing after an uncaught error');
     else app.log.info({ signal }, 'closing');
     await app.close();
