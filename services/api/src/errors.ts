@@ -21,7 +21,7 @@ export const ERROR_CODES = {
   JOB_QUOTA_EXCEEDED: { status: 429, title: 'Job quota reached', when: 'the key already has its quota of schedule jobs queued or running (PLATESMITH_JOB_QUOTA); retry after Retry-After seconds' },
   RATE_LIMITED: { status: 429, title: 'Too many requests', when: 'the key (or the client address, without keys) is over PLATESMITH_RATE_LIMIT requests a minute; retry after Retry-After seconds' },
   POOL_SATURATED: { status: 503, title: 'Search workers busy', when: 'too many searches in flight or queued; retry after Retry-After seconds' },
-  JOBS_SATURATED: { status: 503, title: 'Schedule queue full', when: 'too many schedule jobs queued; retry after Retry-After seconds' },
+  JOBS_SATURATED: { status: 503, title: 'Schedule queue full', when: 'too many schedule jobs queued or running over all keys (100); retry after Retry-After seconds' },
   STORE_BUSY: { status: 503, title: 'Job store busy', when: 'another connection holds the job store\'s lock; retry after Retry-After seconds' },
   STORE_UNAVAILABLE: { status: 503, title: 'Job store unavailable', when: 'the job store is full, corrupt, read-only or failing; /ready answers 503 and the log says why' },
   TIME_BUDGET_EXCEEDED: { status: 503, title: 'Search time budget exceeded', when: 'the search ran past its budgetMs and was aborted' },

@@ -379,7 +379,13 @@ export class JobManager {
           await this.#pause(FINAL_RETRIES_MS[attempt]!);
         }
       }
-      for (const fn of this.#listeners.get(id) ?? []) fn({ type, job: snapshot });
+      for (const fn of this.#listeners.get(id) ?? []) {
+        try {
+          fn({ type, job: snapshot });
+        } catch (e) {
+          this.#onFailure(id, e);
+        }
+      }
     });
     this.#writes.set(id, next);
   }
