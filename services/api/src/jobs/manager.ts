@@ -22,7 +22,8 @@ export const JOB_DEFAULTS = {
   maxActive: 100,
   quota: 10,
   slots: 1,
-  markBudgetMs: 10 * 60_000,
+  // a mark is a search: it may take as long as a synchronous search may at most (maxBudgetMs)
+  markBudgetMs: 5 * 60_000,
   jobBudgetMs: 6 * 3_600_000,
   retentionMs: 7 * 86_400_000,
 } as const;
@@ -34,7 +35,7 @@ export interface JobManagerOptions {
   maxActive?: number;
   /** jobs queued or running per owner before 429 JOB_QUOTA_EXCEEDED (default 10; jobs without an owner have none) */
   quota?: number;
-  /** time one mark's search may take, ms; past it the mark fails alone (default 10 min) */
+  /** time one mark's search may take, ms; past it the mark fails alone (default 5 min) */
   markBudgetMs?: number;
   /** time the searches of one job may take in all (its own turns, not its waits), ms; past it the job fails (default 6 h) */
   jobBudgetMs?: number;

@@ -6,6 +6,9 @@ import type { ApiKeys } from '../keys.js';
 /** Default of PLATESMITH_RATE_LIMIT: requests a minute per key (or per client address without keys). */
 export const DEFAULT_RATE_LIMIT = 600;
 
+/** Requests without a valid key one client address may make a minute before 429 (bounds key guessing). */
+export const AUTH_FAILURES_PER_MINUTE = 30;
+
 export interface AccessOptions {
   /** the API keys; null or absent: every /v1 route is open */
   keys?: ApiKeys | null;
@@ -27,40 +30,45 @@ const guarded = (url: string): boolean => url === '/v1' || url.startsWith('/v1/'
  * `Authorization: Bearer <key>` (401 problem+json otherwise; /health, /ready and the docs stay
  * open); the key's id goes into the request's log lines and onto the jobs it creates. Then a
  * fixed window of `rateLimit` requests a minute per key (per client address without keys), with
- * @fastify/rate-limit: 429 RATE_LIMITED with Retry-After past it.
+ * @fastify/rate-limit: 429 RATE_LIMITED with Retry-After past it. Requests with no or a wrong key
+ * count per address too: past AUTH_FAILURES_PER_MINUTE they get 429 instead of 401.
  */
 export const accessPlugin = fp<AccessOptions>(
   async (app, opts) => {
     const keys = opts.keys ?? null;
-    app.decorateRequest('keyId', null);
-    if (keys) {
-      app.addHook('onRequest', async (req, reply) => {
-        if (!guarded(req.url)) return;
-        const m = /^Bearer[ ]+([^\s]+)[ ]*$/i.exec(req.headers.authorization ?? '');
-        const id = m ? keys.identify(m[1]!) : undefined;
-        if (id === undefined) {
-          void reply.header('www-authenticate', 'Bearer realm="platesmith"');
-          throw new ApiError('UNAUTHORIZED', m ? 'the bearer key is not one of this service\'s keys' : 'this service needs Authorization: Bearer <key> on every /v1 route');
-        }
-        req.keyId = id;
-        // the key's id (never the secret) on every later log line of the request, the completion line too
-        req.log = req.log.child({ key: id });
-        reply.log = req.log;
-      });
-    }
     const max = opts.rateLimit ?? DEFAULT_RATE_LIMIT;
-    if (max > 0) {
-      await app.register(rateLimit, {
-        global: true,
-        max,
-        timeWindow: 60_000,
-        // after the key hook (route hooks run after the instance's): the key when there is one
-        keyGenerator: (req) => (req.keyId !== null ? `key:${req.keyId}` : `ip:${req.ip}`),
-        allowList: (req) => !guarded(req.url),
-        errorResponseBuilder: (_req, ctx) =>
-          new ApiError('RATE_LIMITED', `over ${ctx.max} requests a minute; retry in ${ctx.after}`, { retryAfter: Math.max(1, Math.ceil(ctx.ttl / 1000)), extra: { limit: ctx.max } }),
-      });
-    }
+    app.decorateRequest('keyId', null);
+    // registered even with no limit: its createRateLimit counts failed keys
+    await app.register(rateLimit, {
+      global: max > 0,
+      max: Math.max(1, max),
+      timeWindow: 60_000,
+      // runs after the key hook below (a route's hooks run after the instance's): the key when there is one
+      keyGenerator: (req) => (req.keyId !== null ? `key:${req.keyId}` : `ip:${req.ip}`),
+      allowList: (req) => !guarded(req.url),
+      errorResponseBuilder: (_req, ctx) =>
+        new ApiError('RATE_LIMITED', `over ${ctx.max} requests a minute; retry in ${ctx.after}`, { retryAfter: Math.max(1, Math.ceil(ctx.ttl / 1000)), extra: { limit: ctx.max } }),
+    });
+    if (!keys) return;
+    // guessing keys: past AUTH_FAILURES_PER_MINUTE failures from one address, 429 instead of 401
+    const failure = app.createRateLimit({ max: AUTH_FAILURES_PER_MINUTE, timeWindow: 60_000, keyGenerator: (req) => `auth:${req.ip}` });
+    app.addHook('onRequest', async (req, reply) => {
+      if (!guarded(req.url)) return;
+      const m = /^Bearer[ ]+([^\s]+)[ ]*$/i.exec(req.headers.authorization ?? '');
+      const id = m ? keys.identify(m[1]!) : undefined;
+      if (id === undefined) {
+        const count = await failure(req);
+        if (!count.isAllowed && count.isExceeded) {
+          throw new ApiError('RATE_LIMITED', `over ${AUTH_FAILURES_PER_MINUTE} requests a minute without a valid key from this address`, { retryAfter: Math.max(1, count.ttlInSeconds), extra: { limit: AUTH_FAILURES_PER_MINUTE } });
+        }
+        void reply.header('www-authenticate', 'Bearer realm="platesmith"');
+        throw new ApiError('UNAUTHORIZED', m ? 'the bearer key is not one of this service\'s keys' : 'this service needs Authorization: Bearer <key> on every /v1 route');
+      }
+      req.keyId = id;
+      // the key's id (never the secret) on every later log line of the request, the completion line too
+      req.log = req.log.child({ key: id });
+      reply.log = req.log;
+    });
   },
   { name: 'platesmith-access' },
 );
