@@ -91,7 +91,7 @@ test('cancel a running job and a queued one', async () => {
   // the default space on 24 m takes seconds per mark: long enough to be running when cancelled
   const long = { defaults: { spans: [24000], actions: PROBLEM.actions }, girders: [{ mark: 'L1', quantity: 1 }, { mark: 'L2', quantity: 1 }] };
   const a = (await srv.post('/v1/schedules', long)).body.id as string;
-  const b = (await srv.post('/v1/schedules', long)).body.id as string; // queued behind a (one job at a time)
+  const b = (await srv.post('/v1/schedules', long)).body.id as string; // waits for turns between a's marks (queued, or running once its first mark's turn came)
 
   // wait for a to be running, from its own event stream (no sleeping)
   const running = new Promise<void>((resolve, reject) => {
