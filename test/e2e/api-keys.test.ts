@@ -9,7 +9,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, expect, test } from 'vitest';
 import { ApiKeys, parseKeys } from '../../services/api/src/keys.js';
-import { settingsFromEnv, parseDuration } from '../../services/api/src/settings.js';
+import { settingsFromEnv, parseDuration } from '../../services/api/src/team-settings.js';
 import { PROBLEM, SECTION, start, TINY_SPACE, type Running } from '../../services/api/test/harness.js';
 
 const ALICE = 'alice-secret-0123456789abcdef';

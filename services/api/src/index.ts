@@ -8,7 +8,7 @@ export { MemoryJobStore, TERMINAL, summaryOf, type JobStore, type JobRecord, typ
 export { JobManager, JOB_DEFAULTS, type JobEvent, type ScheduleWork, type JobManagerOptions, type Turn } from './jobs/manager.js';
 export { FairGate } from './jobs/fair.js';
 export { ApiKeys, parseKeys, MIN_KEY_LENGTH } from './keys.js';
-export { settingsFromEnv, parseDuration } from './settings.js';
+export { settingsFromEnv, parseDuration } from './team-settings.js';
 export { DEFAULT_RATE_LIMIT, AUTH_FAILURES_PER_MINUTE } from './plugins/access.js';
 export { generateOpenApi, GENERATED_NOTE } from './openapi.js';
 export { API_DESCRIPTION, API_VERSION } from './plugins/docs.js';

@@ -1,7 +1,7 @@
 import closeWithGrace from 'close-with-grace';
 import { buildApp, type ApiOptions } from './app.js';
 import { openJobStore } from './jobs/sqlite.js';
-import { isLoopback, settingsFromEnv } from './settings.js';
+import { isLoopback, settingsFromEnv } from './team-settings.js';
 
 /**
  * Starts the service: HOST and PORT from the environment (default 127.0.0.1:8080), pino logs at
