@@ -271,7 +271,7 @@ export class JobManager {
           throw new DomainError(
             'MARK_BUDGET_EXCEEDED',
             `the search of this mark ran past its time budget of ${markBudgetMs} ms and was stopped`,
-            'narrow the mark\'s space (fewer web depths, plates or panel counts), or ask the operator to raise PLATESMITH_MARK_BUDGET_MS',
+            'narrow the mark\'s space (fewer web depths, plates or panel counts), or ask the operator to raise PLATESMITH_MARK_BUDGET',
             'space',
           );
         }
