@@ -104,7 +104,7 @@ test('keys: short or repeated ones are refused naming the setting; a keys file i
 
 test('settings: defaults, durations, and a malformed value names its variable', () => {
   const d = settingsFromEnv({});
-  expect(d).toEqual({ keys: null, rateLimit: 600, jobs: { quota: 10, markBudgetMs: 300_000, jobBudgetMs: 21_600_000, retentionMs: 604_800_000 } });
+  expect(d).toEqual({ keys: null, rateLimit: 1200, jobs: { quota: 10, markBudgetMs: 300_000, jobBudgetMs: 21_600_000, retentionMs: 604_800_000 } });
   expect(settingsFromEnv({ PLATESMITH_RATE_LIMIT: 'off', PLATESMITH_JOB_RETENTION: '36h', PLATESMITH_MARK_BUDGET: '90s' })).toMatchObject({ rateLimit: 0, jobs: { retentionMs: 36 * 3_600_000, markBudgetMs: 90_000 } });
   expect(parseDuration('off', 'X')).toBe(0);
   expect(() => settingsFromEnv({ PLATESMITH_JOB_QUOTA: '0' })).toThrow(expect.objectContaining({ code: 'SETTING_INVALID', field: 'PLATESMITH_JOB_QUOTA' }));

@@ -3,8 +3,13 @@ import fp from 'fastify-plugin';
 import { ApiError } from '../errors.js';
 import type { ApiKeys } from '../keys.js';
 
-/** Default of PLATESMITH_RATE_LIMIT: requests a minute per key (or per client address without keys). */
-export const DEFAULT_RATE_LIMIT = 600;
+/**
+ * Default of PLATESMITH_RATE_LIMIT: requests a minute per key (or per client address without
+ * keys). A key's quota of 10 jobs, each polled once a second (the Retry-After of the status
+ * route), is 600 a minute: twice that leaves room for submitting and reading results, and still
+ * stops a flood (heavy work has its own admission limits).
+ */
+export const DEFAULT_RATE_LIMIT = 1200;
 
 /** Requests without a valid key one client address may make a minute before 429 (bounds key guessing). */
 export const AUTH_FAILURES_PER_MINUTE = 30;
