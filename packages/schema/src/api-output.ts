@@ -23,6 +23,9 @@ export const PublishedCheckJson = z
     values: z
       .record(z.string(), z.union([z.number(), z.string(), z.boolean()]))
       .meta({ description: "intermediate values by the standard's symbols: forces kN, moments kNm, lengths mm, areas mm², moduli mm³, second moments mm⁴, stresses MPa" }),
+    units: z
+      .record(z.string(), z.enum(['kN', 'kNm', 'kN/m', 'mm', 'mm2', 'mm3', 'mm4', 'MPa', '-']))
+      .meta({ description: "the unit of each numeric entry of values, as published ('-' for a ratio, factor or class)" }),
   })
   .meta({ id: 'CheckResult' });
 
