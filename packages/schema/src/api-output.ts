@@ -94,6 +94,7 @@ export const EffectsSummaryJson = z
     governing: z.object({ MEdMax: z.string(), MEdMin: z.string(), VEdMax: z.string() }).meta({ description: 'labels of the governing combinations' }),
     note: z.string(),
     caution: z.string(),
+    scope: z.string(),
   })
   .meta({ id: 'EffectsSummary', description: 'design values of the governing ULS combinations, without the girder self-weight' });
 export type EffectsSummaryJson = z.output<typeof EffectsSummaryJson>;
@@ -109,7 +110,8 @@ export function publishEffects(p: ProblemJson): EffectsSummaryJson {
     envelope: { MEdMax: round3(fromNmm(s.envelope.MEdMax)), MEdMin: round3(fromNmm(s.envelope.MEdMin)), VEdMax: round3(fromN(s.envelope.VEdMax)) },
     governing: s.governing,
     note: 'design values without the girder self-weight (check and search add each section its own)',
-    caution: `${CAUTION} ${SCOPE}`,
+    caution: CAUTION,
+    scope: SCOPE,
   };
 }
 

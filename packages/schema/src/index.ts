@@ -6,7 +6,7 @@ export { parseWith, formatIssues, pathString, type FieldIssue, type Parsed } fro
 export { VALUE_UNITS, unitOf, roundPublished, publishCheck, publishVerdict, type PublishedCheck, type PublishedVerdict } from './output.js';
 export { kN, kNm, toN, toNmm, fromN, fromNmm, convertValue, type ValueUnit } from './units.js';
 export { CAUTION, SCOPE } from './caution.js';
-export { publishRecord, inputHash, TOOL_VERSION, EDITIONS, TITLE_FIELDS, type RecordData, type RecordTitle, type RecordAction } from './record.js';
+export { publishRecord, parseRecordRequest, RecordTitleJson, inputHash, TOOL_VERSION, EDITIONS, TITLE_FIELDS, type RecordData, type RecordTitle, type RecordAction, type RecordRequest } from './record.js';
 export { ActionJson, DeflectionLimitJson, EnvelopeJson, ProblemJson, ProblemFields, BeamProblemFields } from './problem.js';
 export { GridJson, SpaceJson, CostJson } from './space.js';
 export {

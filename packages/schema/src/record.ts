@@ -1,12 +1,14 @@
 import { createHash } from 'node:crypto';
 import { psiFor, summarise } from '@platesmith/actions';
 import { checkGirder, grossProps, material, girderMass, type CheckOptions, type GirderVerdict, type Section } from '@platesmith/checks';
-import type { CheckEffectsInput } from './check-input.js';
+import { z } from 'zod';
+import { CheckEffectsInput } from './check-input.js';
+import { parseWith, type Parsed } from './parse.js';
 import { CAUTION, SCOPE } from './caution.js';
 import { fromSection, toCheckEffects } from './convert.js';
 import { CheckOptionsJson } from './options.js';
 import { publishVerdict, roundPublished, type PublishedVerdict } from './output.js';
-import { toCheckProblem, runCheckJob, type CheckProblemInput } from './problem-convert.js';
+import { CheckProblemInput, toCheckProblem, runCheckJob } from './problem-convert.js';
 import type { SectionJson } from './section.js';
 import { fromN, fromNmm } from './units.js';
 
@@ -33,6 +35,42 @@ export interface RecordTitle {
 }
 
 export const TITLE_FIELDS = ['project', 'mark', 'revision', 'preparedBy', 'checkedBy', 'date'] as const;
+
+const text = (what: string) => z.string().max(200).meta({ description: what });
+
+/** The title block of a record as the input gives it (`"title"` beside the check input); every field optional. */
+export const RecordTitleJson = z
+  .strictObject({
+    project: text('project name').optional(),
+    mark: text('girder mark').optional(),
+    revision: text('revision, e.g. "P01" or "C"').optional(),
+    preparedBy: text('who prepared the calculation').optional(),
+    checkedBy: text('who checked it').optional(),
+    date: text('date as it should be printed').optional(),
+  })
+  .meta({ id: 'RecordTitle', description: 'title block of a calculation record; fields left out print blank' });
+
+export interface RecordRequest {
+  check: CheckEffectsInput | CheckProblemInput;
+  title: Partial<RecordTitle>;
+  /** the check input as given, without the title (hashed on every page) */
+  raw: unknown;
+}
+
+/**
+ * A record request: a check input (raw effects when it has "effects", else a problem with its
+ * section) with an optional "title" block. Issues name their fields as for a check.
+ */
+export function parseRecordRequest(body: unknown): Parsed<RecordRequest> {
+  if (body === null || typeof body !== 'object' || Array.isArray(body)) return parseWith(CheckProblemInput, body) as Parsed<never>;
+  const { title, ...raw } = body as Record<string, unknown>;
+  const t = parseWith(RecordTitleJson.default({}), title);
+  if (!t.ok) return { ok: false, issues: t.issues.map((i) => ({ ...i, path: i.path ? `title.${i.path}` : 'title', pointer: `#/title${i.pointer.slice(1)}` })) };
+  const isRaw = Object.prototype.hasOwnProperty.call(raw, 'effects');
+  const c = isRaw ? parseWith(CheckEffectsInput, raw) : parseWith(CheckProblemInput, raw);
+  if (!c.ok) return c;
+  return { ok: true, value: { check: c.value, title: t.value, raw } };
+}
 
 /** One action of the design basis in public units, with its ψ and where they come from. */
 export interface RecordAction {

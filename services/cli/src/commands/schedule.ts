@@ -1,4 +1,4 @@
-import { readFileSync, writeFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { scheduleReport } from '@platesmith/report';
 import {
   BaselineJson,
@@ -13,7 +13,7 @@ import {
 } from '@platesmith/schedule';
 import { formatIssues, parseWith } from '@platesmith/schema';
 import { createSearchPool, searchOnPool } from '@platesmith/search/pool';
-import { EXIT, InputError, type Out } from '../io.js';
+import { EXIT, fileProblem, InputError, writeOut, type Out } from '../io.js';
 import { caution } from '../render.js';
 import { fmt, progressBar, table } from '../table.js';
 
@@ -102,17 +102,12 @@ function readText(file: string): string {
   try {
     return file === '-' ? readFileSync(0, 'utf8') : readFileSync(file, 'utf8');
   } catch (e) {
-    throw new InputError(`cannot read ${file}: ${(e as NodeJS.ErrnoException).code ?? 'error'}`);
+    throw new InputError(fileProblem(file, e));
   }
 }
 
-function write(file: string, text: string): void {
-  try {
-    writeFileSync(file, text);
-  } catch (e) {
-    throw new InputError(`cannot write ${file}: ${(e as NodeJS.ErrnoException).code ?? 'error'}`);
-  }
-}
+/** Writes an output, creating missing folders (`--report reports/harbour.html` on a fresh clone). */
+const write = writeOut;
 
 /** The schedule of FILE with the command line's baseline and options applied; bad input is an InputError listing every issue. */
 export function loadSchedule(a: ScheduleArgs): ScheduleJson {
