@@ -260,14 +260,14 @@ function basisSection(d: RecordData): string {
   const actions = b.actions.length
     ? table(
         'Characteristic actions',
-        ['action', 'kind', 'load', 'value', 'position (mm)', 'category', 'ψ0', 'ψ1', 'ψ2'],
+        ['action', 'kind', 'load', 'value', 'position (mm)', 'ψ from', 'ψ0', 'ψ1', 'ψ2'],
         b.actions.map((a) => [
           esc(a.name),
           a.kind,
           a.load,
           `${num(a.value)} ${a.unit}`,
           a.at !== undefined ? `x = ${num(a.at)}` : a.from !== undefined ? `${num(a.from)}–${num(a.to ?? b.length)}` : 'whole girder',
-          a.category === null ? (a.kind === 'variable' ? 'ψ given' : '–') : esc(a.category),
+          a.psiSource === null ? '–' : esc(a.psiSource),
           a.psi0 === null ? '–' : String(a.psi0),
           a.psi1 === null ? '–' : String(a.psi1),
           a.psi2 === null ? '–' : String(a.psi2),
