@@ -1,5 +1,5 @@
 import { isDomainError, type GradeName } from '@platesmith/catalogue';
-import { CheckProblemInput, parseWith, runCheckJob, SearchInput, SectionJson, supportsOf, toCheckProblem } from '@platesmith/schema';
+import { CAUTION, CheckProblemInput, parseWith, SCOPE, runCheckJob, SearchInput, SectionJson, supportsOf, toCheckProblem } from '@platesmith/schema';
 import type { MarkResult, ScheduleResult } from './run.js';
 import { totalsOf } from './run.js';
 import { mergeGirder, type BaselineJson, type ScheduleJson } from './schema.js';
@@ -42,6 +42,8 @@ export interface ScheduleTender {
 export interface ScheduleRunResult extends ScheduleResult {
   format: typeof RESULT_FORMAT;
   version: typeof RESULT_VERSION;
+  caution: string;
+  scope: string;
   records: MarkRecord[];
   comparison: ScheduleComparison | null;
   tender: ScheduleTender;
@@ -70,11 +72,19 @@ export function recordOf(m: MarkResult): MarkRecord {
 export function compareRun(marks: readonly MarkResult[], baseline: readonly MarkRecord[], massTolerance: number): ScheduleComparison {
   const results = compare(baseline, marks.map(recordOf), { massTolerance });
   const failed = new Map(marks.filter((m) => m.status === 'failed').map((m) => [m.mark, m]));
+  // and one more (#19): an adopted section that fails now is a regression whatever the baseline
+  // said (a nightly job must fail on it, as it does without a baseline), not a mere change
+  const adoptedFails = new Map(marks.filter((m) => m.adopted !== null && !m.adopted.passes).map((m) => [m.mark, m.adopted!]));
   for (const r of results) {
     const f = failed.get(r.mark);
     if (f && r.baseline !== null) {
       r.status = 'regressed';
       r.reasons = [`the mark could not be run: ${f.error?.message ?? 'failed'} (${f.error?.code ?? 'FAILED'})`, ...r.reasons];
+    }
+    const a = adoptedFails.get(r.mark);
+    if (a && r.status !== 'regressed') {
+      r.status = 'regressed';
+      r.reasons = [`adopted section fails (governing: ${a.governing.id}, ${a.governing.clause}, utilisation ${a.governing.utilisation ?? 'inf'})`, ...r.reasons];
     }
   }
   const counts: Record<CompareStatus, number> = { pass: 0, regressed: 0, changed: 0, new: 0, removed: 0 };
@@ -184,6 +194,8 @@ export function finishSchedule(schedule: ScheduleJson, marks: readonly MarkResul
   return {
     format: RESULT_FORMAT,
     version: RESULT_VERSION,
+    caution: CAUTION,
+    scope: SCOPE,
     name: schedule.name ?? null,
     marks: [...marks],
     totals: totalsOf(marks),

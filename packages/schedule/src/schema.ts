@@ -170,6 +170,8 @@ export const ScheduleProgressJson = z
 export const ScheduleRunResultJson = ScheduleResultJson.extend({
   format: z.literal('platesmith-schedule-result'),
   version: z.literal(1),
+  caution: z.string().meta({ description: 'a design aid: results to be checked by a competent engineer against the governing code and national annex' }),
+  scope: z.string().meta({ description: 'what the checks do not cover' }),
   records: z.array(MarkRecordJson).meta({ description: 'one per mark; give this document (or { records }) as the baseline of a later run' }),
   comparison: z
     .object({

@@ -2,7 +2,7 @@ import { htmlToPdf, PdfUnavailable, renderRecord } from '@platesmith/report';
 import { formatIssues, parseRecordRequest, publishRecord, TITLE_FIELDS, type RecordTitle } from '@platesmith/schema';
 import { EXIT, InputError, writeOut, type Out } from '../io.js';
 
-export const RECORD_USAGE = `platesmith record FILE.json [--out girder.html] [--pdf girder.pdf] [title options]
+export const RECORD_USAGE = `usage: platesmith record FILE.json [--out girder.html] [--pdf girder.pdf] [title options]
   FILE.json              a check input (a section with a problem, or under design effects), as for check;
                          it may carry "title": { project, mark, revision, preparedBy, checkedBy, date }
   --out girder.html      write the calculation record as one self-contained HTML file

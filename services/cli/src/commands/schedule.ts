@@ -11,7 +11,7 @@ import {
   type ScheduleJson,
   type ScheduleRunResult,
 } from '@platesmith/schedule';
-import { formatIssues, parseWith } from '@platesmith/schema';
+import { CAUTION, formatIssues, parseWith, SCOPE } from '@platesmith/schema';
 import { createSearchPool, searchOnPool } from '@platesmith/search/pool';
 import { EXIT, fileProblem, InputError, writeOut, type Out } from '../io.js';
 import { caution } from '../render.js';
@@ -164,6 +164,7 @@ export function markdownOf(r: ScheduleRunResult): string {
     }
     lines.push('');
   }
+  lines.push(`> **Caution.** ${r.caution ?? CAUTION}`, '>', `> ${r.scope ?? SCOPE}`, '');
   return lines.join('\n');
 }
 
