@@ -61,7 +61,7 @@ test('the README shows the commands this test expects to find (the extraction wo
 });
 
 describe('each README command exits 0 from the repository root', () => {
-  test.for(runnable)('%s', (cmd: string) => {
+  test.each(runnable)('%s', (cmd) => {
     const r = spawnSync('bash', ['-c', cmd], { cwd: root, encoding: 'utf8', timeout: 540_000, env: { ...process.env, NO_COLOR: '1' } });
     const said = `${r.stdout}\n${r.stderr}`;
     expect(said).not.toMatch(/internal error|Error: |at .*\.ts:\d+/);
