@@ -7,5 +7,6 @@ export { paretoChart, utilisationChart, envelopeChart, linesChart, sectionDrawin
 export { renderRecord, FORMULAS } from './record.js';
 export { htmlToPdf, chromiumPath, PdfUnavailable } from './pdf.js';
 export { esc } from './html.js';
-export type { ReportInput, ReportMark, ReportCheck, ReportTonnage, ReportRationalisation } from './types.js';
+export type { ReportInput, ReportMark, ReportCheck, ReportTonnage, ReportRationalisation, ReportReconciliation } from './types.js';
 export { scheduleReport } from './schedule.js';
+export { sectionInWords, sectionKeyInWords, plateListCsv } from './words.js';

@@ -1,5 +1,5 @@
 import { chromiumPath, htmlToPdf, PdfUnavailable, renderRecord } from '@platesmith/report';
-import { mergeGirder } from '@platesmith/schedule';
+import { checkFieldsOf } from '@platesmith/schedule';
 import { parseRecordRequest, parseWith, ProblemDetailsJson, publishRecord, RecordTitleJson, CheckProblemInput, type RecordRequest, type RecordTitle } from '@platesmith/schema';
 import type { FastifyReply, FastifyRequest } from 'fastify';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
@@ -18,8 +18,6 @@ const RecordBody = withParser(
 
 /** Prints at once; more answer 503 PRINT_FAILED with Retry-After (each print is a chromium process of ~100 MB). */
 const MAX_PRINTS = 2;
-
-const SEARCH_ONLY = new Set(['space', 'objective', 'cost']);
 
 export const recordRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async (app, { jobs }) => {
   let printing = 0;
@@ -87,10 +85,7 @@ export const recordRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async (
       if (!done) throw new ApiError('JOB_NOT_FINISHED', `mark ${girder.mark} of schedule job ${j.id} is not finished`, { retryAfter: 1 });
       const section = girder.adopted ?? done.search?.lightest?.section;
       if (!section) throw new ApiError('NO_SECTION', `mark ${girder.mark} has no adopted section and no feasible section to record`);
-      const fields = mergeGirder(j.input.defaults as Record<string, unknown>, girder as Record<string, unknown>);
-      const problem: Record<string, unknown> = {};
-      for (const [k, v] of Object.entries(fields)) if (!SEARCH_ONLY.has(k)) problem[k] = v;
-      const raw = { ...problem, section };
+      const raw = { ...checkFieldsOf(j.input.defaults, girder), section };
       const parsed = parseWith(CheckProblemInput, raw);
       if (!parsed.ok) throw new ApiError('NO_SECTION', `mark ${girder.mark} has no valid problem to record (${parsed.issues[0]?.message ?? 'invalid'})`);
       const title: Partial<RecordTitle> = { mark: girder.mark };
