@@ -40,17 +40,21 @@ svg .resistance.r1 line { stroke: #a0620b; }
 svg .resistance text { fill: var(--ink); font-size: 11px; }
 svg line.zero { stroke: #999; }
 @media print {
-  @page { size: A4; margin: 22mm 12mm 20mm; }
+  @page { size: A4; margin: 12mm; }
   body { font-size: 10pt; }
-  header.page { position: fixed; top: -18mm; left: 0; right: 0; background: none; padding: 0; border: 0; }
-  footer.page { position: fixed; bottom: -16mm; left: 0; right: 0; background: none; padding: 0; border: 0; margin: 0; }
+  header.page, footer.page { background: none; padding: 0; border: 0; margin: 0; }
   header.page h1 { font-size: 11pt; }
   .caution { font-size: 7pt; }
   main { padding: 0; }
   section.mark { break-before: page; border-top: 0; }
   thead { display: table-header-group; }
   tr, svg { break-inside: avoid; }
+  table.frame > tbody > tr { break-inside: auto; }
 }
+/* the running header and footer: the head and foot of one table framing the report, repeated on every printed page */
+table.frame { width: 100%; border-collapse: collapse; margin: 0; }
+table.frame > thead > tr > td, table.frame > tfoot > tr > td, table.frame > tbody > tr > td { border: 0; padding: 0; }
+table.frame > tfoot { display: table-footer-group; }
 `;
 
 const kg = (v: number) => Math.round(v).toLocaleString('en-GB');
@@ -139,14 +143,14 @@ function rationalisationSection(r: ReportRationalisation): string {
 /**
  * One self-contained HTML file for a schedule result: inline CSS and SVG drawn here, nothing
  * fetched when viewed, no script. The caution and scope are printed in the header and the
- * footer (fixed on every printed page).
+ * footer, which repeat on every printed page (the head and foot of a table framing the report).
  */
 export function renderReport(input: ReportInput): string {
   const head = `<header class="page"><h1>${esc(input.title)}</h1>${input.subtitle ? `<div>${esc(input.subtitle)}</div>` : ''}${caution()}</header>`;
   const foot = `<footer class="page">${caution()}${input.generatedAt ? `<p class="caution">Generated ${esc(input.generatedAt)}.</p>` : ''}</footer>`;
   const index = input.marks.length > 1 ? `<nav><p>Marks: ${input.marks.map((m) => `<a href="#mark-${esc(m.mark)}">${esc(m.mark)}</a>`).join(' · ')}</p></nav>` : '';
   const body = [index, ...(input.tonnage ? [tonnageSection(input.tonnage, input.reconciliation, input.currency)] : []), ...(input.rationalisation ? [rationalisationSection(input.rationalisation)] : []), ...input.marks.map(markSection)].join('\n');
-  return `<!DOCTYPE html>\n<html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:"><title>${esc(input.title)}</title><style>${STYLE}</style></head><body>${head}<main>${body}</main>${foot}</body></html>\n`;
+  return `<!DOCTYPE html>\n<html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:"><title>${esc(input.title)}</title><style>${STYLE}</style></head><body><table class="frame" role="presentation"><thead><tr><td>${head}</td></tr></thead><tfoot><tr><td>${foot}</td></tr></tfoot><tbody><tr><td><main>${body}</main></td></tr></tbody></table></body></html>\n`;
 }
 
 /**

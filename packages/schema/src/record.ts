@@ -433,7 +433,13 @@ export function publishRecord(input: CheckEffectsInput | CheckProblemInput, raw:
       ltbMethod: options.ltbMethod === 'general' ? 'EN 1993-1-1 6.3.2.2 (general case)' : `EN 1993-1-1 6.3.2.3 (rolled sections or equivalent welded)${options.ltbModification ? ' with f' : ''}`,
       grades,
       fySource: fyName,
-      deflectionLimits: b.verdict.checks.filter((c) => c.id === 'deflection' && c.applies).map((c) => ({ name: String(c.values.name ?? ''), ratio: Number(c.values.ratio) })),
+      // every limit asked for (the deflection check reports the one that governs)
+      deflectionLimits:
+        'effects' in input
+          ? (input.sls ?? []).map((d) => ({ name: d.name, ratio: d.ratio }))
+          : input.envelope !== undefined
+            ? []
+            : (input.deflection ?? [{ name: 'total', ratio: 250 }, { name: 'variable', ratio: 360 }]).map((d) => ({ name: d.name, ratio: d.ratio })),
       selfWeight: b.g === null ? null : r(fromN(b.g) * 1e3),
       assumptions,
     },
