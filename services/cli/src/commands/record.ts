@@ -43,6 +43,7 @@ export async function runRecord(input: unknown, values: ReadonlyMap<string, stri
   if (!out && !pdf) io.out(html);
   const g = data.verdict.governing;
   const written = [out, pdf].filter(Boolean).join(' and ');
-  if (written) io.err(`${written}: ${data.verdict.passes ? 'every check passes' : `a check FAILS (governing: ${g.id}, ${g.clause}, utilisation ${g.utilisation ?? 'inf'})`}; governing ${g.id} at ${g.utilisation ?? 'inf'}.`);
+  const gov = `${g.id}, ${g.clause}, utilisation ${g.utilisation ?? 'inf'}`;
+  if (written) io.err(`${written}: ${data.verdict.passes ? `every check passes (governing: ${gov})` : `a check FAILS (governing: ${gov})`}.`);
   return data.verdict.passes ? EXIT.ok : EXIT.fails;
 }
