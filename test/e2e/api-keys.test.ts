@@ -49,11 +49,11 @@ test('401 without a key, and with an unknown one, on every /v1 route; /health an
   expect((await srv.post('/v1/checks', { ...PROBLEM, section: SECTION }, bearer(ALICE))).status).toBe(200);
 });
 
-test("404 for another key's job: status, result, marks, events and delete; the list shows each key its own", async () => {
+test("404 for another key's job: status, result, marks, report, plates, record, events and delete; the list shows each key its own", async () => {
   const a = await srv.post('/v1/schedules', SCHEDULE, bearer(ALICE));
   expect(a.status).toBe(202);
   const id = a.body.id as string;
-  for (const path of [`/v1/schedules/${id}`, `/v1/schedules/${id}/result`, `/v1/schedules/${id}/marks`, `/v1/schedules/${id}/report`]) {
+  for (const path of [`/v1/schedules/${id}`, `/v1/schedules/${id}/result`, `/v1/schedules/${id}/marks`, `/v1/schedules/${id}/report`, `/v1/schedules/${id}/plates.csv`, `/v1/schedules/${id}/marks/G1/record`]) {
     const r = await srv.get(path, bearer(BOB));
     expect(r.status, path).toBe(404);
     expect(r.body).toMatchObject({ code: 'JOB_NOT_FOUND' });
