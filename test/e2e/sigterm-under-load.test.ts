@@ -19,7 +19,7 @@ const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
 const serverUrl = pathToFileURL(join(root, 'services', 'api', 'src', 'server.ts')).href;
 const CHILD = `
 const { startServer } = await import(${JSON.stringify(serverUrl)});
-const s = await startServer({ host: '127.0.0.1', port: 0, threads: 2, logger: false });
+const s = await startServer({ host: '127.0.0.1', port: 0, threads: 2, logger: { level: 'error' } });
 process.stdout.write('LISTENING ' + s.url + '\\n');
 `;
 
@@ -33,7 +33,7 @@ afterAll(() => {
 function startChild(extra: Record<string, string> = {}): Promise<{ child: ChildProcess; url: string; exited: Promise<number | null> }> {
   const child = spawn(process.execPath, ['--conditions=@platesmith/source', '--import', 'tsx', '--input-type=module', '-e', CHILD], {
     cwd: root,
-    env: { ...process.env, PLATESMITH_DB: join(dir, 'jobs.sqlite'), LOG_LEVEL: 'silent', PLATESMITH_RATE_LIMIT: 'off', ...extra },
+    env: { ...process.env, PLATESMITH_DB: join(dir, 'jobs.sqlite'), LOG_LEVEL: 'error', PLATESMITH_RATE_LIMIT: 'off', ...extra },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   children.add(child);
@@ -53,7 +53,8 @@ function startChild(extra: Record<string, string> = {}): Promise<{ child: ChildP
     child.stderr!.on('data', (d: Buffer) => (err += String(d)));
     void exited.then((code) => {
       clearTimeout(timer);
-      reject(new Error(`the service exited (${code}) before listening: ${err}`));
+      // its error lines (pino on stdout) say why
+      reject(new Error(`the service exited (${code}) before listening: ${err} ${out.slice(-2000)}`));
     });
   });
 }
