@@ -1,6 +1,6 @@
 import { assertSpace, spaceSize } from './space.js';
 import { prepareSearch, type Evaluated, type PruneStats, type SearchProblem, type SliceResult } from './core.js';
-import { searchSlice } from './best-first.js';
+import { searchSlice } from './slice/best-first.js';
 import { paretoFront } from './pareto.js';
 
 export interface SearchResult {
