@@ -35,7 +35,11 @@ import { createSliceState, type OuterBound } from './state.js';
  * stops the search (the points found so far are returned).
  */
 export function searchSlice(prep: Prepared, runs: readonly (readonly [first: number, count: number])[], signal?: { aborted: boolean }, outer?: OuterBound, part?: SlicePart): SliceResult {
-  const s = createSliceState(prep, platesOfRuns(prep.plateStarts, runs), signal, outer, part);
+  const byPlate = platesOfRuns(prep.plateStarts, runs);
+  // the fabrication rules can leave no flange option or no web configuration: nothing to search
+  // (the candidates they left out are counted when the slices are merged, mergeSlices)
+  if (prep.flanges.length === 0 || byPlate.length === 0) return emptySlice();
+  const s = createSliceState(prep, byPlate, signal, outer, part);
   seedRuns(s);
   const { heap, pruned } = s;
   for (;;) {
@@ -57,6 +61,11 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     else judgeLayouts(s, nd);
   }
   return { front: [...s.stairs], nearMisses: nearMissesOf(s), spaceSize: s.spaceSize, fullEvaluations: s.fullEvaluations, pruned, failedBy: s.failedBy };
+}
+
+function emptySlice(): SliceResult {
+  const pruned = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, patchBending: 0, lateralTorsional: 0, bearing: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 };
+  return { front: [], nearMisses: [], spaceSize: 0, fullEvaluations: 0, pruned, failedBy: {} };
 }
 
 export { unitSlot, type SlicePart } from './slicing.js';
