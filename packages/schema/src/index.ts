@@ -15,6 +15,7 @@ export {
   toAnalysis,
   selfWeight,
   toCheckProblem,
+  checkProblemsFor,
   runCheckJob,
   toSpace,
   toCost,
