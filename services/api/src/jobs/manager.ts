@@ -183,7 +183,7 @@ export class JobManager {
       const marks = girders.map((g, i) => kept.get(i) ?? fresh.get(i));
       const missing = girders.filter((_, i) => marks[i] === undefined).map((g) => g.mark);
       if (missing.length > 0) throw new Error(`the work returned no result for marks ${missing.join(', ')}`);
-      patch = { status: 'done', result: finishSchedule(job.input, marks as MarkResult[]) };
+      patch = { status: 'done', result: await finishSchedule(job.input, marks as MarkResult[]) };
     } catch (e) {
       if (ac.signal.aborted && ac.signal.reason === SHUTDOWN) {
         // stopped by a shutdown: back to the queue in the store; the next start resumes it
