@@ -11,10 +11,15 @@ export function scheduleReport(r: ScheduleRunResult, meta: { title?: string; sub
     ...(meta.generatedAt !== undefined ? { generatedAt: meta.generatedAt } : {}),
     marks: r.marks.map((m) => {
       const rm = markFromSearch(m.mark, m.quantity, m.search, m.adopted);
-      if (m.status === 'failed') rm.notes = [...(rm.notes ?? []), `The mark failed: ${m.error?.message ?? 'failed'}.`];
+      if (m.status === 'failed') {
+        rm.failed = true;
+        // a mark without a section already has its nearest miss (or that there is none) in the notes
+        if (m.error?.code !== 'NO_FEASIBLE_SECTION') rm.notes = [...(rm.notes ?? []), `The mark failed: ${m.error?.message ?? 'failed'}.`];
+      }
       return rm;
     }),
     ...(r.tender.tonnage ? { tonnage: r.tender.tonnage } : {}),
+    coverage: { ...r.tender.coverage, leftOut: r.tender.leftOut, estimates: r.tender.estimates },
     ...(rat && rat.skipped === undefined ? { rationalisation: rat } : {}),
   };
   return renderReport(input);

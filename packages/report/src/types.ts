@@ -11,7 +11,21 @@ export interface ReportInput {
   generatedAt?: string;
   marks: ReportMark[];
   tonnage?: ReportTonnage;
+  /** what the tonnage leaves out: marks without a section (quantity, reason) and their flagged estimates */
+  coverage?: ReportCoverage;
   rationalisation?: ReportRationalisation;
+}
+
+export interface ReportCoverage {
+  /** kg */
+  tonnage: number;
+  marks: number;
+  girders: number;
+  leftOut: readonly { mark: string; quantity: number; reason: string }[];
+  estimates: readonly { mark: string; quantity: number; massPerGirder: number | null; mass: number | null; flag: string }[];
+  /** kg */
+  totalWithEstimates: number;
+  short: readonly string[];
 }
 
 export interface ReportCheck {
@@ -47,6 +61,8 @@ export interface ReportMark {
   };
   /** free lines printed under the mark (e.g. why no section was found) */
   notes?: string[];
+  /** the mark failed (no section, or it could not be run): shown as a failure, with `notes` */
+  failed?: boolean;
 }
 
 export interface ReportTonnage {
@@ -64,7 +80,18 @@ export interface ReportRationalisation {
   objective: 'mass' | 'cost';
   unrationalised: number | null;
   byK: readonly (
-    | { K: number; feasible: true; total: number; penalty: number; penaltyRatio: number; sections: readonly string[]; assignment?: readonly { mark: string; candidate: string }[] }
+    | { K: number; feasible: true; total: number; penalty: number; penaltyRatio: number; sections: readonly string[]; assignment?: readonly { mark: string; candidate: string }[]; status?: string; gap?: number }
     | { K: number; feasible: false; reason: string }
   )[];
+  /** marks left out of the model (no feasible candidate) */
+  leftOut?: readonly { mark: string; quantity: number; reason: string }[];
+  /** at most T thicknesses and W flange widths */
+  plates?:
+    | null
+    | ({ maxThicknesses: number | null; maxWidths: number | null } & (
+        | { feasible: true; total: number; penaltyRatio: number; gap: number; status: string; thicknesses: readonly number[]; widths: readonly number[] }
+        | { feasible: false; reason: string }
+      ));
+  /** s */
+  timeLimit?: number;
 }

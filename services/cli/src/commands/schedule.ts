@@ -259,7 +259,7 @@ function summary(r: ScheduleRunResult): string {
   if (rat && rat.skipped !== undefined) lines.push(`Rationalisation skipped: ${rat.skipped}.`);
   else if (rat) {
     lines.push(
-      `Rationalisation (${rat.objective}): ${rat.model.marks} marks in ${rat.model.groups} groups, ${rat.model.candidatesKept} of ${rat.candidates} candidates kept; checks ${rat.checkSeconds.toFixed(1)} s, solves ${rat.seconds.toFixed(1)} s (limit ${rat.timeLimit} s).`,
+      `Rationalisation (${rat.objective} of the plates and intermediate stiffeners; bearing stiffeners apart): ${rat.model.marks} marks in ${rat.model.groups} groups, ${rat.model.candidatesKept} of ${rat.candidates} candidates kept; checks ${rat.checkSeconds.toFixed(1)} s, solves ${rat.seconds.toFixed(1)} s (limit ${rat.timeLimit} s).`,
     );
     if (rat.leftOut.length > 0) lines.push(`  left out (no feasible candidate): ${rat.leftOut.map((l) => `${l.mark} ×${l.quantity}`).join(', ')}`);
     const v = (x: number) => (rat.objective === 'mass' ? `${(x / 1000).toFixed(3)} t` : x.toFixed(2));
