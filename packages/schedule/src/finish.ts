@@ -254,6 +254,8 @@ export function feasibleFor(fields: Readonly<Record<string, unknown>>, candidate
   });
 }
 
+const yieldTurn = (): Promise<void> => new Promise((resolve) => setImmediate(resolve));
+
 async function rationaliseRun(schedule: ScheduleJson, marks: readonly MarkResult[], inputs: Map<string, SearchInput | null>, opts: FinishOptions): Promise<RationalisationOutcome> {
   const tender = schedule.tender!;
   const byMark = new Map(schedule.girders.map((g) => [g.mark, g]));
@@ -275,6 +277,7 @@ async function rationaliseRun(schedule: ScheduleJson, marks: readonly MarkResult
   for (const m of usable) {
     feasible.push(feasibleFor(mergeGirder(schedule.defaults, byMark.get(m.mark)!), candidates));
     opts.onProgress?.({ stage: 'checks', pairsDone: feasible.length * candidates.length, pairs, elapsedMs: performance.now() - t0 });
+    await yieldTurn(); // one mark's checks at a time on the caller's thread (tens of ms), so a server stays responsive
   }
   const checkSeconds = (performance.now() - t0) / 1000;
   const r = await rationalise({
@@ -297,8 +300,9 @@ async function rationaliseRun(schedule: ScheduleJson, marks: readonly MarkResult
  * sections (what it covers, and flagged estimates for the marks without a section), and the
  * rationalisation when `tender.rationalise` (K sections) or `tender.plates` is given. `marks`
  * must be in schedule order (one per girder). Pure apart from the check library's and the MILP
- * solver's work (synchronous between progress reports; bounded by `tender.maxPairs` and
- * `tender.timeLimit`).
+ * solver's work, bounded by `tender.maxPairs` and `tender.timeLimit`; it yields to the event loop
+ * after each mark's checks and between solves (one solve, up to its share of the time limit, runs
+ * without a break).
  */
 export async function finishSchedule(schedule: ScheduleJson, marks: readonly MarkResult[], opts: FinishOptions = {}): Promise<ScheduleRunResult> {
   const inputs = inputsOf(schedule);

@@ -652,12 +652,17 @@ export async function rationalise(input: RationaliseInput): Promise<Rationalisat
     const total = job.pick ? answer(job.reduced, job.pick).total : null;
     report({ stage: job.stage, ...(job.K !== undefined ? { K: job.K, of: N } : {}), incumbent: total, bound: total === null ? null : Math.min(total, Math.max(job.bound, best)), done: true });
   };
-  jobs.forEach((job, i) => run(job, Math.max(0.05, (timeLimit - elapsed()) / (jobs.length - i))));
+  const yieldTurn = (): Promise<void> => new Promise((resolve) => setImmediate(resolve));
+  for (let i = 0; i < jobs.length; i++) {
+    run(jobs[i]!, Math.max(0.05, (timeLimit - elapsed()) / (jobs.length - i)));
+    await yieldTurn(); // between solves, let the caller's event loop run
+  }
   const open = jobs.filter((j) => !j.optimal && !j.infeasible);
   for (let i = 0; i < open.length; i++) {
     const limit = (timeLimit - elapsed()) / (open.length - i);
     if (limit < 0.05) break;
     run(open[i]!, limit);
+    await yieldTurn();
   }
 
   const byK: RationalisedK[] = [];
