@@ -10,7 +10,7 @@
  * `--json`: one JSON line per schedule. `--marks=N`: one schedule of N marks.
  * `--time-limit=S`: the rationalisation's time limit (default 60 s).
  */
-import { availableParallelism } from 'node:os';
+import { availableParallelism, loadavg } from 'node:os';
 import { finishSchedule, parseSchedule, runSchedule } from '../packages/schedule/src/index.js';
 import { createSearchPool, pingPool, searchOnPool } from '@platesmith/search/pool';
 import { benchSchedule } from './schedule-data.js';
@@ -45,6 +45,8 @@ try {
       marksWithoutFeasible: result.totals.marksWithoutFeasible.length,
       candidatesPerMark: run.marks[0]?.search?.stats.spaceSize ?? null,
       cores: availableParallelism(),
+      // the host's load when the figures were taken: on a shared machine they swing with it
+      loadAverage: round(loadavg()[0]!, 1),
       searchWallS: round((t1 - t0) / 1000),
       finishWallS: round((t2 - t1) / 1000),
       marksPerSecond: round(run.marks.length / ((t1 - t0) / 1000)),
@@ -76,7 +78,7 @@ try {
     const worst = Math.max(...rat.byK.map((k) => (k.feasible ? k.gap : 1)));
     const lines = [
       `schedule-${row.marks}-marks`,
-      `  ${row.marks} marks (${row.marksFailed} failed, ${row.marksWithoutFeasible} without a feasible section), about ${row.candidatesPerMark} candidates per mark, ${row.cores} cores`,
+      `  ${row.marks} marks (${row.marksFailed} failed, ${row.marksWithoutFeasible} without a feasible section), about ${row.candidatesPerMark} candidates per mark, ${row.cores} cores, load average ${row.loadAverage}`,
       `  search ${row.searchWallS} s: ${row.marksPerSecond} marks/s (target: under 60 s for 200 marks on 2 cores); finish (tonnage, comparison, rationalisation) ${row.finishWallS} s`,
       `  tonnage ${row.tonnageT} t; not in it: ${row.excludedMarks} marks (${row.excludedGirders} girders), flagged estimates ${row.estimatedT} t, ${row.shortMarks} marks without an estimate`,
       `  rationalisation: ${r.marksInModel} marks in the model (${r.leftOut} left out) in ${r.groups} groups, ${r.candidatesKept} of ${r.candidates} candidates kept, ${r.pairs} feasible pairs`,
