@@ -13,6 +13,10 @@ export interface ReportInput {
   tonnage?: ReportTonnage;
   /** what the tonnage leaves out: marks without a section (quantity, reason) and their flagged estimates */
   coverage?: ReportCoverage;
+  /** how the tonnage reconciles with the lightest sections, kg */
+  reconciliation?: ReportReconciliation;
+  /** currency of the costs (null or absent: not said) */
+  currency?: string | null;
   rationalisation?: ReportRationalisation;
 }
 
@@ -63,6 +67,17 @@ export interface ReportMark {
   notes?: string[];
   /** the mark failed (no section, or it could not be run): shown as a failure, with `notes` */
   failed?: boolean;
+  /** the design basis of the mark in words (spans, actions, options) */
+  basis?: string[];
+  /** the section counted for the mark, in words */
+  section?: { of: 'adopted' | 'lightest'; words: string };
+}
+
+export interface ReportReconciliation {
+  byMark: readonly { mark: string; quantity: number; section: 'adopted' | 'lightest'; perGirder: number; lightestPerGirder: number | null; savingPerGirder: number | null; saving: number | null }[];
+  used: number;
+  lightest: number;
+  saving: number;
 }
 
 export interface ReportTonnage {

@@ -1,6 +1,6 @@
 import { isDomainError, type GradeName } from '@platesmith/catalogue';
 import { firstFailure } from '@platesmith/checks';
-import { CheckProblemInput, checkProblemsFor, parseWith, runCheckJob, SearchInput, SectionJson, supportsOf, toCheckProblem } from '@platesmith/schema';
+import { CAUTION, CheckProblemInput, checkProblemsFor, parseWith, runCheckJob, SCOPE, SearchInput, SectionJson, supportsOf, toCheckProblem } from '@platesmith/schema';
 import type { MarkResult, ScheduleResult } from './run.js';
 import { failureReason, NO_FEASIBLE_SECTION, totalsOf } from './run.js';
 import { mergeGirder, type BaselineJson, type ScheduleJson } from './schema.js';
@@ -81,7 +81,33 @@ export interface ScheduleTender {
   coverage: TonnageCoverage;
   /** flagged estimate lines of the marks without a section */
   estimates: EstimateLine[];
+  /**
+   * How the tonnage reconciles with the lightest sections, kg: per mark the section counted (its
+   * mass per girder, bearing stiffeners included, as in byMark) against the lightest the search
+   * found, and the saving if the lightest were adopted; `used` = `lightest` + `saving` in total
+   * (marks left out of the tonnage count in neither).
+   */
+  reconciliation: {
+    byMark: { mark: string; quantity: number; section: 'adopted' | 'lightest'; perGirder: number; lightestPerGirder: number | null; savingPerGirder: number | null; saving: number | null }[];
+    used: number;
+    lightest: number;
+    saving: number;
+  } | null;
+  /** currency of the rates and costs, as given (null: not said) */
+  currency: string | null;
   rationalisation: RationalisationOutcome | null;
+}
+
+/** Masses to the gram (kg, 3 decimals) and costs to the cent, without binary round-off in the JSON. */
+function rounded<T>(v: T, key = ''): T {
+  if (typeof v === 'number') {
+    if (!Number.isFinite(v) || Number.isInteger(v)) return v;
+    const d = /cost/i.test(key) ? 2 : 3;
+    return Number(v.toFixed(d)) as T;
+  }
+  if (Array.isArray(v)) return v.map((x) => rounded(x, key)) as T;
+  if (v !== null && typeof v === 'object') return Object.fromEntries(Object.entries(v).map(([k, x]) => [k, rounded(x, k)])) as T;
+  return v;
 }
 
 /** Progress of finishing a run: the feasibility checks of the rationalisation, then its solves. */
@@ -99,6 +125,8 @@ export interface FinishOptions {
 export interface ScheduleRunResult extends ScheduleResult {
   format: typeof RESULT_FORMAT;
   version: typeof RESULT_VERSION;
+  caution: string;
+  scope: string;
   records: MarkRecord[];
   comparison: ScheduleComparison | null;
   tender: ScheduleTender;
@@ -127,12 +155,20 @@ export function recordOf(m: MarkResult): MarkRecord {
 export function compareRun(marks: readonly MarkResult[], baseline: readonly MarkRecord[], massTolerance: number): ScheduleComparison {
   const results = compare(baseline, marks.map(recordOf), { massTolerance });
   const failed = new Map(marks.filter((m) => m.status === 'failed').map((m) => [m.mark, m]));
+  // and one more (#19): an adopted section that fails now is a regression whatever the baseline
+  // said (a nightly job must fail on it, as it does without a baseline), not a mere change
+  const adoptedFails = new Map(marks.filter((m) => m.adopted !== null && !m.adopted.passes).map((m) => [m.mark, m.adopted!]));
   for (const r of results) {
     const f = failed.get(r.mark);
     // a mark without a section fails whether or not the baseline had one (a new mark too)
     if (f && (r.baseline !== null || f.error?.code === NO_FEASIBLE_SECTION)) {
       r.status = 'regressed';
       r.reasons = [failureReason(f), ...r.reasons];
+    }
+    const a = adoptedFails.get(r.mark);
+    if (a && r.status !== 'regressed') {
+      r.status = 'regressed';
+      r.reasons = [`adopted section fails (governing: ${a.governing.id}, ${a.governing.clause}, utilisation ${a.governing.utilisation ?? 'inf'})`, ...r.reasons];
     }
   }
   const counts: Record<CompareStatus, number> = { pass: 0, regressed: 0, changed: 0, new: 0, removed: 0 };
@@ -206,10 +242,24 @@ function tenderOf(schedule: ScheduleJson, marks: readonly MarkResult[], inputs: 
     }
     girders.push(tenderGirder(m.mark, m.quantity, section, supportsOf(input!)));
   }
-  const t = girders.length > 0 ? tonnage(girders, opts?.rates as Partial<Record<GradeName, number>> | undefined) : null;
+  const t = girders.length > 0 ? rounded(tonnage(girders, opts?.rates as Partial<Record<GradeName, number>> | undefined)) : null;
+  let reconciliation: ScheduleTender['reconciliation'] = null;
+  if (t) {
+    const used = new Map(basis.map((b) => [b.mark, b.section]));
+    const lightestOf = new Map(marks.map((m) => [m.mark, m.search?.lightest?.mass ?? null]));
+    const byMark = t.byMark.map((m) => {
+      const l = lightestOf.get(m.mark) ?? null;
+      const per = m.perGirder.total;
+      const savingPerGirder = l === null ? null : per - l;
+      return { mark: m.mark, quantity: m.quantity, section: used.get(m.mark) ?? 'lightest', perGirder: per, lightestPerGirder: l, savingPerGirder, saving: savingPerGirder === null ? null : savingPerGirder * m.quantity };
+    });
+    const usedTotal = byMark.reduce((a, m) => a + m.perGirder * m.quantity, 0);
+    const saving = byMark.reduce((a, m) => a + (m.saving ?? 0), 0);
+    reconciliation = rounded({ byMark, used: usedTotal, lightest: usedTotal - saving, saving });
+  }
   const total = t?.total ?? 0;
   const estimated = estimates.reduce((s, e) => s + (e.mass ?? 0), 0);
-  const coverage: TonnageCoverage = {
+  const coverage: TonnageCoverage = rounded({
     marks: girders.length,
     girders: girders.reduce((s, g) => s + g.quantity, 0),
     tonnage: total,
@@ -218,8 +268,8 @@ function tenderOf(schedule: ScheduleJson, marks: readonly MarkResult[], inputs: 
     estimated,
     totalWithEstimates: total + estimated,
     short,
-  };
-  return { basis, leftOut, tonnage: t, coverage, estimates };
+  });
+  return { basis, leftOut, tonnage: t, reconciliation, currency: opts?.currency ?? null, coverage, estimates: rounded(estimates) };
 }
 
 /**
@@ -312,6 +362,8 @@ export async function finishSchedule(schedule: ScheduleJson, marks: readonly Mar
   return {
     format: RESULT_FORMAT,
     version: RESULT_VERSION,
+    caution: CAUTION,
+    scope: SCOPE,
     name: schedule.name ?? null,
     marks: [...marks],
     totals: totalsOf(marks),

@@ -9,7 +9,7 @@ import type { PublishedSearch } from '@platesmith/schema';
 import { failureReason, finishSchedule, nearMissesText, ScheduleJson, type MarkResult } from '@platesmith/schedule';
 
 const section = { web: { depth: 1000, thickness: 10 }, topFlange: { width: 300, thickness: 20 }, bottomFlange: { width: 300, thickness: 20 }, stiffeners: null, endPost: 'rigid' as const, grade: 'S355' };
-const governing = { id: 'bending', clause: 'EN 1993-1-1 6.2.5', applies: true, utilisation: 1.31, passes: false, at: 6000, values: {} };
+const governing = { id: 'bending', clause: 'EN 1993-1-1 6.2.5', applies: true, utilisation: 1.31, passes: false, at: 6000, values: {}, units: {} };
 const stats = { spaceSize: 1, fullEvaluations: 1, pruned: { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, patchBending: 0, lateralTorsional: 0, bearing: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 }, failedBy: {}, wallMs: 1, workers: 1, webConfigurations: 1 };
 const withMiss: PublishedSearch = {
   objective: 'mass',

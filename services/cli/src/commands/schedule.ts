@@ -1,5 +1,5 @@
-import { readFileSync, writeFileSync } from 'node:fs';
-import { scheduleReport } from '@platesmith/report';
+import { readFileSync } from 'node:fs';
+import { plateListCsv, scheduleReport } from '@platesmith/report';
 import {
   BaselineJson,
   failureReason,
@@ -15,9 +15,9 @@ import {
   type RationalisationOutcome,
   type ScheduleRunResult,
 } from '@platesmith/schedule';
-import { formatIssues, parseWith } from '@platesmith/schema';
+import { CAUTION, formatIssues, parseWith, SCOPE } from '@platesmith/schema';
 import { createSearchPool, searchOnPool } from '@platesmith/search/pool';
-import { EXIT, InputError, type Out } from '../io.js';
+import { EXIT, fileProblem, InputError, writeOut, type Out } from '../io.js';
 import { caution } from '../render.js';
 import { fmt, progressBar, table } from '../table.js';
 
@@ -29,6 +29,7 @@ export const SCHEDULE_USAGE = `platesmith schedule FILE [options]
   --junit out.xml        write JUnit XML, one test case per mark
   --markdown out.md      write a Markdown summary
   --report out.html      write the HTML report
+  --plates plates.csv    write the plate list as CSV (product, grade, thickness, width, length, count, masses)
   --rationalise K        rationalise to at most K distinct sections (MILP, K = 1 … K)
   --thicknesses T        rationalise plates: at most T plate thicknesses over the schedule (MILP)
   --widths W             rationalise plates: at most W flange widths over the schedule (MILP)
@@ -49,6 +50,7 @@ export interface ScheduleArgs {
   junit?: string;
   markdown?: string;
   report?: string;
+  plates?: string;
   rationalise?: number;
   thicknesses?: number;
   widths?: number;
@@ -59,7 +61,7 @@ export interface ScheduleArgs {
   quiet: boolean;
 }
 
-const VALUED = new Set(['--format', '--baseline', '--out', '--junit', '--markdown', '--report', '--rationalise', '--thicknesses', '--widths', '--time-limit', '--mass-tolerance', '--threads']);
+const VALUED = new Set(['--format', '--baseline', '--out', '--junit', '--markdown', '--report', '--plates', '--rationalise', '--thicknesses', '--widths', '--time-limit', '--mass-tolerance', '--threads']);
 const SWITCHES = new Set(['--json', '--quiet']);
 
 function numberArg(flag: string, v: string, opts: { integer?: boolean; min: number; max: number }): number {
@@ -96,7 +98,7 @@ export function parseScheduleArgs(argv: readonly string[]): ScheduleArgs {
     if (f !== 'json' && f !== 'csv') throw new InputError(`--format must be json or csv, got '${f}'`);
     out.format = f;
   }
-  for (const [flag, key] of [['--baseline', 'baseline'], ['--out', 'out'], ['--junit', 'junit'], ['--markdown', 'markdown'], ['--report', 'report']] as const) {
+  for (const [flag, key] of [['--baseline', 'baseline'], ['--out', 'out'], ['--junit', 'junit'], ['--markdown', 'markdown'], ['--report', 'report'], ['--plates', 'plates']] as const) {
     const v = values.get(flag);
     if (v !== undefined) out[key] = v;
   }
@@ -119,17 +121,12 @@ function readText(file: string): string {
   try {
     return file === '-' ? readFileSync(0, 'utf8') : readFileSync(file, 'utf8');
   } catch (e) {
-    throw new InputError(`cannot read ${file}: ${(e as NodeJS.ErrnoException).code ?? 'error'}`);
+    throw new InputError(fileProblem(file, e));
   }
 }
 
-function write(file: string, text: string): void {
-  try {
-    writeFileSync(file, text);
-  } catch (e) {
-    throw new InputError(`cannot write ${file}: ${(e as NodeJS.ErrnoException).code ?? 'error'}`);
-  }
-}
+/** Writes an output, creating missing folders (`--report reports/harbour.html` on a fresh clone). */
+const write = writeOut;
 
 /** The schedule of FILE with the command line's baseline and options applied; bad input is an InputError listing every issue. */
 export function loadSchedule(a: ScheduleArgs): ScheduleJson {
@@ -180,7 +177,8 @@ export function junitCases(r: ScheduleRunResult): CompareResult[] {
 /** A Markdown summary: the comparison (or the per-mark verdicts), then tonnage, what it leaves out, and rationalisation lines. */
 export function markdownOf(r: ScheduleRunResult): string {
   const lines = [toMarkdown(junitCases(r), { title: `${r.name ?? 'Girder schedule'}: ${r.comparison ? 'regression against the baseline' : 'verdicts (no baseline)'}` })];
-  lines.push(...coverageLines(r).map((l) => `${l}`), '');
+  const tl = coverageLines(r);
+  if (tl.length) lines.push(...tl, '');
   const rat = r.tender.rationalisation;
   if (rat && rat.skipped !== undefined) lines.push(`Rationalisation skipped: ${rat.skipped}.`, '');
   else if (rat) {
@@ -197,6 +195,7 @@ export function markdownOf(r: ScheduleRunResult): string {
     }
     if (rat.plates) lines.push(platesLine(rat), '');
   }
+  lines.push(`> **Caution.** ${r.caution ?? CAUTION}`, '>', `> ${r.scope ?? SCOPE}`, '');
   return lines.join('\n');
 }
 
@@ -204,13 +203,9 @@ const tonnes = (kg: number) => `${(kg / 1000).toFixed(3)} t`;
 
 /** What the tonnage covers, the marks it leaves out (with quantity) and the flagged estimates: never silent. */
 export function coverageLines(r: ScheduleRunResult): string[] {
-  const t = r.tender.tonnage;
   const c = r.tender.coverage;
-  const lines: string[] = [];
-  const adopted = r.tender.basis.filter((b) => b.section === 'adopted').length;
-  lines.push(
-    `Tender tonnage: ${tonnes(c.tonnage)} over ${c.girders} girders of ${c.marks} marks (${adopted} on the adopted section, the rest on the lightest)${t?.cost != null ? `; cost ${t.cost.toFixed(2)}` : ''}.`,
-  );
+  const lines = tonnageLines(r);
+  if (lines.length === 0) lines.push('Tonnage counted: 0 t (no mark has a section).');
   if (r.tender.leftOut.length > 0) {
     lines.push(`NOT in the tonnage: ${c.excludedMarks} marks, ${c.excludedGirders} girders: ${r.tender.leftOut.map((l) => `${l.mark} ×${l.quantity}`).join(', ')}.`);
     for (const e of r.tender.estimates) lines.push(`  ${e.mark} ×${e.quantity}: ${e.mass !== null ? `${tonnes(e.mass)} (${Math.round(e.massPerGirder!)} kg each) — ` : ''}${e.flag}`);
@@ -228,8 +223,22 @@ function platesLine(rat: Exclude<RationalisationOutcome, { skipped: string }>): 
 }
 
 /** The HTML report of a result (the report package draws it). */
-export function htmlOf(r: ScheduleRunResult, generatedAt: string): string {
-  return scheduleReport(r, { generatedAt });
+export function htmlOf(r: ScheduleRunResult, generatedAt: string, schedule?: ScheduleJson): string {
+  return scheduleReport(r, { generatedAt, ...(schedule ? { schedule } : {}) });
+}
+
+/** Tonnage lines a tender estimator reads: the total counted, how it reconciles with the lightest sections, the cost with its currency. */
+function tonnageLines(r: ScheduleRunResult): string[] {
+  const t = r.tender.tonnage;
+  if (!t) return [];
+  const cur = r.tender.currency ? ` ${r.tender.currency}` : " (the rates' currency)";
+  const lines = [`Tonnage counted (adopted where given, else lightest; bearing stiffeners included): ${(t.total / 1000).toFixed(3)} t over ${t.girders} girders${t.cost !== null ? `; material cost ${t.cost.toFixed(2)}${cur}` : ''}.`];
+  const rec = r.tender.reconciliation;
+  if (rec) {
+    lines.push(`  = ${(rec.lightest / 1000).toFixed(3)} t on the lightest sections + ${(rec.saving / 1000).toFixed(3)} t that adopting the lightest would save.`);
+    for (const m of rec.byMark) if (m.section === 'adopted' && m.saving !== null) lines.push(`  ${m.mark}: adopted ${m.perGirder.toFixed(1)} kg, lightest ${m.lightestPerGirder?.toFixed(1)} kg per girder; saving ${(m.saving / 1000).toFixed(3)} t for ${m.quantity}.`);
+  }
+  return lines;
 }
 
 function summary(r: ScheduleRunResult): string {
@@ -322,7 +331,8 @@ export async function runScheduleCommand(argv: readonly string[], io: Out): Prom
   if (a.out) write(a.out, JSON.stringify(result, null, 2) + '\n');
   if (a.junit) write(a.junit, toJUnit(junitCases(result), result.name ?? 'girder schedule regression'));
   if (a.markdown) write(a.markdown, markdownOf(result));
-  if (a.report) write(a.report, htmlOf(result, new Date().toISOString()));
+  if (a.report) write(a.report, htmlOf(result, new Date().toISOString(), schedule));
+  if (a.plates) write(a.plates, result.tender.tonnage ? plateListCsv(result.tender.tonnage.plates) : plateListCsv([]));
   if (a.json) io.out(JSON.stringify(result, null, 2));
   else io.out(`${summary(result)}\n\n${caution()}`);
   return failsRun(result) ? EXIT.fails : EXIT.ok;
