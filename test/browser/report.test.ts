@@ -48,7 +48,7 @@ interface El {
   textContent: string | null;
 }
 
-function reportInput(): ReportInput {
+async function reportInput(): Promise<ReportInput> {
   const base = sampleReport();
   const section = {
     web: { depth: 1400, thickness: 12 },
@@ -59,7 +59,7 @@ function reportInput(): ReportInput {
     grade: 'S355',
   };
   const t = tonnage([tenderGirder('G1', 4, section, [0, 20000]), tenderGirder('G2 "end"', 2, { ...section, stiffeners: null }, [0, 10000])], { S355: 1.2 });
-  const r = rationalise({
+  const r = await rationalise({
     marks: [
       { mark: 'G1', quantity: 4, length: 20000 },
       { mark: 'G2 "end"', quantity: 2, length: 10000 },
@@ -87,7 +87,7 @@ describe.skipIf(!available)(available ? 'HTML report in chromium' : `HTML report
     const { chromium } = requireFromReport('playwright-core') as { chromium: Chromium };
     mkdirSync(`${root}reports`, { recursive: true });
     const file = `${root}reports/report.html`;
-    writeFileSync(file, renderReport(reportInput()));
+    writeFileSync(file, renderReport(await reportInput()));
     browser = await chromium.launch({ executablePath: CHROMIUM, args: ['--no-sandbox'] });
     page = await browser.newPage();
     page.on('console', (m) => {

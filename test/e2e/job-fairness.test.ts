@@ -13,7 +13,7 @@ import { MemoryJobStore, type JobRecord, type JobSummary } from '../../services/
 
 const input = (prefix: string, marks: number): ScheduleJson => ({ defaults: {}, girders: Array.from({ length: marks }, (_, i) => ({ mark: `${prefix}${i + 1}`, quantity: 1 })) }) as unknown as ScheduleJson;
 const markOf = (m: string): MarkResult => ({ mark: m, quantity: 1, status: 'ok', search: null, adopted: null });
-const totals = (k: number) => ({ marks: k, marksFailed: 0, girders: k, tonnage: 0, marksWithoutFeasible: [], adoptedFailing: [] });
+const totals = (k: number) => ({ marks: k, marksFailed: 0, girders: k, tonnage: 0, marksWithoutFeasible: [], girdersWithoutFeasible: 0, adoptedFailing: [] });
 
 /** Like runSchedule: one turn per mark, in order, the mark's search inside the turn. */
 function workWith(search: (mark: string, signal: AbortSignal) => Promise<void>) {

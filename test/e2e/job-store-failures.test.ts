@@ -42,7 +42,7 @@ const SCHEDULE = { defaults: { ...PROBLEM, space: TINY_SPACE }, girders: [{ mark
 const input = (marks: number, pad = 0): ScheduleJson => ({ defaults: { pad: 'x'.repeat(pad) }, girders: Array.from({ length: marks }, (_, i) => ({ mark: `G${i + 1}`, quantity: 1 })) }) as unknown as ScheduleJson;
 const record = (id: string, inp: ScheduleJson): JobRecord => ({ id, kind: 'schedule', owner: null, status: 'queued', name: null, marks: inp.girders.length, createdAt: '2026-01-01T00:00:00.000Z', startedAt: null, finishedAt: null, progress: null, input: inp, result: null, error: null, resumed: 0 });
 const markOf = (m: string): MarkResult => ({ mark: m, quantity: 1, status: 'failed', search: null, adopted: null, error: { code: 'X', message: 'invented' } });
-const totals = (k: number) => ({ marks: k, marksFailed: k, girders: k, tonnage: 0, marksWithoutFeasible: [], adoptedFailing: [] });
+const totals = (k: number) => ({ marks: k, marksFailed: k, girders: k, tonnage: 0, marksWithoutFeasible: [], girdersWithoutFeasible: 0, adoptedFailing: [] });
 
 /** A work function whose marks finish when the test says (step()), reporting each through onProgress. */
 function steppedWork() {

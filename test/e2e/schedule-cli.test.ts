@@ -111,3 +111,69 @@ test('bad input: exit 2 naming the row and column, the field, the flag, or the f
   expect((await run('schedule', f('missing.json'))).err).toContain(`cannot read ${f('missing.json')}: no such file`);
   expect((await run('schedule')).code).toBe(2);
 });
+
+test('a mark without a section fails: summary, exit 1, JUnit failure (with or without a baseline), report, tonnage that lists it with a flagged estimate', async () => {
+  // X: 20 m under 30 + 40 kN/m in a space of shallow webs (invented): nothing can pass
+  const s = {
+    name: 'with a mark without a section',
+    defaults: { spans: [12000], actions: [{ kind: 'permanent', load: 'udl', value: 10 }, { kind: 'variable', load: 'udl', value: 15, category: 'B' }], space: SPACE },
+    girders: [
+      { mark: 'OK1', quantity: 3 },
+      { mark: 'X', quantity: 2, spans: [20000], actions: [{ kind: 'permanent', load: 'udl', value: 30 }, { kind: 'variable', load: 'udl', value: 40, category: 'B' }], space: { ...SPACE, webDepth: [400], flangeThickness: [12] } },
+    ],
+    tender: { rationalise: 2 },
+  };
+  writeFileSync(f('nosec.json'), JSON.stringify(s));
+  const r = await run('schedule', f('nosec.json'), '--out', f('nosec-out.json'), '--junit', f('nosec.xml'), '--markdown', f('nosec.md'), '--report', f('nosec.html'), '--quiet', '--threads', '2');
+  expect(r.code).toBe(1);
+  const res = JSON.parse(readFileSync(f('nosec-out.json'), 'utf8'));
+  const x = res.marks[1];
+  expect(x).toMatchObject({ mark: 'X', status: 'failed', error: { code: 'NO_FEASIBLE_SECTION' } });
+  expect(x.search.lightest).toBeNull();
+  const misses = x.search.nearMisses.length;
+  // the nearest misses in words, or an explicit statement that there are none
+  const words = misses > 0 ? /nearest miss [\d,]+ kg at h = \d+ mm/ : /the search returned no nearest miss/;
+  expect(x.error.message).toMatch(words);
+  expect(res.totals).toMatchObject({ marks: 2, marksFailed: 1, marksWithoutFeasible: ['X'], girdersWithoutFeasible: 2 });
+  // the tonnage says what it leaves out, with the quantity, and the estimate line is flagged
+  expect(res.tender.leftOut).toEqual([{ mark: 'X', quantity: 2, reason: 'no section in its space passes every check (and none adopted)' }]);
+  expect(res.tender.coverage).toMatchObject({ marks: 1, girders: 3, excludedMarks: 1, excludedGirders: 2 });
+  expect(res.tender.estimates).toHaveLength(1);
+  const e = res.tender.estimates[0];
+  if (misses > 0) {
+    expect(e.mass).toBeCloseTo(2 * x.search.nearMisses[0].mass, 6);
+    expect(e.flag).toMatch(/^ESTIMATE, not a design/);
+    expect(res.tender.coverage.short).toEqual([]);
+  } else {
+    expect(e.mass).toBeNull();
+    expect(e.flag).toMatch(/^NO ESTIMATE/);
+    expect(res.tender.coverage.short).toEqual(['X']);
+  }
+  expect(res.tender.coverage.totalWithEstimates).toBeCloseTo(res.tender.coverage.tonnage + (e.mass ?? 0), 6);
+  // the rationalisation leaves X out, lists it, and rationalises the other mark
+  expect(res.tender.rationalisation.leftOut).toEqual([{ mark: 'X', quantity: 2, reason: 'no feasible candidate' }]);
+  expect(res.tender.rationalisation.byK[0]).toMatchObject({ K: 1, feasible: true, status: 'optimal' });
+
+  expect(r.out).toMatch(/2 marks \(1 failed\)/);
+  expect(r.out).toMatch(/FAILED X ×2: no feasible section: /);
+  expect(r.out).toMatch(/NOT in the tonnage: 1 marks, 2 girders: X ×2\./);
+  expect(r.out).toMatch(/not counted: 1 marks without a section \(2 girders\)/);
+  const xml = readFileSync(f('nosec.xml'), 'utf8');
+  expect(xml).toMatch(/<testsuites [^>]*failures="1"/);
+  expect(xml).toMatch(/<testcase [^>]*name="X">\s*<failure message="no feasible section: /);
+  expect(readFileSync(f('nosec.md'), 'utf8')).toMatch(/NOT in the tonnage: 1 marks, 2 girders: X ×2\./);
+  const html = readFileSync(f('nosec.html'), 'utf8');
+  expect(html).toContain('<h2>Not in the tonnage</h2>');
+  expect(html).toMatch(/id="mark-X">.*FAILED/s);
+  expect(html).toMatch(misses > 0 ? /nearest miss [\d,]+ kg at h = \d+ mm fails/ : /the search returned no nearest miss/);
+
+  // against its own result as the baseline, and against a baseline without X: X still fails
+  const again = await run('schedule', f('nosec.json'), '--baseline', f('nosec-out.json'), '--junit', f('nosec2.xml'), '--json', '--quiet', '--threads', '2');
+  expect(again.code).toBe(1);
+  expect(JSON.parse(again.out).comparison.regressed).toEqual(['X']);
+  expect(readFileSync(f('nosec2.xml'), 'utf8')).toMatch(/<testcase [^>]*name="X">\s*<failure /);
+  writeFileSync(f('base-noX.json'), JSON.stringify({ records: res.records.filter((rec: { mark: string }) => rec.mark !== 'X') }));
+  const fresh = await run('schedule', f('nosec.json'), '--baseline', f('base-noX.json'), '--json', '--quiet', '--threads', '2');
+  expect(fresh.code).toBe(1);
+  expect(JSON.parse(fresh.out).comparison.regressed).toEqual(['X']);
+}, 180_000);

@@ -84,7 +84,7 @@ test('manager on a store with interrupted jobs: takes them up, keeps stored mark
     ran.push(inp.girders.map((g) => g.mark));
     const marks = inp.girders.map((g) => mark(g.mark));
     onProgress({ marksDone: marks.length, marksTotal: marks.length, currentMark: null, elapsedMs: 1, estimateMs: 0, finished: marks[0]! });
-    return { name: null, marks, totals: { marks: marks.length, marksFailed: marks.length, girders: 0, tonnage: 0, marksWithoutFeasible: [], adoptedFailing: [] } };
+    return { name: null, marks, totals: { marks: marks.length, marksFailed: marks.length, girders: 0, tonnage: 0, marksWithoutFeasible: [], girdersWithoutFeasible: 0, adoptedFailing: [] } };
   });
   await m.ready;
   const done = await new Promise<JobSummary>((resolve) => {

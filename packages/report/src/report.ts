@@ -1,7 +1,7 @@
 import { CAUTION, SCOPE, type PublishedSearch, type PublishedVerdict } from '@platesmith/schema';
 import { envelopeChart, paretoChart, utilisationChart } from './charts.js';
 import { esc } from './html.js';
-import type { ReportInput, ReportMark, ReportRationalisation, ReportReconciliation, ReportTonnage } from './types.js';
+import type { ReportCoverage, ReportInput, ReportMark, ReportRationalisation, ReportReconciliation, ReportTonnage } from './types.js';
 import { sectionKeyInWords } from './words.js';
 
 const STYLE = `
@@ -90,10 +90,11 @@ function markSection(m: ReportMark): string {
   const l = m.lightest;
   const facts = [
     `quantity ${m.quantity}`,
+    ...(m.failed ? ['<strong class="fail">FAILED</strong>'] : []),
     l ? `lightest ${kg(l.mass)} kg at h = ${Math.round(l.depth)} mm${l.governing ? ` (governing: ${esc(l.governing)})` : ''}` : '<span class="fail">no feasible section</span>',
     ...(m.utilisation ? [`${m.utilisation.of} section ${m.utilisation.passes ? 'passes' : '<span class="fail">fails</span>'}`] : []),
   ];
-  const notes = (m.notes ?? []).map((s) => `<p>${esc(s)}</p>`).join('');
+  const notes = (m.notes ?? []).map((s) => `<p${m.failed ? ' class="fail"' : ''}>${esc(s)}</p>`).join('');
   const basis = m.basis?.length ? `<ul class="basis">${m.basis.map((b) => `<li>${esc(b)}</li>`).join('')}</ul>` : '';
   const sect = m.section ? `<p class="section-words"><strong>${m.section.of === 'adopted' ? 'Adopted' : 'Lightest'} section:</strong> ${esc(m.section.words)}</p>` : '';
   const rows = m.pareto.map((p) => [String(Math.round(p.depth)), kg(p.mass), esc(p.governing ?? '')]);
@@ -128,16 +129,37 @@ function tonnageSection(t: ReportTonnage, r?: ReportReconciliation, currency?: s
   return `<section class="tonnage"><h2>Tonnage</h2>${total}${r ? reconciliationTable(r) : ''}${byMark}${byGrade}${byThickness}${plates}</section>`;
 }
 
+function coverageSection(c: ReportCoverage): string {
+  if (c.leftOut.length === 0) return '';
+  const excluded = c.leftOut.reduce((s, l) => s + l.quantity, 0);
+  const est = new Map(c.estimates.map((e) => [e.mark, e]));
+  const rows = c.leftOut.map((l) => {
+    const e = est.get(l.mark);
+    return [esc(l.mark), String(l.quantity), esc(l.reason), e?.mass != null ? t3(e.mass) : '–', `<span class="fail">${esc(e?.flag ?? 'no estimate: the totals are short by this mark')}</span>`];
+  });
+  const short = c.short.length > 0 ? ` Still short by ${esc(c.short.join(', '))} (no estimate).` : '';
+  return `<section class="coverage"><h2>Not in the tonnage</h2><p class="fail">The tonnage (${t3(c.tonnage)} t) covers ${c.marks} marks, ${c.girders} girders. Left out: ${c.leftOut.length} marks, ${excluded} girders. With the flagged estimates below: ${t3(c.totalWithEstimates)} t.${short}</p>${table('Marks left out of the tonnage', ['mark', 'quantity', 'why', 'estimate (t)', 'flag'], rows, [false, true, false, true, false])}</section>`;
+}
+
 function rationalisationSection(r: ReportRationalisation): string {
   const unit = r.objective === 'mass' ? 't' : 'cost';
   const val = (v: number) => (r.objective === 'mass' ? t3(v) : money(v));
+  const pct = (v: number | undefined) => (v === undefined ? '–' : `${(v * 100).toFixed(2)} %`);
   const rows = r.byK.map((k) =>
     k.feasible
-      ? [String(k.K), val(k.total), val(k.penalty), `${(k.penaltyRatio * 100).toFixed(2)} %`, k.sections.map((x) => esc(sectionKeyInWords(x))).join('<br>')]
-      : [String(k.K), '–', '–', '–', `<span class="fail">${esc(k.reason)}</span>`],
+      ? [String(k.K), val(k.total), val(k.penalty), pct(k.penaltyRatio), pct(k.gap), esc(k.status ?? ''), k.sections.map((x) => esc(sectionKeyInWords(x))).join('<br>')]
+      : [String(k.K), '–', '–', '–', '–', '–', `<span class="fail">${esc(k.reason)}</span>`],
   );
-  const base = r.unrationalised === null ? '<p class="fail">A mark has no feasible section; no rationalisation is possible.</p>' : `<p>Every mark on its own best section: ${val(r.unrationalised)} ${unit === 't' ? 't' : ''}.</p>`;
-  return `<section class="rationalisation"><h2>Rationalisation</h2>${base}${table(`At most K distinct sections (${r.objective})`, ['K', `total (${unit})`, `penalty (${unit})`, 'penalty', 'sections used'], rows, [true, true, true, true, false])}</section>`;
+  const base = r.unrationalised === null ? '<p class="fail">No mark has a feasible section; no rationalisation is possible.</p>' : `<p>Every mark in the model on its own best section: ${val(r.unrationalised)} ${unit === 't' ? 't' : ''}.${r.timeLimit !== undefined ? ` Time limit ${r.timeLimit} s; the gap is how far above the proven lower bound each answer can be.` : ''}</p>`;
+  const left = r.leftOut && r.leftOut.length > 0 ? `<p class="fail">Left out of the rationalisation (no feasible candidate): ${esc(r.leftOut.map((l) => `${l.mark} ×${l.quantity}`).join(', '))}.</p>` : '';
+  const p = r.plates;
+  const lim = p ? [p.maxThicknesses !== null ? `${p.maxThicknesses} thicknesses` : null, p.maxWidths !== null ? `${p.maxWidths} flange widths` : null].filter(Boolean).join(', ') : '';
+  const plates = !p
+    ? ''
+    : p.feasible
+      ? `<p>Plates (at most ${esc(lim)}): ${val(p.total)} ${unit === 't' ? 't' : ''}, penalty ${pct(p.penaltyRatio)}, gap ${pct(p.gap)} (${esc(p.status)}); thicknesses ${esc(p.thicknesses.join(', '))} mm; flange widths ${esc(p.widths.join(', '))} mm.</p>`
+      : `<p class="fail">Plates (at most ${esc(lim)}): ${esc(p.reason)}.</p>`;
+  return `<section class="rationalisation"><h2>Rationalisation</h2>${base}${left}${r.byK.length > 0 ? table(`At most K distinct sections (${r.objective})`, ['K', `total (${unit})`, `penalty (${unit})`, 'penalty', 'gap', 'status', 'sections used'], rows, [true, true, true, true, true, false, false]) : ''}${plates}</section>`;
 }
 
 /**
@@ -149,7 +171,7 @@ export function renderReport(input: ReportInput): string {
   const head = `<header class="page"><h1>${esc(input.title)}</h1>${input.subtitle ? `<div>${esc(input.subtitle)}</div>` : ''}${caution()}</header>`;
   const foot = `<footer class="page">${caution()}${input.generatedAt ? `<p class="caution">Generated ${esc(input.generatedAt)}.</p>` : ''}</footer>`;
   const index = input.marks.length > 1 ? `<nav><p>Marks: ${input.marks.map((m) => `<a href="#mark-${esc(m.mark)}">${esc(m.mark)}</a>`).join(' · ')}</p></nav>` : '';
-  const body = [index, ...(input.tonnage ? [tonnageSection(input.tonnage, input.reconciliation, input.currency)] : []), ...(input.rationalisation ? [rationalisationSection(input.rationalisation)] : []), ...input.marks.map(markSection)].join('\n');
+  const body = [index, ...(input.tonnage ? [tonnageSection(input.tonnage, input.reconciliation, input.currency)] : []), ...(input.coverage ? [coverageSection(input.coverage)] : []), ...(input.rationalisation ? [rationalisationSection(input.rationalisation)] : []), ...input.marks.map(markSection)].join('\n');
   return `<!DOCTYPE html>\n<html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:"><title>${esc(input.title)}</title><style>${STYLE}</style></head><body><table class="frame" role="presentation"><thead><tr><td>${head}</td></tr></thead><tfoot><tr><td>${foot}</td></tr></tfoot><tbody><tr><td><main>${body}</main></td></tr></tbody></table></body></html>\n`;
 }
 
@@ -177,8 +199,13 @@ export function markFromSearch(mark: string, quantity: number, search: Published
     const checks = [...worst.values()].sort((a, b) => (b.utilisation ?? 0) - (a.utilisation ?? 0)).slice(0, top);
     out.utilisation = { of: src.of, passes: src.passes, checks };
   }
-  if (search && search.pareto.length === 0 && search.nearMisses.length > 0) {
-    out.notes = [`No feasible section; nearest miss fails ${search.nearMisses[0]!.failing.join(', ')}.`];
+  if (search && search.pareto.length === 0) {
+    const miss = search.nearMisses[0];
+    out.notes = [
+      miss
+        ? `No feasible section; nearest miss ${kg(miss.mass)} kg at h = ${Math.round(miss.depth)} mm fails ${miss.failing.join(', ') || miss.governing.id}.`
+        : 'No feasible section, and the search returned no nearest miss (every candidate was ruled out by a bound before any was judged).',
+    ];
   }
   return out;
 }

@@ -68,7 +68,11 @@ export function scheduleReport(r: ScheduleRunResult, meta: { title?: string; sub
     ...(meta.generatedAt !== undefined ? { generatedAt: meta.generatedAt } : {}),
     marks: r.marks.map((m) => {
       const rm = markFromSearch(m.mark, m.quantity, m.search, m.adopted);
-      if (m.status === 'failed') rm.notes = [...(rm.notes ?? []), `The mark failed: ${m.error?.message ?? 'failed'}.`];
+      if (m.status === 'failed') {
+        rm.failed = true;
+        // a mark without a section already has its nearest miss (or that there is none) in the notes
+        if (m.error?.code !== 'NO_FEASIBLE_SECTION') rm.notes = [...(rm.notes ?? []), `The mark failed: ${m.error?.message ?? 'failed'}.`];
+      }
       const of = basis.get(m.mark);
       const g = meta.schedule?.girders.find((x) => x.mark === m.mark);
       // the adopted section as the schema reads it (its defaults applied, e.g. the grade)
@@ -82,6 +86,7 @@ export function scheduleReport(r: ScheduleRunResult, meta: { title?: string; sub
       return rm;
     }),
     ...(r.tender.tonnage ? { tonnage: r.tender.tonnage } : {}),
+    coverage: { ...r.tender.coverage, leftOut: r.tender.leftOut, estimates: r.tender.estimates },
     ...(r.tender.reconciliation ? { reconciliation: r.tender.reconciliation } : {}),
     currency: r.tender.currency ?? null,
     ...(rat && rat.skipped === undefined ? { rationalisation: rat } : {}),

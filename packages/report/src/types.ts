@@ -11,11 +11,25 @@ export interface ReportInput {
   generatedAt?: string;
   marks: ReportMark[];
   tonnage?: ReportTonnage;
+  /** what the tonnage leaves out: marks without a section (quantity, reason) and their flagged estimates */
+  coverage?: ReportCoverage;
   /** how the tonnage reconciles with the lightest sections, kg */
   reconciliation?: ReportReconciliation;
   /** currency of the costs (null or absent: not said) */
   currency?: string | null;
   rationalisation?: ReportRationalisation;
+}
+
+export interface ReportCoverage {
+  /** kg */
+  tonnage: number;
+  marks: number;
+  girders: number;
+  leftOut: readonly { mark: string; quantity: number; reason: string }[];
+  estimates: readonly { mark: string; quantity: number; massPerGirder: number | null; mass: number | null; flag: string }[];
+  /** kg */
+  totalWithEstimates: number;
+  short: readonly string[];
 }
 
 export interface ReportCheck {
@@ -51,6 +65,8 @@ export interface ReportMark {
   };
   /** free lines printed under the mark (e.g. why no section was found) */
   notes?: string[];
+  /** the mark failed (no section, or it could not be run): shown as a failure, with `notes` */
+  failed?: boolean;
   /** the design basis of the mark in words (spans, actions, options) */
   basis?: string[];
   /** the section counted for the mark, in words */
@@ -79,7 +95,18 @@ export interface ReportRationalisation {
   objective: 'mass' | 'cost';
   unrationalised: number | null;
   byK: readonly (
-    | { K: number; feasible: true; total: number; penalty: number; penaltyRatio: number; sections: readonly string[]; assignment?: readonly { mark: string; candidate: string }[] }
+    | { K: number; feasible: true; total: number; penalty: number; penaltyRatio: number; sections: readonly string[]; assignment?: readonly { mark: string; candidate: string }[]; status?: string; gap?: number }
     | { K: number; feasible: false; reason: string }
   )[];
+  /** marks left out of the model (no feasible candidate) */
+  leftOut?: readonly { mark: string; quantity: number; reason: string }[];
+  /** at most T thicknesses and W flange widths */
+  plates?:
+    | null
+    | ({ maxThicknesses: number | null; maxWidths: number | null } & (
+        | { feasible: true; total: number; penaltyRatio: number; gap: number; status: string; thicknesses: readonly number[]; widths: readonly number[] }
+        | { feasible: false; reason: string }
+      ));
+  /** s */
+  timeLimit?: number;
 }

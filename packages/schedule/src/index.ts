@@ -26,6 +26,9 @@ export {
   type MarkError,
   type AdoptedCheck,
   totalsOf,
+  failureReason,
+  nearMissesText,
+  NO_FEASIBLE_SECTION,
 } from './run.js';
 export {
   finishSchedule,
@@ -33,12 +36,17 @@ export {
   baselineRecords,
   recordOf,
   sectionPassesFor,
+  feasibleFor,
   RESULT_FORMAT,
   RESULT_VERSION,
   type ScheduleRunResult,
   type ScheduleComparison,
   type ScheduleTender,
   type RationalisationOutcome,
+  type EstimateLine,
+  type TonnageCoverage,
+  type FinishProgress,
+  type FinishOptions,
 } from './finish.js';
 export { parseSchedule, parseScheduleText, type ScheduleParsed, type ScheduleInputIssue } from './input.js';
 export * from './tender/index.js';

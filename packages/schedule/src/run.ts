@@ -60,13 +60,16 @@ export interface MarkResult {
 
 export interface ScheduleTotals {
   marks: number;
+  /** marks that could not be run, or have no section (none in their space passes and none is adopted) */
   marksFailed: number;
   /** Σ quantity */
   girders: number;
-  /** Σ quantity × lightest mass of the mark, t (marks without a feasible section count 0) */
+  /** Σ quantity × lightest mass of the marks that have one, t: the marks in `marksWithoutFeasible` are not in it */
   tonnage: number;
   /** marks whose search found no feasible section */
   marksWithoutFeasible: string[];
+  /** Σ quantity of the marks whose search found no feasible section (not in `tonnage`) */
+  girdersWithoutFeasible: number;
   /** marks whose adopted section fails a check */
   adoptedFailing: string[];
 }
@@ -179,7 +182,38 @@ async function runMark(defaults: Record<string, unknown>, g: ScheduleJson['girde
       return failed(err, search);
     }
   }
+  // a mark without a section is a failed mark (summary, exit code, JUnit, report), its search kept for the nearest misses
+  if (search.lightest === null && adopted === null) return failed(noSectionError(g.mark, search), search);
   return { ...base, status: 'ok', search, adopted };
+}
+
+/** Error code of a mark whose search found no feasible section and that has no adopted section. */
+export const NO_FEASIBLE_SECTION = 'NO_FEASIBLE_SECTION';
+
+const kgText = (v: number) => `${Math.round(v).toLocaleString('en-GB')} kg`;
+
+/** The nearest misses of a search in words, or an explicit statement that there are none. */
+export function nearMissesText(search: PublishedSearch): string {
+  const misses = search.nearMisses;
+  if (misses.length === 0) return 'the search returned no nearest miss (every candidate was ruled out by a bound before any was judged)';
+  const m = misses[0]!;
+  const s = m.section;
+  const plates = `web ${s.web.depth}×${s.web.thickness}, flanges ${s.topFlange.width}×${s.topFlange.thickness} / ${s.bottomFlange.width}×${s.bottomFlange.thickness}`;
+  return `nearest miss ${kgText(m.mass)} at h = ${Math.round(m.depth)} mm (${plates}) fails ${m.failing.join(', ') || m.governing.id}${misses.length > 1 ? ` (${misses.length} near misses in the result)` : ''}`;
+}
+
+function noSectionError(mark: string, search: PublishedSearch): MarkError {
+  return {
+    code: NO_FEASIBLE_SECTION,
+    message: `mark ${mark}: no section in its space passes every check; ${nearMissesText(search)}`,
+    hint: 'widen the space (deeper webs, thicker plates, more stiffener panels), or check the actions and restraints; or give an adopted section',
+  };
+}
+
+/** Why a failed mark fails, in one line (JUnit, Markdown, comparison). */
+export function failureReason(m: MarkResult): string {
+  if (m.error?.code === NO_FEASIBLE_SECTION) return `no feasible section: ${m.search ? nearMissesText(m.search) : 'no search result'} (${NO_FEASIBLE_SECTION})`;
+  return `the mark could not be run: ${m.error?.message ?? 'failed'} (${m.error?.code ?? 'FAILED'})`;
 }
 
 /** Totals of a list of mark results (Σ quantity, Σ quantity × lightest mass, marks without a feasible or with a failing adopted section). */
@@ -192,6 +226,7 @@ export function totalsOf(marks: readonly MarkResult[]): ScheduleTotals {
     girders: marks.reduce((n, m) => n + m.quantity, 0),
     tonnage: Math.round(tonnage * 1000) / 1000,
     marksWithoutFeasible: marks.filter((m) => m.search !== null && m.search.lightest === null).map((m) => m.mark),
+    girdersWithoutFeasible: marks.filter((m) => m.search !== null && m.search.lightest === null).reduce((n, m) => n + m.quantity, 0),
     adoptedFailing: marks.filter((m) => m.adopted !== null && !m.adopted.passes).map((m) => m.mark),
   };
 }

@@ -64,8 +64,16 @@ export const TenderOptionsJson = z
       .int()
       .min(1)
       .max(1_000_000)
-      .default(20_000)
-      .meta({ description: 'largest marks × candidates the rationalisation takes on (each pair is one full check); above it the rationalisation is skipped with a reason' }),
+      .default(150_000)
+      .meta({ description: 'largest marks × candidates the rationalisation takes on (each pair is one check of the section for the mark, ~0.1–0.3 ms); above it the rationalisation is skipped with a reason. The default covers 500 marks × 300 candidates' }),
+    plates: z
+      .strictObject({
+        thicknesses: z.number().int().min(1).max(50).optional().meta({ description: 'at most this many distinct plate thicknesses (web and flanges) over the schedule, -' }),
+        widths: z.number().int().min(1).max(50).optional().meta({ description: 'at most this many distinct flange widths over the schedule, -' }),
+      })
+      .optional()
+      .meta({ description: 'plate rationalisation: each mark its own section, with at most T thicknesses and W flange widths over the schedule (MILP)' }),
+    timeLimit: z.number().min(0.1).max(3600).default(60).meta({ description: 'seconds for the whole rationalisation (every K and the plates); when it ends, each answer is the best found with its optimality gap, s' }),
   })
   .meta({ id: 'ScheduleTenderOptions' });
 export type TenderOptionsJson = z.output<typeof TenderOptionsJson>;
@@ -155,6 +163,7 @@ export const ScheduleResultJson = z
       girders: z.number().meta({ description: 'Σ quantity, -' }),
       tonnage: z.number().meta({ description: 'Σ quantity × lightest mass, t' }),
       marksWithoutFeasible: z.array(z.string()),
+      girdersWithoutFeasible: z.number().meta({ description: 'Σ quantity of the marks without a feasible section: not in tonnage, -' }),
       adoptedFailing: z.array(z.string()),
     }),
   })
@@ -201,13 +210,37 @@ export const ScheduleRunResultJson = ScheduleResultJson.extend({
   tender: z
     .object({
       basis: z.array(z.object({ mark: z.string(), section: z.enum(['adopted', 'lightest']) })),
-      leftOut: z.array(z.object({ mark: z.string(), reason: z.string() })),
+      leftOut: z.array(z.object({ mark: z.string(), quantity: z.number(), reason: z.string() })).meta({ description: 'marks not in the tonnage, with their quantity and why' }),
       reconciliation: z
         .unknown()
         .meta({ description: 'byMark (section counted, kg per girder against the lightest, saving), used = lightest + saving, kg; null without tonnage' }),
       currency: z.string().nullable().meta({ description: 'currency of the costs, as given in tender.currency' }),
-      tonnage: z.unknown().meta({ description: 'total, byGrade, byThickness, byMark (quantity included), plates, cost; masses kg, lengths mm; null when no mark has a section' }),
-      rationalisation: z.unknown().meta({ description: 'objective, unrationalised, byK (K, total, penalty kg or cost, sections, assignment), or { skipped }; null when not asked' }),
+      tonnage: z.unknown().meta({ description: 'total, byGrade, byThickness, byMark (quantity included), plates, cost; masses kg, lengths mm; null when no mark has a section. Covers only the marks in basis: see coverage and leftOut' }),
+      coverage: z
+        .object({
+          marks: z.number(),
+          girders: z.number(),
+          tonnage: z.number().meta({ description: 'kg' }),
+          excludedMarks: z.number(),
+          excludedGirders: z.number(),
+          estimated: z.number().meta({ description: 'Σ of the flagged estimate lines, kg' }),
+          totalWithEstimates: z.number().meta({ description: 'tonnage + estimated, kg' }),
+          short: z.array(z.string()).meta({ description: 'marks left out with no estimate: the totals are short by them' }),
+        })
+        .meta({ description: 'what the tonnage covers and leaves out' }),
+      estimates: z
+        .array(
+          z.object({
+            mark: z.string(),
+            quantity: z.number(),
+            massPerGirder: z.number().nullable().meta({ description: 'kg of one girder of the nearest miss; null: none returned' }),
+            mass: z.number().nullable().meta({ description: 'quantity × massPerGirder, kg' }),
+            failing: z.array(z.string()),
+            flag: z.string(),
+          }),
+        )
+        .meta({ description: 'flagged estimate lines (nearest miss × quantity) of the marks without a section: not designs' }),
+      rationalisation: z.unknown().meta({ description: 'objective, unrationalised, leftOut (marks out of the model), byK (K, total, penalty kg or cost, status, bound, gap, sections, assignment), plates (at most T thicknesses and W flange widths), model size, timeLimit and seconds; or { skipped }; null when not asked' }),
     })
     .meta({ description: 'tonnage, plate list, cost and rationalisation' }),
 }).meta({ id: 'ScheduleRunResult' });

@@ -18,9 +18,16 @@ test('a bad mark fails alone with its field issues; progress counts every mark; 
   const s = ScheduleJson.parse({ defaults: PROBLEM, girders: [{ mark: 'A', quantity: 2 }, { mark: 'B', quantity: 1, spans: ['12 m'] }, { mark: 'C', quantity: 3 }] });
   const seen: ScheduleProgress[] = [];
   const r = await runSchedule(s, { search: async () => empty, onProgress: (p) => seen.push(p) });
-  expect(r.marks.map((m) => m.status)).toEqual(['ok', 'failed', 'ok']);
+  // the stub finds no section: A and C fail as marks without a section (their search kept), B on its input
+  expect(r.marks.map((m) => [m.status, m.error?.code])).toEqual([
+    ['failed', 'NO_FEASIBLE_SECTION'],
+    ['failed', 'INVALID_INPUT'],
+    ['failed', 'NO_FEASIBLE_SECTION'],
+  ]);
+  expect(r.marks[0]!.search).not.toBeNull();
+  expect(r.marks[0]!.error!.message).toBe('mark A: no section in its space passes every check; the search returned no nearest miss (every candidate was ruled out by a bound before any was judged)');
   expect(r.marks[1]!.error?.issues?.map((i) => i.path)).toContain('spans[0]');
-  expect(r.totals).toMatchObject({ marks: 3, marksFailed: 1, girders: 6, tonnage: 0, marksWithoutFeasible: ['A', 'C'] });
+  expect(r.totals).toMatchObject({ marks: 3, marksFailed: 3, girders: 6, tonnage: 0, marksWithoutFeasible: ['A', 'C'], girdersWithoutFeasible: 5 });
   expect(seen.map((p) => p.marksDone)).toEqual([0, 1, 2, 3]);
   expect(seen.at(-1)!.currentMark).toBeNull();
   const ac = new AbortController();

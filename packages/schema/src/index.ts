@@ -16,6 +16,7 @@ export {
   toAnalysis,
   selfWeight,
   toCheckProblem,
+  checkProblemsFor,
   runCheckJob,
   toSpace,
   toCost,

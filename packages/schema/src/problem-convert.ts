@@ -92,14 +92,34 @@ function restraintStations(o: CheckOptions): number[] {
 
 /** A section checked for a problem, its own self-weight added as a permanent action. */
 export function toCheckProblem(j: CheckProblemInput): CheckJob {
-  const section = toSection(j.section);
-  assertStockThickness(section.top.t, 'section.topFlange.thickness');
-  assertStockThickness(section.bot.t, 'section.bottomFlange.thickness');
+  return checkProblemsFor(j)(j.section);
+}
+
+/**
+ * toCheckProblem for many sections on one problem (a schedule judging candidate sections for a
+ * mark): the analysis depends on the section only through its stiffener positions (extra
+ * stations), so it is made once per stiffener spacing and shared; the self-weight and effects are
+ * the section's own. `toCheckProblem(j)` is `checkProblemsFor(j)(j.section)`, so both give the
+ * same job. The problem's `section` field, if any, is not read.
+ */
+export function checkProblemsFor(j: Omit<CheckProblemInput, 'section'>): (s: SectionJson) => CheckJob {
   const supports = supportsOf(j);
   const options = toCheckOptions(j.options, supports);
-  const analysis = toAnalysis(j, [...(section.stiffeners ? exactStiffenerXs(supports, section.stiffeners.a) : []), ...restraintStations(options)]);
-  const g = analysis.kind === 'envelope' ? 0 : selfWeight(section, supports);
-  return { section, effects: designEffects(analysis, g), options, analysis, g };
+  const restraint = restraintStations(options);
+  const analyses = new Map<number, Analysis>();
+  return (s) => {
+    const section = toSection(s);
+    assertStockThickness(section.top.t, 'section.topFlange.thickness');
+    assertStockThickness(section.bot.t, 'section.bottomFlange.thickness');
+    const a = section.stiffeners ? section.stiffeners.a : 0;
+    let analysis = analyses.get(a);
+    if (!analysis) {
+      analysis = toAnalysis(j, [...(section.stiffeners ? exactStiffenerXs(supports, section.stiffeners.a) : []), ...restraint]);
+      analyses.set(a, analysis);
+    }
+    const g = analysis.kind === 'envelope' ? 0 : selfWeight(section, supports);
+    return { section, effects: designEffects(analysis, g), options, analysis, g };
+  };
 }
 
 export function runCheckJob(job: CheckJob): GirderVerdict {

@@ -318,7 +318,7 @@ export class JobManager {
       const marks = girders.map((g, i) => kept.get(i) ?? fresh.get(i));
       const missing = girders.filter((_, i) => marks[i] === undefined).map((g) => g.mark);
       if (missing.length > 0) throw new Error(`the work returned no result for marks ${missing.join(', ')}`);
-      patch = { status: 'done', result: finishSchedule(input, marks as MarkResult[]) };
+      patch = { status: 'done', result: await finishSchedule(input, marks as MarkResult[]) };
     } catch (e) {
       const reason: unknown = ac.signal.aborted ? ac.signal.reason : undefined;
       if (reason === SHUTDOWN) {

@@ -1,6 +1,6 @@
 import { plateListCsv, scheduleReport } from '@platesmith/report';
 import { ProblemDetailsJson, type FieldIssue } from '@platesmith/schema';
-import { parseScheduleCsv, ScheduleJson, ScheduleProgressJson, ScheduleResultJson, ScheduleRunResultJson, type ScheduleRunResult } from '@platesmith/schedule';
+import { parseScheduleCsv, ScheduleJson, ScheduleProgressJson, ScheduleResultJson, ScheduleRunResultJson, TenderOptionsJson, type ScheduleRunResult } from '@platesmith/schedule';
 import type { FastifyRequest } from 'fastify';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { z } from 'zod';
@@ -124,7 +124,7 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
       const q = req.query;
       if (input.name === undefined && q.name !== undefined) input.name = q.name;
       if (q.rationalise !== undefined && input.tender?.rationalise === undefined) {
-        input.tender = { objective: 'mass', maxPairs: 20_000, ...input.tender, rationalise: q.rationalise };
+        input.tender = TenderOptionsJson.parse({ ...input.tender, rationalise: q.rationalise });
       }
       if (q.massTolerance !== undefined && input.compare === undefined) input.compare = { massTolerance: q.massTolerance };
       const job = await jobs.submit(input, req.keyId);

@@ -2,13 +2,17 @@ import { readFileSync } from 'node:fs';
 import { plateListCsv, scheduleReport } from '@platesmith/report';
 import {
   BaselineJson,
+  failureReason,
   finishSchedule,
+  TenderOptionsJson,
   parseScheduleText,
   runSchedule,
   toJUnit,
   toMarkdown,
   type CompareResult,
   type ScheduleJson,
+  type FinishProgress,
+  type RationalisationOutcome,
   type ScheduleRunResult,
 } from '@platesmith/schedule';
 import { CAUTION, formatIssues, parseWith, SCOPE } from '@platesmith/schema';
@@ -27,12 +31,16 @@ export const SCHEDULE_USAGE = `platesmith schedule FILE [options]
   --report out.html      write the HTML report
   --plates plates.csv    write the plate list as CSV (product, grade, thickness, width, length, count, masses)
   --rationalise K        rationalise to at most K distinct sections (MILP, K = 1 … K)
+  --thicknesses T        rationalise plates: at most T plate thicknesses over the schedule (MILP)
+  --widths W             rationalise plates: at most W flange widths over the schedule (MILP)
+  --time-limit S         seconds for the whole rationalisation (default 60): then the best found, with its gap
   --mass-tolerance R     relative change of the lightest mass reported as a change (default 0.01)
   --threads N            search worker threads (default: the cores)
   --json                 print the result JSON instead of the summary
   --quiet                no progress lines on standard error
-exit codes: 0 no regression, 1 a mark regressed against the baseline (without a baseline: an
-adopted section fails or a mark could not be run), 2 bad input`;
+exit codes: 0 no regression, 1 a mark has no section (none in its space passes and none is adopted),
+or regressed against the baseline (without a baseline: an adopted section fails or a mark could
+not be run), 2 bad input`;
 
 export interface ScheduleArgs {
   file: string;
@@ -44,13 +52,16 @@ export interface ScheduleArgs {
   report?: string;
   plates?: string;
   rationalise?: number;
+  thicknesses?: number;
+  widths?: number;
+  timeLimit?: number;
   massTolerance?: number;
   threads?: number;
   json: boolean;
   quiet: boolean;
 }
 
-const VALUED = new Set(['--format', '--baseline', '--out', '--junit', '--markdown', '--report', '--plates', '--rationalise', '--mass-tolerance', '--threads']);
+const VALUED = new Set(['--format', '--baseline', '--out', '--junit', '--markdown', '--report', '--plates', '--rationalise', '--thicknesses', '--widths', '--time-limit', '--mass-tolerance', '--threads']);
 const SWITCHES = new Set(['--json', '--quiet']);
 
 function numberArg(flag: string, v: string, opts: { integer?: boolean; min: number; max: number }): number {
@@ -93,6 +104,12 @@ export function parseScheduleArgs(argv: readonly string[]): ScheduleArgs {
   }
   const k = values.get('--rationalise');
   if (k !== undefined) out.rationalise = numberArg('--rationalise', k, { integer: true, min: 1, max: 50 });
+  const th0 = values.get('--thicknesses');
+  if (th0 !== undefined) out.thicknesses = numberArg('--thicknesses', th0, { integer: true, min: 1, max: 50 });
+  const wd = values.get('--widths');
+  if (wd !== undefined) out.widths = numberArg('--widths', wd, { integer: true, min: 1, max: 50 });
+  const tl = values.get('--time-limit');
+  if (tl !== undefined) out.timeLimit = numberArg('--time-limit', tl, { min: 0.1, max: 3600 });
   const t = values.get('--mass-tolerance');
   if (t !== undefined) out.massTolerance = numberArg('--mass-tolerance', t, { min: 0, max: 1 });
   const th = values.get('--threads');
@@ -129,7 +146,15 @@ export function loadSchedule(a: ScheduleArgs): ScheduleJson {
     if (!b.ok) throw new InputError(`${a.baseline} is not a schedule result or a list of mark records:\n${formatIssues(b.issues)}`);
     s.baseline = b.value;
   }
-  if (a.rationalise !== undefined) s.tender = { objective: 'mass', maxPairs: 20_000, ...s.tender, rationalise: a.rationalise };
+  if (a.rationalise !== undefined || a.thicknesses !== undefined || a.widths !== undefined || a.timeLimit !== undefined) {
+    const plates = { ...s.tender?.plates, ...(a.thicknesses !== undefined ? { thicknesses: a.thicknesses } : {}), ...(a.widths !== undefined ? { widths: a.widths } : {}) };
+    s.tender = TenderOptionsJson.parse({
+      ...s.tender,
+      ...(a.rationalise !== undefined ? { rationalise: a.rationalise } : {}),
+      ...(Object.keys(plates).length > 0 ? { plates } : {}),
+      ...(a.timeLimit !== undefined ? { timeLimit: a.timeLimit } : {}),
+    });
+  }
   if (a.massTolerance !== undefined) s.compare = { massTolerance: a.massTolerance };
   return s;
 }
@@ -143,29 +168,58 @@ export function junitCases(r: ScheduleRunResult): CompareResult[] {
   return r.marks.map((m, i) => {
     const rec = r.records[i]!;
     const reasons: string[] = [];
-    if (m.status === 'failed') reasons.push(`the mark could not be run: ${m.error?.message ?? 'failed'} (${m.error?.code ?? 'FAILED'})`);
+    if (m.status === 'failed') reasons.push(failureReason(m));
     if (m.adopted && !m.adopted.passes) reasons.push(`adopted section fails (governing: ${m.adopted.governing.id}, utilisation ${m.adopted.governing.utilisation ?? 'inf'})`);
     return { mark: m.mark, status: reasons.length > 0 ? 'regressed' : 'pass', reasons, baseline: null, current: rec };
   });
 }
 
-/** A Markdown summary: the comparison (or the per-mark verdicts), then tonnage and rationalisation lines. */
+/** A Markdown summary: the comparison (or the per-mark verdicts), then tonnage, what it leaves out, and rationalisation lines. */
 export function markdownOf(r: ScheduleRunResult): string {
   const lines = [toMarkdown(junitCases(r), { title: `${r.name ?? 'Girder schedule'}: ${r.comparison ? 'regression against the baseline' : 'verdicts (no baseline)'}` })];
-  const tl = tonnageLines(r);
+  const tl = coverageLines(r);
   if (tl.length) lines.push(...tl, '');
   const rat = r.tender.rationalisation;
   if (rat && rat.skipped !== undefined) lines.push(`Rationalisation skipped: ${rat.skipped}.`, '');
   else if (rat) {
-    lines.push('| K | total, t | penalty, t | penalty | sections |', '|---:|---:|---:|---:|---|');
-    for (const k of rat.byK) {
-      if (k.feasible) lines.push(`| ${k.K} | ${(k.total / 1000).toFixed(3)} | ${(k.penalty / 1000).toFixed(3)} | ${(k.penaltyRatio * 100).toFixed(2)} % | ${k.sections.length} |`);
-      else lines.push(`| ${k.K} | – | – | – | ${k.reason.replace(/\|/g, '\\|')} |`);
+    const u = rat.objective === 'mass' ? 't' : 'cost';
+    const v = (x: number) => (rat.objective === 'mass' ? (x / 1000).toFixed(3) : x.toFixed(2));
+    if (rat.leftOut.length > 0) lines.push(`Left out of the rationalisation (no feasible candidate): ${rat.leftOut.map((l) => `${l.mark} ×${l.quantity}`).join(', ')}.`, '');
+    if (rat.byK.length > 0) {
+      lines.push(`| K | total, ${u} | penalty, ${u} | penalty | gap | status | sections |`, '|---:|---:|---:|---:|---:|---|---|');
+      for (const k of rat.byK) {
+        if (k.feasible) lines.push(`| ${k.K} | ${v(k.total)} | ${v(k.penalty)} | ${(k.penaltyRatio * 100).toFixed(2)} % | ${(k.gap * 100).toFixed(2)} % | ${k.status} | ${k.sections.length} |`);
+        else lines.push(`| ${k.K} | – | – | – | – | ${k.status} | ${k.reason.replace(/\|/g, '\\|')} |`);
+      }
+      lines.push('');
     }
-    lines.push('');
+    if (rat.plates) lines.push(platesLine(rat), '');
   }
   lines.push(`> **Caution.** ${r.caution ?? CAUTION}`, '>', `> ${r.scope ?? SCOPE}`, '');
   return lines.join('\n');
+}
+
+const tonnes = (kg: number) => `${(kg / 1000).toFixed(3)} t`;
+
+/** What the tonnage covers, the marks it leaves out (with quantity) and the flagged estimates: never silent. */
+export function coverageLines(r: ScheduleRunResult): string[] {
+  const c = r.tender.coverage;
+  const lines = tonnageLines(r);
+  if (lines.length === 0) lines.push('Tonnage counted: 0 t (no mark has a section).');
+  if (r.tender.leftOut.length > 0) {
+    lines.push(`NOT in the tonnage: ${c.excludedMarks} marks, ${c.excludedGirders} girders: ${r.tender.leftOut.map((l) => `${l.mark} ×${l.quantity}`).join(', ')}.`);
+    for (const e of r.tender.estimates) lines.push(`  ${e.mark} ×${e.quantity}: ${e.mass !== null ? `${tonnes(e.mass)} (${Math.round(e.massPerGirder!)} kg each) — ` : ''}${e.flag}`);
+    lines.push(`Tonnage with the flagged estimates: ${tonnes(c.totalWithEstimates)}${c.short.length > 0 ? `; still short by ${c.short.join(', ')} (no estimate)` : ''}.`);
+  }
+  return lines;
+}
+
+function platesLine(rat: Exclude<RationalisationOutcome, { skipped: string }>): string {
+  const p = rat.plates!;
+  const lim = [p.maxThicknesses !== null ? `${p.maxThicknesses} thicknesses` : null, p.maxWidths !== null ? `${p.maxWidths} flange widths` : null].filter(Boolean).join(', ');
+  if (!p.feasible) return `Plates (at most ${lim}): ${p.reason}.`;
+  const v = rat.objective === 'mass' ? tonnes(p.total) : p.total.toFixed(2);
+  return `Plates (at most ${lim}): ${v}, penalty ${(p.penaltyRatio * 100).toFixed(2)} %, gap ${(p.gap * 100).toFixed(2)} % (${p.status}); thicknesses ${p.thicknesses.join(', ')} mm; flange widths ${p.widths.join(', ')} mm.`;
 }
 
 /** The HTML report of a result (the report package draws it). */
@@ -192,7 +246,7 @@ function summary(r: ScheduleRunResult): string {
   const rows = r.marks.map((m) => [
     m.mark,
     m.quantity,
-    m.status === 'failed' ? `failed (${m.error?.code ?? ''})` : 'ok',
+    m.status === 'failed' ? `FAILED (${m.error?.code ?? ''})` : 'ok',
     m.search?.lightest ? fmt(m.search.lightest.mass, 5) : '–',
     m.search?.lightest?.governing.id ?? '–',
     m.adopted ? (m.adopted.passes ? 'passes' : `FAILS (${m.adopted.governing.id})`) : '–',
@@ -201,7 +255,10 @@ function summary(r: ScheduleRunResult): string {
   const lines = [table(['mark', 'qty', 'run', 'lightest (kg)', 'governing', 'adopted', 'vs baseline'], rows, ['l', 'r', 'l', 'r', 'l', 'l', 'l'])];
   const tt = r.totals;
   lines.push('', `${tt.marks} marks (${tt.marksFailed} failed), ${tt.girders} girders.`);
-  lines.push(...tonnageLines(r));
+  for (const m of r.marks.filter((x) => x.status === 'failed')) lines.push(`  FAILED ${m.mark} ×${m.quantity}: ${failureReason(m)}`);
+  const without = tt.marksWithoutFeasible.length;
+  lines.push(`${tt.tonnage.toFixed(3)} t on the lightest sections of ${tt.marks - without} marks${without > 0 ? `; not counted: ${without} marks without a section (${tt.girdersWithoutFeasible} girders)` : ''}.`);
+  lines.push(...coverageLines(r));
   if (r.comparison) {
     const c = r.comparison.counts;
     lines.push(`Against the baseline: ${c.regressed} regressed, ${c.changed} changed, ${c.new} new, ${c.removed} removed, ${c.pass} unchanged.`);
@@ -210,7 +267,19 @@ function summary(r: ScheduleRunResult): string {
   const rat = r.tender.rationalisation;
   if (rat && rat.skipped !== undefined) lines.push(`Rationalisation skipped: ${rat.skipped}.`);
   else if (rat) {
-    for (const k of rat.byK) lines.push(k.feasible ? `  K = ${k.K}: ${(k.total / 1000).toFixed(3)} t, penalty ${(k.penalty / 1000).toFixed(3)} t (${(k.penaltyRatio * 100).toFixed(2)} %)` : `  K = ${k.K}: ${k.reason}`);
+    lines.push(
+      `Rationalisation (${rat.objective} of the plates and intermediate stiffeners; bearing stiffeners apart): ${rat.model.marks} marks in ${rat.model.groups} groups, ${rat.model.candidatesKept} of ${rat.candidates} candidates kept; checks ${rat.checkSeconds.toFixed(1)} s, solves ${rat.seconds.toFixed(1)} s (limit ${rat.timeLimit} s).`,
+    );
+    if (rat.leftOut.length > 0) lines.push(`  left out (no feasible candidate): ${rat.leftOut.map((l) => `${l.mark} ×${l.quantity}`).join(', ')}`);
+    const v = (x: number) => (rat.objective === 'mass' ? `${(x / 1000).toFixed(3)} t` : x.toFixed(2));
+    for (const k of rat.byK) {
+      lines.push(
+        k.feasible
+          ? `  K = ${k.K}: ${v(k.total)}, penalty ${v(k.penalty)} (${(k.penaltyRatio * 100).toFixed(2)} %), gap ${(k.gap * 100).toFixed(2)} % (${k.status === 'optimal' ? 'optimal' : 'time limit reached'})`
+          : `  K = ${k.K}: ${k.reason}`,
+      );
+    }
+    if (rat.plates) lines.push(`  ${platesLine(rat)}`);
   }
   return lines.join('\n');
 }
@@ -219,6 +288,22 @@ function summary(r: ScheduleRunResult): string {
 export function failsRun(r: ScheduleRunResult): boolean {
   if (r.comparison) return r.comparison.regressed.length > 0;
   return r.marks.some((m) => m.status === 'failed' || (m.adopted !== null && !m.adopted.passes));
+}
+
+let lastChecks = -1;
+/** Progress of the rationalisation on standard error: the checks every tenth, each K as it ends, improvements. */
+function finishProgress(p: FinishProgress, io: Out): void {
+  const s = (p.elapsedMs / 1000).toFixed(1);
+  if (p.stage === 'checks') {
+    const tenth = Math.floor((10 * p.pairsDone) / p.pairs);
+    if (tenth !== lastChecks) io.err(`rationalisation: checked ${p.pairsDone} of ${p.pairs} mark × candidate pairs (${s} s)`);
+    lastChecks = tenth;
+    return;
+  }
+  const what = p.stage === 'sections' ? `K = ${p.K} of ${p.of}` : 'plates';
+  const best = p.incumbent === null ? 'none yet' : `${(p.incumbent / 1000).toFixed(3)} t`;
+  const gap = p.incumbent !== null && p.bound !== null && p.incumbent > 0 ? `, gap ${((Math.max(0, p.incumbent - p.bound) / p.incumbent) * 100).toFixed(2)} %` : '';
+  io.err(`rationalisation ${what}: ${p.done ? 'done' : 'improved'}, best ${best}${gap} (${s} s)`);
 }
 
 /** `schedule`: runs every mark, compares with the baseline, writes the outputs asked for. */
@@ -239,7 +324,7 @@ export async function runScheduleCommand(argv: readonly string[], io: Out): Prom
         else io.err(`[${p.marksDone}/${p.marksTotal}] ${line}`);
       },
     });
-    result = finishSchedule(schedule, run.marks);
+    result = await finishSchedule(schedule, run.marks, { onProgress: (p) => (a.quiet ? undefined : finishProgress(p, io)) });
   } finally {
     await pool.close();
   }
