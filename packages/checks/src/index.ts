@@ -1,5 +1,29 @@
 export type * from './types.js';
-export { checkGirder, judgeGirder, firstFailure, firstFailureAmong, assembleVerdict, inJudgeOrder, CHECK_ORDER, type Judged } from './girder.js';
+export { checkGirder, judgeGirder, firstFailure, firstFailureAmong, assembleVerdict, type Judged } from './girder.js';
+// the check registry and everything derived from it
+export {
+  CHECKS,
+  CHECK_ORDER,
+  JUDGE_ORDER,
+  BENDING_IDS,
+  SHEAR_IDS,
+  BEARING_DEPENDENT,
+  PLATE_IDS,
+  LAYOUT_IDS,
+  PANEL_ONLY,
+  WEB_ONLY,
+  VALUE_UNITS_BY_CHECK,
+  checkSpec,
+  failsWebOnly,
+  inJudgeOrder,
+  judgeRank,
+  type CheckSpec,
+  type CheckInput,
+  type CheckFamily,
+  type ReportedUnit,
+  type BendingCheckId,
+  type ShearCheckId,
+} from './registry.js';
 export { prepare, withBearing } from './context.js';
 export { sizeBearing, lightestFittingBearing, bearingCandidates, type BearingCandidates } from './bearing-sizing.js';
 export { defaultOptions, FACTOR_SETS, E_STEEL, G_STEEL } from './options.js';

@@ -1,6 +1,7 @@
 import { governs, notApplicable, verdict } from '../result.js';
 import { absAt, envelopeAt, pickM, pickV } from '../en1993-1-1/bending.js';
 import type { CheckContext, CheckResult, Effects, Station } from '../types.js';
+import { SHEAR_IDS, type ShearCheckId } from '../registry.js';
 import { bearingStiffenerAt, rigidEndPost } from './end-post.js';
 import { stationInteraction628, stationInteraction71, type StationInteraction } from './interaction.js';
 import { panelShear, stationShear, stationsIn, type PanelShear, type StationShear } from './shear-buckling.js';
@@ -16,21 +17,6 @@ export function shearChecks(ctx: CheckContext, e: Effects): CheckResult[] {
   const t = shearThunks(ctx, e);
   return SHEAR_IDS.map((id) => t[id]());
 }
-
-export const SHEAR_IDS = [
-  'shear',
-  'shear-buckling',
-  'bending-shear',
-  'stiffener-stiffness',
-  'stiffener-strength',
-  'stiffener-torsion',
-  'end-post',
-  'bearing-stiffener',
-] as const;
-export type ShearCheckId = (typeof SHEAR_IDS)[number];
-
-/** Checks of this family that read the bearing stiffeners (the rest do not). */
-export const BEARING_DEPENDENT: ReadonlySet<string> = new Set(['stiffener-torsion', 'end-post', 'bearing-stiffener']);
 
 /** The shear family's checks, each computed on first call; the panel analysis computed once. */
 export function shearThunks(ctx: CheckContext, e: Effects): Record<ShearCheckId, () => CheckResult> {
