@@ -1,24 +1,28 @@
-import type { CheckResult, GirderVerdict } from '@platesmith/checks';
+import { CHECKS, type CheckId, type CheckResult, type GirderVerdict, type ReportedUnit } from '@platesmith/checks';
 import { convertValue, type ValueUnit } from './units.js';
 
-/**
- * Units of the `values` keys as published. Forces kN, moments kNm, lengths mm, areas mm²,
- * moduli mm³, second moments mm⁴, stresses MPa, line forces kN/m (= N/mm), ratios '-'.
- * A key not listed here is published unconverted and a test fails until it is classified.
- */
-export const VALUE_UNITS: Record<string, ValueUnit> = {};
+/** The published unit of each unit the check library reports in (the registry's `values`). */
+const PUBLIC_UNIT: Record<Exclude<ReportedUnit, 'text'>, ValueUnit> = {
+  N: 'kN',
+  Nmm: 'kNm',
+  'N/mm': 'kN/m',
+  mm: 'mm',
+  mm2: 'mm2',
+  mm3: 'mm3',
+  mm4: 'mm4',
+  MPa: 'MPa',
+  '-': '-',
+};
 
-const groups: [ValueUnit, string[]][] = [
-  ['kNm', ['MEd', 'McRd', 'MplRd', 'MelRd', 'MeffRd', 'MfRd', 'Mcr', 'MbRd', 'MyRd', 'MRd', 'MplFlangesRd']],
-  ['kN', ['VEd', 'VplRd', 'VbwRd', 'VbfRd', 'VbRd', 'NEd', 'NbRd', 'FRd', 'F', 'FEd', 'R', 'FbRd', 'Fcr', 'Ncr', 'NcrStiff', 'VEdPanel']],
-  ['kN/m', ['vEd', 'FwRd', 'FwEd', 'fwEd']],
-  ['MPa', ['fy', 'fyw', 'fyf', 'fyTop', 'fyBot', 'fvwd', 'fu', 'fyStiff', 'sigmaEd', 'tauEd']],
-  ['mm', ['x0', 'x1', 'a', 'ly', 'le', 'delta', 'limit', 'throat', 'zEff', 'e', 'eMin', 'ss', 'c', 'zg', 'zj', 'Lcr', 'L', 'hw', 'tw', 'span', 'beff', 'bEff', 'b']],
-  ['mm2', ['Av', 'Aeff', 'Afc', 'Ast', 'AstMin', 'Abearing', 'A', 'Aw', 'Anet']],
-  ['mm3', ['Weff', 'Wel', 'Wpl', 'Wy']],
-  ['mm4', ['Ist', 'IstMin', 'Ieff', 'Iy', 'Iz', 'It', 'Ip']],
-];
-for (const [unit, keys] of groups) for (const k of keys) VALUE_UNITS[k] = unit;
+/**
+ * Units of the numeric `values` keys as published, per check id, derived from the check registry:
+ * forces kN, moments kNm, lengths mm, areas mm², moduli mm³, second moments mm⁴, stresses MPa,
+ * line forces kN/m (= N/mm), ratios '-'. The registry's test fails on a key a check reports that
+ * its entry does not declare.
+ */
+export const VALUE_UNITS: Readonly<Record<CheckId, Readonly<Record<string, ValueUnit>>>> = Object.fromEntries(
+  CHECKS.map((c) => [c.id, Object.fromEntries(Object.entries(c.values as Record<string, ReportedUnit>).flatMap(([k, u]) => (u === 'text' ? [] : [[k, PUBLIC_UNIT[u]]])))]),
+) as Record<CheckId, Record<string, ValueUnit>>;
 
 export interface PublishedCheck {
   id: string;
@@ -46,7 +50,7 @@ export function publishCheck(c: CheckResult): PublishedCheck {
   for (const [k, v] of Object.entries(c.values)) {
     if (typeof v !== 'number') values[k] = v;
     else {
-      const unit = VALUE_UNITS[k] ?? '-';
+      const unit = VALUE_UNITS[c.id]?.[k] ?? '-';
       values[k] = round(convertValue(unit, v));
     }
   }
