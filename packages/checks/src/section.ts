@@ -1,4 +1,4 @@
-import { DomainError, PLATE_THICKNESSES, STEEL_DENSITY, fu, fy } from '@platesmith/catalogue';
+import { DomainError, PLATE_THICKNESSES, STEEL_KG_PER_MM3, fu, fy } from '@platesmith/catalogue';
 import type {
   BearingStiffener,
   CheckOptions,
@@ -314,7 +314,7 @@ export interface MassBreakdown {
  * end post). Density 7850 kg/m³. Welds and snipes are ignored (common practice, no source).
  */
 export function girderMass(s: Section, L: number, supports: readonly number[], bearing: BearingStiffener): MassBreakdown {
-  const k = STEEL_DENSITY * 1e-9; // kg per mm³
+  const k = STEEL_KG_PER_MM3;
   const web = s.hw * s.tw * L * k;
   const topFlange = s.top.b * s.top.t * L * k;
   const bottomFlange = s.bot.b * s.bot.t * L * k;

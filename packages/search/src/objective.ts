@@ -1,4 +1,4 @@
-import { STEEL_DENSITY, type GradeName } from '@platesmith/catalogue';
+import { STEEL_KG_PER_MM3 as KG_PER_MM3, type GradeName } from '@platesmith/catalogue';
 import { panelsOf, type Section } from '@platesmith/checks';
 import type { FlangeOption, WebConfig } from './space.js';
 
@@ -59,8 +59,6 @@ export const DEFAULT_COST: CostModel = {
   thetaP: 2,
   painted: true,
 };
-
-const KG_PER_MM3 = STEEL_DENSITY * 1e-9;
 
 /** Per-web quantities that do not depend on the flanges, computed once per web configuration. */
 export interface WebParts {
