@@ -43,6 +43,7 @@ export {
   girderMass,
   assertSection,
   iyOfPlates,
+  plateStackMel,
   type Rect,
   type MassBreakdown,
   type FlangeSide,
