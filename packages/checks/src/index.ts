@@ -50,6 +50,19 @@ export {
 } from './section.js';
 export { chi, chiValue, ALPHA, type BucklingCurve } from './en1993-1-1/buckling-curves.js';
 export { notApplicable, verdict } from './result.js';
+export {
+  PASS_ALLOWANCE,
+  PASS_LIMIT,
+  MOMENT_ROUND_OFF,
+  negligibleMoment,
+  PANEL_EDGE_MM,
+  SAME_POSITION_MM,
+  NO_HOLE_MM,
+  EMPTY_RECT_MM,
+  SAME_RATIO,
+  VANISHING,
+  BEARING_SIZING_MARGIN,
+} from './tolerances.js';
 
 // search bounds (each with a property test: a section beyond the bound fails the full check)
 export { minWebAreaForShear, webShearCapacityBound } from './en1993-1-5/shear-bounds.js';
