@@ -1,5 +1,5 @@
 import type { Effects, MomentEnvelope } from '@platesmith/checks';
-import { momentEnvelopeOf, negligibleMoment, spanAt } from '@platesmith/checks';
+import { momentEnvelopeOf, negligibleMoment, SAME_POSITION_MM, spanAt } from '@platesmith/checks';
 import { designEffects, designReaction, type Analysis } from '@platesmith/actions';
 
 /**
@@ -402,7 +402,7 @@ export function analysisSagFloorAt(a: Analysis, x: number, gLo: number, gHi: num
   const nK = a.stationX.length;
   let best = 0;
   for (let k = 0; k < nK; k++) {
-    if (Math.abs(a.stationX[k]! - x) > 1e-6) continue;
+    if (Math.abs(a.stationX[k]! - x) > SAME_POSITION_MM) continue;
     for (let c = 0; c < a.combinations.length; c++) {
       const mg = a.gammaG[c]! * a.Mg[k]!;
       for (let t = 0; t < 4; t++) {
