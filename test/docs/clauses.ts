@@ -22,17 +22,20 @@ const INPUTS: Record<string, string> = {
 export function renderClauses(): string {
   const specs: readonly CheckSpec[] = CHECKS;
   const rows: { clause: string; id: string; file: string; fn: string }[] = [];
-  for (const c of specs) for (const clause of [c.clause, ...(c.alsoClauses ?? [])]) rows.push({ clause, id: c.id, file: c.file, fn: c.fn });
+  for (const c of specs) {
+    for (const clause of [c.clause, ...(c.alsoClauses ?? [])]) rows.push({ clause, id: c.id, file: c.file, fn: c.fn });
+    for (const b of c.beneath ?? []) rows.push({ clause: b.clause, id: c.id, file: b.file ?? c.file, fn: b.fn });
+  }
   rows.sort((p, q) => p.clause.localeCompare(q.clause, 'en', { numeric: true }) || p.id.localeCompare(q.id));
   const out: string[] = [
     '<!-- Generated from the check registry (packages/checks/src/registry.ts) by `pnpm docs:clauses`; do not edit. -->',
     '',
     '# Clauses and where they are computed',
     '',
-    'Every clause a check result names, the check, and the function that computes it (under',
-    '`packages/checks/src/`). The pure functions beneath each check sit in the same file or in the',
-    "file of its clause family. Results are a design aid to the Eurocodes' recommended values; they",
-    'must be checked by a competent engineer against the governing code and national annex.',
+    'Every clause a check result names, and the clause-level functions beneath each check: the check',
+    'it belongs to and the function that computes it (under `packages/checks/src/`). Results are a',
+    "design aid to the Eurocodes' recommended values; they must be checked by a competent engineer",
+    'against the governing code and national annex.',
     '',
     '| clause | check | file | function |',
     '|---|---|---|---|',

@@ -43,6 +43,8 @@ export interface CheckSpec {
   /** where the check is computed: file under packages/checks/src and the exported function */
   file: string;
   fn: string;
+  /** the clause-level functions beneath the check (file defaults to the entry's), for the clause index */
+  beneath?: readonly { clause: string; fn: string; file?: string }[];
   /** every key the check may put in `values`, with its unit */
   values: Readonly<Record<string, ReportedUnit>>;
   /**
@@ -63,6 +65,10 @@ export const CHECKS = [
     judge: 130,
     file: 'en1993-1-1/bending-family.ts',
     fn: 'classificationCheck',
+    beneath: [
+      { clause: 'EN 1993-1-1 Table 5.2 (outstand flanges)', fn: 'classifyOutstand', file: 'en1993-1-1/classification.ts' },
+      { clause: 'EN 1993-1-1 Table 5.2 (webs in bending and compression)', fn: 'classifyWebBendingCompression', file: 'en1993-1-1/classification.ts' },
+    ],
     values: {
       sectionClass: '-',
       flangeClass: '-',
@@ -87,6 +93,13 @@ export const CHECKS = [
     judge: 40,
     file: 'en1993-1-1/bending.ts',
     fn: 'bendingCheck',
+    beneath: [
+      { clause: 'EN 1993-1-1 6.2.5', fn: 'bendingForSign' },
+      { clause: 'EN 1993-1-5 4.3, 4.4', fn: 'effectiveSection', file: 'en1993-1-5/effective-section.ts' },
+      { clause: 'EN 1993-1-5 4.4(2) eq. 4.3', fn: 'lambdaP', file: 'en1993-1-5/effective-section.ts' },
+      { clause: 'EN 1993-1-5 Table 4.1', fn: 'kSigmaInternal', file: 'en1993-1-5/effective-section.ts' },
+      { clause: 'EN 1993-1-5 Table 4.2', fn: 'kSigmaOutstand', file: 'en1993-1-5/effective-section.ts' },
+    ],
     values: {
       sectionClass: '-',
       sign: 'text',
@@ -115,6 +128,7 @@ export const CHECKS = [
     judge: 50,
     file: 'en1993-1-5/shear-family.ts',
     fn: 'shearCheck',
+    beneath: [{ clause: 'EN 1993-1-1 6.2.6(2) eq. 6.18', fn: 'vplRd', file: 'en1993-1-5/shear-plastic.ts' }],
     values: { Av: 'mm2', VplRd: 'N', VEd: 'N' },
   },
   {
@@ -126,6 +140,15 @@ export const CHECKS = [
     judge: 60,
     file: 'en1993-1-5/shear-family.ts',
     fn: 'shearBucklingCheck',
+    beneath: [
+      { clause: 'EN 1993-1-5 5.1(2)', fn: 'shearBucklingLimit', file: 'en1993-1-5/shear-buckling.ts' },
+      { clause: 'EN 1993-1-5 5.2(1) eq. 5.1', fn: 'vbRdCap', file: 'en1993-1-5/shear-buckling.ts' },
+      { clause: 'EN 1993-1-5 5.2(1) eq. 5.2', fn: 'vbwRd', file: 'en1993-1-5/shear-buckling.ts' },
+      { clause: 'EN 1993-1-5 5.3(3) eq. 5.6', fn: 'lambdaW', file: 'en1993-1-5/shear-buckling.ts' },
+      { clause: 'EN 1993-1-5 5.3(1), Table 5.1', fn: 'chiW', file: 'en1993-1-5/shear-buckling.ts' },
+      { clause: 'EN 1993-1-5 5.4(1)', fn: 'vbfRd', file: 'en1993-1-5/shear-buckling.ts' },
+      { clause: 'EN 1993-1-5 Annex A.3', fn: 'kTau', file: 'en1993-1-5/shear-buckling.ts' },
+    ],
     values: {
       kTau: '-',
       lambdaW: '-',
@@ -152,6 +175,10 @@ export const CHECKS = [
     judge: 90,
     file: 'en1993-1-5/shear-family.ts',
     fn: 'bendingShearCheck',
+    beneath: [
+      { clause: 'EN 1993-1-5 7.1(1) eq. 7.1', fn: 'interaction71', file: 'en1993-1-5/interaction.ts' },
+      { clause: 'EN 1993-1-1 6.2.8(3)', fn: 'rho628', file: 'en1993-1-5/interaction.ts' },
+    ],
     values: { MfRd: 'Nmm', MplRd: 'Nmm', eta1: '-', eta3: '-', rho: '-', MVRd: 'Nmm' },
   },
   {
@@ -162,6 +189,7 @@ export const CHECKS = [
     judge: 70,
     file: 'en1993-1-5/flange-induced.ts',
     fn: 'flangeInducedCheck',
+    beneath: [{ clause: 'EN 1993-1-5 8(1) eq. 8.1', fn: 'fibLimit' }],
     values: { ratio: '-', limit: '-', k: '-', kBasis: 'text', Afc: 'mm2', fyf: 'MPa', sign: 'text' },
   },
   {
@@ -172,6 +200,10 @@ export const CHECKS = [
     judge: 20,
     file: 'en1993-1-5/patch-loading.ts',
     fn: 'patchLoadingCheck',
+    beneath: [
+      { clause: 'EN 1993-1-5 6.2–6.5', fn: 'patchResistance' },
+      { clause: 'EN 1993-1-5 6.4(1), Figure 6.1', fn: 'kF' },
+    ],
     values: {
       loadType: 'text',
       a: 'mm',
@@ -196,6 +228,7 @@ export const CHECKS = [
     judge: 80,
     file: 'en1993-1-1/bending-family.ts',
     fn: 'patchBendingCheck',
+    beneath: [{ clause: 'EN 1993-1-5 7.2(1) eq. 7.2', fn: 'patchBendingInteraction', file: 'en1993-1-5/patch-loading.ts' }],
     values: { eta1: '-', eta2: '-', interaction: '-', limit: '-', MEd: 'Nmm', MRdElastic: 'Nmm', FRd: 'N', F: 'N' },
   },
   {
@@ -206,6 +239,7 @@ export const CHECKS = [
     judge: 100,
     file: 'en1993-1-5/shear-family.ts',
     fn: 'stiffenerStiffnessCheck',
+    beneath: [{ clause: 'EN 1993-1-5 9.3.3(3) eq. 9.6', fn: 'stiffenerIstMin', file: 'en1993-1-5/stiffeners.ts' }],
     values: { Ist: 'mm4', IstMin: 'mm4', a: 'mm', axis: 'text' },
   },
   {
@@ -216,6 +250,10 @@ export const CHECKS = [
     judge: 110,
     file: 'en1993-1-5/shear-family.ts',
     fn: 'stiffenerStrengthCheck',
+    beneath: [
+      { clause: 'EN 1993-1-5 9.3.3(3) eq. 9.7', fn: 'stiffenerAxialForce', file: 'en1993-1-5/stiffeners.ts' },
+      { clause: 'EN 1993-1-5 9.4(2); EN 1993-1-1 6.3.1', fn: 'strutResistance', file: 'en1993-1-5/stiffeners.ts' },
+    ],
     values: { NEd: 'N', NbRd: 'N', eN: 'mm', chi: '-', lambdaBar: '-', VEd: 'N', lambdaWRemoved: '-', A: 'mm2' },
   },
   {
@@ -227,6 +265,7 @@ export const CHECKS = [
     judge: 140,
     file: 'en1993-1-5/shear-family.ts',
     fn: 'stiffenerTorsionCheck',
+    beneath: [{ clause: 'EN 1993-1-5 9.2.1(8) eq. 9.3', fn: 'flatTorsion', file: 'en1993-1-5/stiffeners.ts' }],
     values: { ItOverIp: '-', limit: '-', stiffener: 'text' },
     // the intermediate flats' condition reads the flat alone; the bearing flats are sized to fit the flanges
     webOnlyWhen: (r) => r.values['stiffener'] === 'intermediate',
@@ -239,6 +278,7 @@ export const CHECKS = [
     judge: 150,
     file: 'en1993-1-5/shear-family.ts',
     fn: 'endPostCheck',
+    beneath: [{ clause: 'EN 1993-1-5 9.3.1(3)–(4)', fn: 'rigidEndPost', file: 'en1993-1-5/end-post.ts' }],
     values: { e: 'mm', eMin: 'mm', Ast: 'mm2', AstMin: 'mm2', scope: 'text' },
   },
   {
@@ -249,6 +289,7 @@ export const CHECKS = [
     judge: 160,
     file: 'en1993-1-5/shear-family.ts',
     fn: 'bearingStiffenerCheck',
+    beneath: [{ clause: 'EN 1993-1-5 9.4', fn: 'bearingStiffenerAt', file: 'en1993-1-5/end-post.ts' }],
     values: { R: 'N', NbRd: 'N', chi: '-', lambdaBar: '-', A: 'mm2', Abearing: 'mm2', FbRd: 'N', support: 'text' },
   },
   {
@@ -292,6 +333,7 @@ export const CHECKS = [
     judge: 10,
     file: 'sls/deflection.ts',
     fn: 'deflectionCheck',
+    beneath: [{ clause: 'EN 1990 A1.4.3', fn: 'deflection' }],
     values: { delta: 'mm', limit: 'mm', name: 'text', ratio: '-', span: 'mm', Iy: 'mm4', Av: 'mm2' },
   },
   {
@@ -302,6 +344,10 @@ export const CHECKS = [
     judge: 120,
     file: 'en1993-1-8/weld.ts',
     fn: 'weldCheck',
+    beneath: [
+      { clause: 'EN 1993-1-8 4.5.3.3(3)', fn: 'fvwd' },
+      { clause: 'EN 1993-1-8 4.5.3.3(2)', fn: 'fwRd' },
+    ],
     values: { throat: 'mm', vEd: 'N/mm', qEd: 'N/mm', FwEd: 'N/mm', fvwd: 'MPa', FwRd: 'N/mm', flange: 'text', aRequired: 'mm' },
   },
 ] as const satisfies readonly CheckSpec[];

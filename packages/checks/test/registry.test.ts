@@ -60,11 +60,14 @@ describe('check registry: the table itself', () => {
     expect([...JUDGE_ORDER].sort()).toEqual([...CHECK_ORDER].sort());
   });
 
-  test('every entry names a function its file exports', async () => {
+  test('every entry names functions their files export (the check and the clause-level pieces beneath it)', async () => {
+    const exportsOf = async (file: string) => (await import(/* @vite-ignore */ new URL(`../src/${file}`, import.meta.url).href)) as Record<string, unknown>;
     for (const c of SPECS) {
-      const url = new URL(`../src/${c.file}`, import.meta.url).href;
-      const mod = (await import(/* @vite-ignore */ url)) as Record<string, unknown>;
-      expect.soft(typeof mod[c.fn], `${c.id}: ${c.file} exports ${c.fn}`).toBe('function');
+      expect.soft(typeof (await exportsOf(c.file))[c.fn], `${c.id}: ${c.file} exports ${c.fn}`).toBe('function');
+      for (const b of c.beneath ?? []) {
+        const file = b.file ?? c.file;
+        expect.soft(typeof (await exportsOf(file))[b.fn], `${c.id}: ${file} exports ${b.fn}`).toBe('function');
+      }
     }
   });
 
