@@ -62,6 +62,7 @@ export {
   SAME_RATIO,
   VANISHING,
   BEARING_SIZING_MARGIN,
+  CLOSED_FORM_MARGIN,
 } from './tolerances.js';
 
 // search bounds (each with a property test: a section beyond the bound fails the full check)

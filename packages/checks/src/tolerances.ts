@@ -42,3 +42,10 @@ export const VANISHING = 1e-6;
 
 /** Relative margin by which a bearing flat's crushing resistance may fall short of the reaction in sizing (round-off of 9.4). */
 export const BEARING_SIZING_MARGIN = 1e-6;
+
+/**
+ * The closed forms on plain numbers the search bounds with (iyOfPlates, plateStackMel) agree with
+ * grossProps to 1e-12 relative (property tests); a bound built on one widens by this relative
+ * margin, so round-off never excludes a candidate the check would pass.
+ */
+export const CLOSED_FORM_MARGIN = 1e-9;
