@@ -16,7 +16,7 @@ export {
   type WeldProcess,
 } from './objective.js';
 export { fixedLoadModel, affineDemandBound, analysisLoadModel, analysisDemandBound, analysisMomentEnvelope, momentEnvelopeFor, type LoadModel, type DemandBound, type AffineDemand } from './load.js';
-export { searchSlice, unitSlot, type OuterBound, type SlicePart } from './best-first.js';
+export { searchSlice, unitSlot, type OuterBound, type SlicePart } from './slice/best-first.js';
 export { prepareSearch, better, type SearchProblem, type Objective, type Evaluated, type CandidateKey, type SliceResult, type PruneStats, type Prepared } from './core.js';
 export { paretoFront } from './pareto.js';
 export { bruteForce } from './brute.js';
