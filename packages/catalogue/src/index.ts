@@ -12,4 +12,4 @@ export {
   maxThickness,
   bandEdges,
 } from './grades.js';
-export { PLATE_THICKNESSES, FLAT_BARS, WELD_THROATS, STEEL_DENSITY, type FlatBar } from './stock.js';
+export { PLATE_THICKNESSES, FLAT_BARS, WELD_THROATS, STEEL_DENSITY, STEEL_KG_PER_MM3, G_ACC, type FlatBar } from './stock.js';

@@ -35,3 +35,13 @@ export const WELD_THROATS: readonly number[] = [3, 4, 5, 6, 7, 8, 10, 12];
 
 /** Steel density, kg/m³ (EN 1991-1-1 Table A.4 gives 77–78.5 kN/m³; 7850 kg/m³ is the usual value). */
 export const STEEL_DENSITY = 7850;
+
+/**
+ * Steel density in kg per mm³: every mass in the project (objective, self-weight, tonnage, the
+ * search's bounds) uses this one constant, so a bound and the exact value it bounds agree to the
+ * bit. (Written as the product: 7850 × 1e-9 is one unit in the last place above the literal 7.85e-6.)
+ */
+export const STEEL_KG_PER_MM3 = STEEL_DENSITY * 1e-9;
+
+/** Standard acceleration of gravity, N per kg (9.80665 m/s², exact by definition: CGPM 1901). */
+export const G_ACC = 9.80665;

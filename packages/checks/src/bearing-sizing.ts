@@ -2,6 +2,7 @@ import { withBearing } from './context.js';
 import { bearingStiffenerCheck, endPostCheck } from './en1993-1-5/shear-family.js';
 import { flatTorsion } from './en1993-1-5/stiffeners.js';
 import type { BearingStiffener, CheckContext, Effects } from './types.js';
+import { BEARING_SIZING_MARGIN } from './tolerances.js';
 
 /**
  * Sizes the bearing stiffeners over the supports when the section does not give them: the
@@ -42,7 +43,7 @@ export function lightestFittingBearing(flats: readonly { b: number; t: number }[
  * The bearing flats sizeBearing can accept for a support reaction, from what reads only the flat
  * and the reaction: of its candidates (options.bearingFlats), those that meet the torsional
  * requirement of 9.2.1(8) (the same computation as sizeBearing's) and do not crush under the
- * largest reaction (9.4: 2·(bs − snipe)·ts·fy/γM0 ≥ R, with a margin of 1e-6 for round-off).
+ * largest reaction (9.4: 2·(bs − snipe)·ts·fy/γM0 ≥ R, with BEARING_SIZING_MARGIN for round-off).
  * Every flat sizeBearing returns for a section that passes every check is among them, so the
  * lightest of them that fits the flanges is a floor on its bearing flats (a bound for the search).
  */
@@ -69,7 +70,7 @@ export function bearingCandidates(flats: readonly { b: number; t: number }[], fy
   return {
     lightestFor(minFlangeWidth, tw, Rmax) {
       const outstand = (minFlangeWidth - tw) / 2;
-      for (const f of list) if (f.b <= outstand && Rmax <= f.FbRd * (1 + 1e-6)) return { b: f.b, t: f.t };
+      for (const f of list) if (f.b <= outstand && Rmax <= f.FbRd * (1 + BEARING_SIZING_MARGIN)) return { b: f.b, t: f.t };
       return null;
     },
   };

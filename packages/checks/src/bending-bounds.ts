@@ -46,8 +46,8 @@ export function minFlangeAreaForBending(p: Parameters<typeof minFlangeForceForBe
 /**
  * The largest effective compression-flange area (mm²) EN 1993-1-5 8(1) eq. 8.1 allows:
  * hw/tw ≤ k (E/fyf) √(Aw/Afc) ⇔ Afc ≤ Aw (k E tw/(fyf hw))², Aw = hw tw; with fyf ≥ fyfMin the
- * bound at fyfMin holds for every flange grade and thickness. k: the largest k the check may use
- * (0.55 with kFib 'auto').
+ * bound at fyfMin holds for every flange grade and thickness. k: the largest k the check may use,
+ * kFibMax(options.kFib) (0.55 with kFib 'auto').
  * Afc is the effective area: it equals the gross area when the compression flange outstand is not
  * Class 4 in the EN 1993-1-5 sense (ρ = 1 for λ̄p ≤ 0.748, i.e. c/t ≤ 0.748·28.4ε√0.43 ≈ 13.9ε),
  * which is when the search may apply the bound to gross flange areas.

@@ -1,28 +1,9 @@
 import { withBearing, prepare } from './context.js';
 import { sizeBearing } from './bearing-sizing.js';
 import { bendingChecks, bendingThunks } from './en1993-1-1/bending-family.js';
-import { BEARING_DEPENDENT, shearChecks, shearThunks } from './en1993-1-5/shear-family.js';
+import { shearChecks, shearThunks } from './en1993-1-5/shear-family.js';
+import { BEARING_DEPENDENT, CHECK_ORDER, JUDGE_ORDER } from './registry.js';
 import type { BearingStiffener, CheckId, CheckOptions, CheckResult, Effects, GirderVerdict, Section } from './types.js';
-
-/** The order in which checks are reported (check ids are a public contract). */
-export const CHECK_ORDER = [
-  'classification',
-  'bending',
-  'shear',
-  'shear-buckling',
-  'bending-shear',
-  'flange-induced-buckling',
-  'patch-loading',
-  'patch-bending',
-  'stiffener-stiffness',
-  'stiffener-strength',
-  'stiffener-torsion',
-  'end-post',
-  'bearing-stiffener',
-  'lateral-torsional-buckling',
-  'deflection',
-  'web-flange-weld',
-] as const;
 
 const RANK = new Map<string, number>(CHECK_ORDER.map((id, i) => [id, i]));
 
@@ -51,30 +32,6 @@ export function assembleVerdict(results: readonly CheckResult[], bearing: Bearin
   }
   return { passes: all.every((c) => c.passes), governing, checks: all, bearing, bearingSized };
 }
-
-/**
- * The order in which judgeGirder tries checks: those that fail most often for candidates near the
- * optimum, and the cheap ones, first (measured on the reference problems); those that read the
- * bearing stiffeners last, since sizing them costs a few checks of its own.
- */
-const JUDGE_ORDER: readonly CheckId[] = [
-  'deflection',
-  'patch-loading',
-  'lateral-torsional-buckling',
-  'bending',
-  'shear',
-  'shear-buckling',
-  'flange-induced-buckling',
-  'patch-bending',
-  'bending-shear',
-  'stiffener-stiffness',
-  'stiffener-strength',
-  'web-flange-weld',
-  'classification',
-  'stiffener-torsion',
-  'end-post',
-  'bearing-stiffener',
-] as const;
 
 /**
  * The first failing check in JUDGE_ORDER, or null when the section passes every check — the same
@@ -135,12 +92,6 @@ export interface Judged {
   results: CheckResult[];
   bearing?: BearingStiffener;
   bearingSized?: boolean;
-}
-
-/** `ids` in the order judgeGirder tries them (for firstFailureAmong). */
-export function inJudgeOrder(ids: Iterable<string>): CheckId[] {
-  const want = new Set(ids);
-  return JUDGE_ORDER.filter((id) => want.has(id));
 }
 
 /** Whether the section passes every check (checkGirder(...).passes, found early). */

@@ -1,5 +1,29 @@
 export type * from './types.js';
-export { checkGirder, judgeGirder, firstFailure, firstFailureAmong, assembleVerdict, inJudgeOrder, CHECK_ORDER, type Judged } from './girder.js';
+export { checkGirder, judgeGirder, firstFailure, firstFailureAmong, assembleVerdict, type Judged } from './girder.js';
+// the check registry and everything derived from it
+export {
+  CHECKS,
+  CHECK_ORDER,
+  JUDGE_ORDER,
+  BENDING_IDS,
+  SHEAR_IDS,
+  BEARING_DEPENDENT,
+  PLATE_IDS,
+  LAYOUT_IDS,
+  PANEL_ONLY,
+  WEB_ONLY,
+  VALUE_UNITS_BY_CHECK,
+  checkSpec,
+  failsWebOnly,
+  inJudgeOrder,
+  judgeRank,
+  type CheckSpec,
+  type CheckInput,
+  type CheckFamily,
+  type ReportedUnit,
+  type BendingCheckId,
+  type ShearCheckId,
+} from './registry.js';
 export { prepare, withBearing } from './context.js';
 export { sizeBearing, lightestFittingBearing, bearingCandidates, type BearingCandidates } from './bearing-sizing.js';
 export { defaultOptions, FACTOR_SETS, E_STEEL, G_STEEL } from './options.js';
@@ -19,12 +43,27 @@ export {
   girderMass,
   assertSection,
   iyOfPlates,
+  plateStackMel,
   type Rect,
   type MassBreakdown,
   type FlangeSide,
 } from './section.js';
 export { chi, chiValue, ALPHA, type BucklingCurve } from './en1993-1-1/buckling-curves.js';
 export { notApplicable, verdict } from './result.js';
+export {
+  PASS_ALLOWANCE,
+  PASS_LIMIT,
+  MOMENT_ROUND_OFF,
+  negligibleMoment,
+  PANEL_EDGE_MM,
+  SAME_POSITION_MM,
+  NO_HOLE_MM,
+  EMPTY_RECT_MM,
+  SAME_RATIO,
+  VANISHING,
+  BEARING_SIZING_MARGIN,
+  CLOSED_FORM_MARGIN,
+} from './tolerances.js';
 
 // search bounds (each with a property test: a section beyond the bound fails the full check)
 export { minWebAreaForShear, webShearCapacityBound } from './en1993-1-5/shear-bounds.js';
@@ -66,7 +105,7 @@ export { classifyOutstand, classifyWebBending, classifyWebBendingCompression, we
 export { bendingForSign, bracket, firstAbove, envelopeAt, wplDoublySymmetric, iyDoublySymmetric, signsOf, type SignBending } from './en1993-1-1/bending.js';
 export { kSigmaInternal, kSigmaOutstand, lambdaP, rhoInternal, rhoOutstand, internalEffectiveWidths, effectiveSection, effectiveMeff } from './en1993-1-5/effective-section.js';
 export { kF, patchResistance, patchBendingInteraction, patchUtilisation, patchEta2s, patchBendingMelNeed, patchBendingFloor, type PatchType, type PatchInput, type PatchResult } from './en1993-1-5/patch-loading.js';
-export { fibLimit, kFibFor } from './en1993-1-5/flange-induced.js';
+export { fibLimit, kFibFor, kFibMax } from './en1993-1-5/flange-induced.js';
 export { mcr, mcrOf, chiLT, chiLTGeneral, momentFactors, c1EndMoments, kcEndMoments, ltbCurveWelded, ltbUtilisation, momentEnvelopeOf, wagnerZj, loadHeightZg, zgOf, c3EndMoments, type MomentEnvelope } from './en1993-1-1/ltb.js';
 export { fvwd, fwRd, shearFlow, pickThroat } from './en1993-1-8/weld.js';
 export { deflection, unitLoadIntegrals, minIyForDeflection, minIyForDeflectionAt, pointIyNeed, iyNeedRange, type IyNeedRange, spanAt } from './sls/deflection.js';

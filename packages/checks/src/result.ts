@@ -1,14 +1,15 @@
 import type { CheckId, CheckResult, CheckValue } from './types.js';
+import { PASS_LIMIT } from './tolerances.js';
 
 /** A check that does not apply, with its reason (never silently left out). */
 export function notApplicable(id: CheckId, clause: string, reason: string, values: Record<string, CheckValue> = {}): CheckResult {
   return { id, clause, applies: false, reason, utilisation: 0, passes: true, at: null, values };
 }
 
-/** An applicable check. passes is utilisation ≤ 1 (with a 1e-9 allowance for round-off). */
+/** An applicable check. passes is utilisation ≤ PASS_LIMIT (1 with an allowance for round-off). */
 export function verdict(id: CheckId, clause: string, utilisation: number, at: number | null, values: Record<string, CheckValue>): CheckResult {
   const u = Number.isFinite(utilisation) ? utilisation : Number.POSITIVE_INFINITY;
-  return { id, clause, applies: true, utilisation: u, passes: u <= 1 + 1e-9, at, values };
+  return { id, clause, applies: true, utilisation: u, passes: u <= PASS_LIMIT, at, values };
 }
 
 /**

@@ -1,4 +1,4 @@
-import { DomainError, PLATE_THICKNESSES, STEEL_DENSITY, fu, fy } from '@platesmith/catalogue';
+import { DomainError, PLATE_THICKNESSES, STEEL_KG_PER_MM3, fu, fy } from '@platesmith/catalogue';
 import type {
   BearingStiffener,
   CheckOptions,
@@ -314,7 +314,7 @@ export interface MassBreakdown {
  * end post). Density 7850 kg/m³. Welds and snipes are ignored (common practice, no source).
  */
 export function girderMass(s: Section, L: number, supports: readonly number[], bearing: BearingStiffener): MassBreakdown {
-  const k = STEEL_DENSITY * 1e-9; // kg per mm³
+  const k = STEEL_KG_PER_MM3;
   const web = s.hw * s.tw * L * k;
   const topFlange = s.top.b * s.top.t * L * k;
   const bottomFlange = s.bot.b * s.bot.t * L * k;
@@ -367,4 +367,25 @@ export function iyOfPlates(hw: number, tw: number, bt: number, tt: number, bb: n
   const A = At + Aw + Ab;
   const z = (At * zt + Aw * zw + Ab * zb) / A;
   return (bt * (tt * tt * tt) + tw * (hw * hw * hw) + bb * (tb * tb * tb)) / 12 + At * (zt - z) ** 2 + Aw * (zw - z) ** 2 + Ab * (zb - z) ** 2;
+}
+
+/**
+ * Mel (N·mm, no partial factor) of the gross section of a web plate and two flanges, each plate at
+ * its own fy: the first yield of any plate's farthest fibre, as grossProps(·).Mel computes it from
+ * the same three rectangles (to round-off; a property test keeps them equal). Closed form on plain
+ * numbers, for the search's bounds (no rectangles or objects built per call).
+ */
+export function plateStackMel(w: { hw: number; tw: number; fyw: number }, T: { b: number; t: number; fy: number }, B: { b: number; t: number; fy: number }): number {
+  const z1 = B.t;
+  const z2 = B.t + w.hw;
+  const h = z2 + T.t;
+  const A0 = B.b * B.t;
+  const A1 = w.tw * w.hw;
+  const A2 = T.b * T.t;
+  const zc = (A0 * (z1 / 2) + A1 * ((z1 + z2) / 2) + A2 * ((z2 + h) / 2)) / (A0 + A1 + A2);
+  const d0 = z1 / 2 - zc;
+  const d1 = (z1 + z2) / 2 - zc;
+  const d2 = (z2 + h) / 2 - zc;
+  const I = (A0 * B.t * B.t) / 12 + A0 * d0 * d0 + (A1 * w.hw * w.hw) / 12 + A1 * d1 * d1 + (A2 * T.t * T.t) / 12 + A2 * d2 * d2;
+  return Math.min((B.fy * I) / Math.max(zc, Math.abs(z1 - zc)), (w.fyw * I) / Math.max(Math.abs(z1 - zc), Math.abs(z2 - zc)), (T.fy * I) / Math.max(Math.abs(z2 - zc), h - zc));
 }

@@ -1,4 +1,5 @@
 import type { FySource, GradeName } from '@platesmith/catalogue';
+import type { CheckId } from './registry.js';
 
 /**
  * Internal types of the check library. Units throughout: N, mm, N/mm² (MPa), N·mm.
@@ -133,23 +134,8 @@ export interface CheckOptions {
   bearingFlats: { b: number; t: number }[];
 }
 
-export type CheckId =
-  | 'classification'
-  | 'bending'
-  | 'shear'
-  | 'shear-buckling'
-  | 'bending-shear'
-  | 'flange-induced-buckling'
-  | 'patch-loading'
-  | 'patch-bending'
-  | 'stiffener-stiffness'
-  | 'stiffener-strength'
-  | 'stiffener-torsion'
-  | 'end-post'
-  | 'bearing-stiffener'
-  | 'lateral-torsional-buckling'
-  | 'deflection'
-  | 'web-flange-weld';
+/** A check's id (trade words, a public contract): the ids of the registry (registry.ts). */
+export type { CheckId };
 
 export type CheckValue = number | string | boolean;
 

@@ -3,6 +3,7 @@ import { expect } from 'vitest';
 import { test, fc } from '@fast-check/vitest';
 import { maxCompressionFlangeAreaFIB, minFlangeForceForBending } from '../src/bending-bounds.js';
 import { bendingChecks } from '../src/en1993-1-1/bending-family.js';
+import { kFibMax } from '../src/en1993-1-5/flange-induced.js';
 import { prepare } from '../src/context.js';
 import { defaultOptions } from '../src/options.js';
 import { flangeOutstand } from '../src/section.js';
@@ -37,10 +38,10 @@ test.prop(
 test.prop(
   [fc.integer({ min: 600, max: 3000 }), fc.integer({ min: 6, max: 20 }), fc.integer({ min: 10, max: 80 }), grade, fc.double({ min: 1e-3, max: 1, noNaN: true }), fc.constantFrom<'auto' | number>('auto', 0.3, 0.4, 0.55)],
   { numRuns: 300 },
-)('beyond maxCompressionFlangeAreaFIB (k = 0.55, fyf,min = fyf): flange-induced buckling fails', (hw, tw, tf, g, over, kOpt) => {
+)('beyond maxCompressionFlangeAreaFIB (k = kFibMax of the option, fyf,min = fyf): flange-induced buckling fails', (hw, tw, tf, g, over, kOpt) => {
   const probe = prepare(mk(hw, tw, 400, tf, 400, tf, g), defaultOptions(10000));
   const fyf = probe.m.fyTop;
-  const Amax = maxCompressionFlangeAreaFIB({ hw, tw, fyfMin: fyf, k: 0.55, E: 210000 });
+  const Amax = maxCompressionFlangeAreaFIB({ hw, tw, fyfMin: fyf, k: kFibMax(kOpt), E: 210000 });
   const bf = Math.ceil((Amax * (1 + over)) / tf);
   fc.pre(bf > tw + 20);
   const ctx = prepare(mk(hw, tw, bf, tf, 300, 20, g), defaultOptions(10000, { kFib: kOpt }));

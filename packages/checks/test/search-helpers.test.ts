@@ -1,7 +1,7 @@
 import { describe, expect } from 'vitest';
 import { fc, test } from '@fast-check/vitest';
 import { fy } from '@platesmith/catalogue';
-import { chi, chiValue, mcr, mcrOf, assembleVerdict, bearingCandidates, bearingCrushing, CHECK_ORDER, flatTorsion, iyNeedRange, minIyForDeflectionAt, checkGirder, defaultOptions, firstFailure, firstFailureAmong, inJudgeOrder, judgeGirder, type Judged, minIyForDeflection, panelsOf, patchBendingFloor, patchBendingMelNeed, patchEta2s, patchUtilisation, prepare, type Effects, type Section } from '../src/index.js';
+import { chi, chiValue, mcr, mcrOf, assembleVerdict, bearingCandidates, bearingCrushing, flatTorsion, iyNeedRange, minIyForDeflectionAt, checkGirder, defaultOptions, firstFailure, firstFailureAmong, judgeGirder, LAYOUT_IDS, PANEL_ONLY, PLATE_IDS, type Judged, minIyForDeflection, panelsOf, patchBendingFloor, patchBendingMelNeed, patchEta2s, patchUtilisation, prepare, type Effects, type Section } from '../src/index.js';
 
 /**
  * Properties of the functions the search relies on (no published values: these are consistency
@@ -75,9 +75,9 @@ describe('functions the search relies on', () => {
     const s = sectionOf(r);
     const e = effectsOf(l.L, l.w, l.P, l.sag);
     const o = defaultOptions(l.L, { restraint: { kind: 'at', at: [0, l.L / 2, l.L] } });
-    // the split the search uses: checks that do not read the stiffeners, then the rest
-    const first = inJudgeOrder(['deflection', 'lateral-torsional-buckling', 'bending', 'shear', 'flange-induced-buckling', 'web-flange-weld', 'classification']);
-    const rest = inJudgeOrder(CHECK_ORDER.filter((id) => !first.includes(id)));
+    // the split the search uses (from the registry): checks that read no layout, then the rest
+    const first = PLATE_IDS;
+    const rest = LAYOUT_IDS;
     const a: Judged = { results: [] };
     const b: Judged = { results: [] };
     const v = checkGirder(s, e, o);
@@ -94,13 +94,13 @@ describe('functions the search relies on', () => {
       const other: Section = { ...base, stiffeners: { ...base.stiffeners!, bs, ts, sides } };
       const e = effectsOf(l.L, l.w, l.P, l.sag);
       const o = defaultOptions(l.L, { restraint: { kind: 'at', at: [0, l.L / 2, l.L] } });
-      const ids = ['shear-buckling', 'bending-shear', 'patch-loading', 'patch-bending'] as const;
+      const ids = [...PANEL_ONLY];
       const va = checkGirder(base, e, o);
       const vb = checkGirder(other, e, o);
       for (const id of ids) expect(vb.checks.find((c) => c.id === id)).toEqual(va.checks.find((c) => c.id === id));
       // the search's second call, with those results given: the same outcome as checkGirder
-      const rest = inJudgeOrder(CHECK_ORDER.filter((id) => !['deflection', 'lateral-torsional-buckling', 'bending', 'shear', 'flange-induced-buckling', 'web-flange-weld', 'classification'].includes(id)));
-      const known = new Map(va.checks.filter((c) => (ids as readonly string[]).includes(c.id) && c.passes).map((c) => [c.id, c] as const));
+      const rest = LAYOUT_IDS;
+      const known = new Map(va.checks.filter((c) => ids.includes(c.id) && c.passes).map((c) => [c.id, c] as const));
       const j: Judged = { results: [] };
       const f = firstFailureAmong(other, e, o, rest, j, known);
       const plain = firstFailureAmong(other, e, o, rest);

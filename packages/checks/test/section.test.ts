@@ -1,6 +1,6 @@
 import { describe, expect, test } from 'vitest';
 import { fc, test as prop } from '@fast-check/vitest';
-import { defaultOptions, girderMass, grossProps, material, panelsOf, plastic, prepare, type Section } from '../src/index.js';
+import { defaultOptions, girderMass, grossProps, iyOfPlates, material, panelsOf, plastic, plateStackMel, prepare, type Section } from '../src/index.js';
 import { expectClose } from '../../../test/helpers/close.js';
 
 function sym(hw: number, tw: number, bf: number, tf: number): Section {
@@ -82,5 +82,30 @@ describe('panels and mass', () => {
     expectClose(m.web, 1400 * 12 * 24000 * 7850e-9, 1e-12, 'web');
     expectClose(m.topFlange, 450 * 30 * 24000 * 7850e-9, 1e-12, 'flange');
     expect(m.perMetre).toBeCloseTo(m.total / 24, 9);
+  });
+});
+
+describe('closed forms on plain numbers the search bounds with (consistency with grossProps)', () => {
+  const plates = [fc.integer({ min: 300, max: 2600 }), fc.constantFrom(6, 10, 15, 25), fc.integer({ min: 120, max: 800 }), fc.constantFrom(8, 12, 25, 50, 60), fc.integer({ min: 120, max: 800 }), fc.constantFrom(8, 12, 25, 50, 60)] as const;
+  const sectionOf = (hw: number, tw: number, bt: number, tt: number, bb: number, tb: number): Section => ({
+    hw,
+    tw,
+    top: { b: bt, t: tt },
+    bot: { b: bb, t: tb },
+    stiffeners: null,
+    endPost: 'rigid',
+    grade: { web: 'S355', top: 'S460', bot: 'S355', stiffener: 'S355' },
+  });
+  prop.prop([...plates], { numRuns: 300 })('plateStackMel equals grossProps(·).Mel, each plate at its own fy (hybrid grades, thickness bands)', (hw, tw, bt, tt, bb, tb) => {
+    const s = sectionOf(hw, tw, bt, tt, bb, tb);
+    const m = material(s, defaultOptions(10000));
+    const g = grossProps(s, m);
+    const M = plateStackMel({ hw, tw, fyw: m.fyw }, { b: bt, t: tt, fy: m.fyTop }, { b: bb, t: tb, fy: m.fyBot });
+    expect(Math.abs(M - g.Mel)).toBeLessThanOrEqual(1e-12 * g.Mel);
+  });
+  prop.prop([...plates], { numRuns: 300 })('iyOfPlates equals grossProps(·).Iy', (hw, tw, bt, tt, bb, tb) => {
+    const s = sectionOf(hw, tw, bt, tt, bb, tb);
+    const g = grossProps(s, material(s, defaultOptions(10000)));
+    expect(Math.abs(iyOfPlates(hw, tw, bt, tt, bb, tb) - g.Iy)).toBeLessThanOrEqual(1e-12 * g.Iy);
   });
 });

@@ -9,7 +9,7 @@ import { fromN, fromNmm } from './units.js';
 /**
  * zod schemas of the published results (the shapes of publishCheck, publishVerdict,
  * publishSearch and publishEffects), so the HTTP service can declare and document its
- * responses from the same definitions. Units as in VALUE_UNITS: kN, kNm, mm, MPa, kg.
+ * responses from the same definitions. Units as in VALUE_UNITS (per check, from the check registry): kN, kNm, mm, MPa, kg.
  */
 export const PublishedCheckJson = z
   .object({

@@ -1,49 +1,49 @@
-import type { CheckResult, GirderVerdict } from '@platesmith/checks';
+import { CHECKS, type CheckId, type CheckResult, type GirderVerdict, type ReportedUnit } from '@platesmith/checks';
 import { convertValue, type ValueUnit } from './units.js';
 
-/**
- * Units of the `values` keys as published. Forces kN, moments kNm, lengths mm, areas mm²,
- * moduli mm³, second moments mm⁴, stresses MPa, line forces kN/m (= N/mm), ratios '-'.
- * A key not listed here is published unconverted and a test fails until it is classified.
- */
-export const VALUE_UNITS: Record<string, ValueUnit> = {};
-
-const groups: [ValueUnit, string[]][] = [
-  ['kNm', ['MEd', 'MEdMax', 'MRdElastic', 'McRd', 'MplRd', 'MelRd', 'MeffRd', 'MfRd', 'Mcr', 'MbRd', 'MyRd', 'MRd', 'MplFlangesRd']],
-  ['kN', ['VEd', 'VplRd', 'VbwRd', 'VbfRd', 'VbRd', 'NEd', 'NbRd', 'FRd', 'F', 'FEd', 'R', 'FbRd', 'Fcr', 'Ncr', 'NcrStiff', 'VEdPanel']],
-  ['kN/m', ['vEd', 'qEd', 'FwRd', 'FwEd', 'fwEd']],
-  ['MPa', ['fy', 'fyw', 'fyf', 'fyTop', 'fyBot', 'fvwd', 'fu', 'fyStiff', 'sigmaEd', 'tauEd']],
-  ['mm', ['x0', 'x1', 'a', 'ly', 'le', 'delta', 'limit', 'throat', 'zEff', 'e', 'eMin', 'ss', 'c', 'zg', 'zj', 'Lcr', 'L', 'hw', 'tw', 'span', 'beff', 'bEff', 'b', 'Lseg', 'Leff', 'eN', 'aRequired', 'weldThroatInC']],
-  ['mm2', ['Av', 'Aeff', 'Afc', 'Ast', 'AstMin', 'Abearing', 'A', 'Aw', 'Anet']],
-  ['mm3', ['Weff', 'Wel', 'Wpl', 'Wy']],
-  ['mm4', ['Ist', 'IstMin', 'Ieff', 'Iy', 'Iz', 'It', 'Ip']],
-  // ratios, factors, slendernesses and classes
-  [
-    '-',
-    [
-      'sectionClass', 'flangeClass', 'webClass', 'cOverTflange', 'cOverTweb', 'alpha', 'psi', 'psiWeb', 'rhoFlange', 'rhoWeb',
-      'kTau', 'lambdaW', 'chiW', 'hwOverTw', 'eta1', 'eta2', 'eta3', 'interaction', 'ratio', 'k', 'kF', 'm1', 'm2', 'lambdaF', 'chiF',
-      'chi', 'lambdaBar', 'lambdaWRemoved', 'ItOverIp', 'C1', 'C2', 'C3', 'lambdaLT', 'lambdaLT0', 'phiLT', 'f', 'chiLT',
-    ],
-  ],
-];
-for (const [unit, keys] of groups) for (const k of keys) VALUE_UNITS[k] = unit;
-
-/** Keys whose unit differs by check (`limit` is a length for deflection, a ratio elsewhere). */
-const BY_CHECK: Record<string, ValueUnit> = {
-  'flange-induced-buckling.limit': '-',
-  'stiffener-torsion.limit': '-',
-  'patch-bending.limit': '-',
-  'shear-buckling.limit': '-',
-  'bending-shear.limit': '-',
+/** The published unit of each unit the check library reports in (the registry's `values`). */
+const PUBLIC_UNIT: Record<Exclude<ReportedUnit, 'text'>, ValueUnit> = {
+  N: 'kN',
+  Nmm: 'kNm',
+  'N/mm': 'kN/m',
+  mm: 'mm',
+  mm2: 'mm2',
+  mm3: 'mm3',
+  mm4: 'mm4',
+  MPa: 'MPa',
+  '-': '-',
 };
+
+/**
+ * Units of the numeric `values` keys as published, per check id, derived from the check registry:
+ * forces kN, moments kNm, lengths mm, areas mm², moduli mm³, second moments mm⁴, stresses MPa,
+ * line forces kN/m (= N/mm), ratios '-' (`limit` is a length for deflection, a ratio elsewhere).
+ * The registry's test fails on a key a check reports that its entry does not declare.
+ */
+export const VALUE_UNITS: Readonly<Record<CheckId, Readonly<Record<string, ValueUnit>>>> = Object.fromEntries(
+  CHECKS.map((c) => [c.id, Object.fromEntries(Object.entries(c.values as Record<string, ReportedUnit>).flatMap(([k, u]) => (u === 'text' ? [] : [[k, PUBLIC_UNIT[u]]])))]),
+) as Record<CheckId, Record<string, ValueUnit>>;
+
+/** A key's unit when every check that reports it agrees (undefined for `limit`, which does not). */
+const KEY_UNIT: ReadonlyMap<string, ValueUnit | null> = (() => {
+  const m = new Map<string, ValueUnit | null>();
+  for (const units of Object.values(VALUE_UNITS) as Record<string, ValueUnit>[]) {
+    for (const [k, u] of Object.entries(units)) m.set(k, m.has(k) && m.get(k) !== u ? null : u);
+  }
+  return m;
+})();
 
 /** Suffixes a check adds to a key for one sign or flange (`McRd_sagging`): the unit is the base key's. */
 const SUFFIX = /_(sagging|hogging|top|bot|bottom)$/;
 
-/** The published unit of a `values` key (its base key's for a suffixed one), or undefined when nobody classified it. */
+/**
+ * The published unit of a `values` key of the check `check` (from the check registry), or, with no
+ * check, the unit every check that reports the key agrees on (a suffixed key: its base key's);
+ * undefined when nobody declared it.
+ */
 export function unitOf(key: string, check?: string): ValueUnit | undefined {
-  return (check === undefined ? undefined : BY_CHECK[`${check}.${key}`]) ?? VALUE_UNITS[key] ?? VALUE_UNITS[key.replace(SUFFIX, '')];
+  if (check !== undefined) return (VALUE_UNITS as Record<string, Record<string, ValueUnit> | undefined>)[check]?.[key];
+  return KEY_UNIT.get(key) ?? KEY_UNIT.get(key.replace(SUFFIX, '')) ?? undefined;
 }
 
 export interface PublishedCheck {

@@ -1,5 +1,5 @@
 import { analyse, analyseEnvelope, type ActionSpec, type Analysis } from '@platesmith/actions';
-import { DomainError, FLAT_BARS, type GradeName } from '@platesmith/catalogue';
+import { DomainError, FLAT_BARS, G_ACC, type GradeName } from '@platesmith/catalogue';
 import { checkGirder, girderMass, type CheckOptions, type Effects, type GirderVerdict, type Section } from '@platesmith/checks';
 import { DEFAULT_COST, defaultSpace, spaceSize, stiffenerStations, type CostModel, type SearchTask, type SpaceSpec } from '@platesmith/search';
 import { designEffects } from '@platesmith/actions';
@@ -9,9 +9,6 @@ import { ProblemFields, problemShape, type ProblemJson } from './problem.js';
 import { SectionJson } from './section.js';
 import { CostJson, SpaceJson, type SpaceJson as SpaceJsonT } from './space.js';
 import { toN, toNmm } from './units.js';
-
-/** Gravity, N per kg. */
-const G_ACC = 9.80665;
 
 export const CheckProblemInput = z
   .strictObject({ ...ProblemFields, section: SectionJson })

@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
 import { psiFor, summarise } from '@platesmith/actions';
+import { STEEL_DENSITY } from '@platesmith/catalogue';
 import { checkGirder, grossProps, material, girderMass, type CheckOptions, type GirderVerdict, type Section } from '@platesmith/checks';
 import { z } from 'zod';
 import { CheckEffectsInput } from './check-input.js';
@@ -356,7 +357,7 @@ export function publishRecord(input: CheckEffectsInput | CheckProblemInput, raw:
     if (input.factors === undefined) assumptions.push('EN 1990 Table A1.2(B) recommended factors γG,sup = 1.35, γG,inf = 1.00, γQ = 1.50, ξ = 0.85');
     if (rawObj.combination === undefined) assumptions.push('combination by EN 1990 eq. 6.10');
     if (input.deflection === undefined) assumptions.push('deflection limits span/250 (total) and span/360 (variable), characteristic combination (common practice)');
-    assumptions.push('self-weight of the web, flanges and intermediate stiffeners added as a permanent action (density 7850 kg/m³)');
+    assumptions.push(`self-weight of the web, flanges and intermediate stiffeners added as a permanent action (density ${STEEL_DENSITY} kg/m³)`);
     if ((input.actions ?? []).some((a) => a.load === 'point' && a.ss === undefined)) assumptions.push('stiff bearing length of point loads ss = 100 mm where not given');
   }
   if ('effects' in input) {

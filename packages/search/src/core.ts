@@ -1,14 +1,13 @@
 import type { FySource } from '@platesmith/catalogue';
 import { lightestFittingBearing, panelsOf, resolveBearing, type CheckOptions, type GirderVerdict, type Section } from '@platesmith/checks';
-import { fy } from '@platesmith/catalogue';
+import { fy, G_ACC, STEEL_KG_PER_MM3 as KG_PER_MM3 } from '@platesmith/catalogue';
 import type { LoadModel } from './load.js';
 import { bearingPairs, buildSection, costOf, flangeMass, type CostModel, type WebParts } from './objective.js';
 
-const KG_PER_MM3 = 7850e-9;
 import { flangeGroups, WebTable, type FlangeGroup, type FlangeOption, type SpaceSpec, type WebConfig } from './space.js';
 
-/** Gravity, N per kg. */
-export const G_ACC = 9.80665;
+/** Gravity, N per kg: the catalogue's, re-exported for the modules that took it from here. */
+export { G_ACC };
 
 export type Objective = 'mass' | 'cost';
 

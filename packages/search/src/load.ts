@@ -1,5 +1,5 @@
 import type { Effects, MomentEnvelope } from '@platesmith/checks';
-import { momentEnvelopeOf, spanAt } from '@platesmith/checks';
+import { momentEnvelopeOf, negligibleMoment, SAME_POSITION_MM, spanAt } from '@platesmith/checks';
 import { designEffects, designReaction, type Analysis } from '@platesmith/actions';
 
 /**
@@ -366,11 +366,11 @@ export function analysisMomentEnvelope(a: Analysis, g: number): MomentEnvelope {
 }
 
 /**
- * The check library ignores moments below max(1 N·mm, 1e-9 × the largest |MEd|) when it decides
+ * The check library ignores moments below negligibleMoment(the largest |MEd|) when it decides
  * which flange is ever in compression; a sign is "always present" only above that, at any g.
  */
 function signed(Msag: number, Mhog: number, V: number, sag: boolean, hog: boolean, mAbsUpper: number): DemandBound {
-  const tiny = Math.max(1, 1e-9 * mAbsUpper);
+  const tiny = negligibleMoment(mAbsUpper);
   return { Msag, Mhog, V, sagAlways: sag && Msag > tiny, hogAlways: hog && Mhog > tiny };
 }
 
@@ -402,7 +402,7 @@ export function analysisSagFloorAt(a: Analysis, x: number, gLo: number, gHi: num
   const nK = a.stationX.length;
   let best = 0;
   for (let k = 0; k < nK; k++) {
-    if (Math.abs(a.stationX[k]! - x) > 1e-6) continue;
+    if (Math.abs(a.stationX[k]! - x) > SAME_POSITION_MM) continue;
     for (let c = 0; c < a.combinations.length; c++) {
       const mg = a.gammaG[c]! * a.Mg[k]!;
       for (let t = 0; t < 4; t++) {

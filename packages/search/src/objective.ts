@@ -1,4 +1,4 @@
-import { STEEL_DENSITY, type GradeName } from '@platesmith/catalogue';
+import { STEEL_KG_PER_MM3 as KG_PER_MM3, type GradeName } from '@platesmith/catalogue';
 import { panelsOf, type Section } from '@platesmith/checks';
 import type { FlangeOption, WebConfig } from './space.js';
 
@@ -45,6 +45,77 @@ export type WeldProcess = 'SAW' | 'GMAW-C' | 'SMAW';
 /** Farkas–Jármai C2 constants for fillet welds, min/mm³ (from memory of the publications above). */
 export const C2: Readonly<Record<WeldProcess, number>> = { SAW: 0.2349e-3, 'GMAW-C': 0.3394e-3, SMAW: 0.7889e-3 };
 
+/** Farkas–Jármai: electrode change, deslagging and chipping, T3 = 0.3·T2. */
+export const T3_OVER_T2 = 0.3;
+/** Farkas–Jármai surface preparation time asp, min/mm². */
+export const SURFACE_PREP_MIN_PER_MM2 = 3e-6;
+/** Farkas–Jármai painting times agc (ground coat) and atc (top coat), min/mm². */
+export const GROUND_COAT_MIN_PER_MM2 = 3e-6;
+export const TOP_COAT_MIN_PER_MM2 = 4.15e-6;
+/** The fewest parts a girder is assembled from (web and two flanges): κ ≥ 3. */
+export const MIN_PARTS = 3;
+
+/** T1 = Θd·√(κ·M): assembly and tacking of κ parts of M kg, min. */
+export function assemblyMinutes(cm: CostModel, kappa: number, kg: number): number {
+  return cm.thetaD * Math.sqrt(kappa * kg);
+}
+
+/** The four fillet welds joining the flanges to the web, throat aw (mm), over L (mm): C2·aw²·4L, min. */
+export function flangeWeldMinutes(cm: CostModel, aw: number, L: number): number {
+  return C2[cm.flangeWeld] * aw * aw * 4 * L;
+}
+
+/** Tsp = Θsp·asp·As: surface preparation of As mm², min (0 unpainted). */
+export function surfacePrepMinutes(cm: CostModel, As: number): number {
+  return cm.painted ? cm.thetaSp * SURFACE_PREP_MIN_PER_MM2 * As : 0;
+}
+
+/** Tp = Θp·(agc + atc)·As: painting of As mm², min (0 unpainted). */
+export function paintingMinutes(cm: CostModel, As: number): number {
+  return cm.painted ? cm.thetaP * (GROUND_COAT_MIN_PER_MM2 + TOP_COAT_MIN_PER_MM2) * As : 0;
+}
+
+/** Surface preparation and painting per mm² (Tsp + Tp = this × As, to round-off), min/mm². */
+export function paintMinutesPerMm2(cm: CostModel): number {
+  return cm.painted ? cm.thetaSp * SURFACE_PREP_MIN_PER_MM2 + cm.thetaP * (GROUND_COAT_MIN_PER_MM2 + TOP_COAT_MIN_PER_MM2) : 0;
+}
+
+/**
+ * The painted surface of the web and flange plates over L (mm), mm²: both faces of the web, each
+ * flange's outer face, its inner face less the web's footprint, and its two edges. The stiffeners'
+ * faces come on top (costOf).
+ */
+export function platesSurface(w: Pick<WebConfig, 'hw' | 'tw'>, T: Pick<FlangeOption, 'b' | 't'>, B: Pick<FlangeOption, 'b' | 't'>, L: number): number {
+  return L * (T.b + (T.b - w.tw) + 2 * T.t + B.b + (B.b - w.tw) + 2 * B.t + 2 * w.hw);
+}
+
+/** The least material rate (per kg) any plate of the given grades can have: every factor at its least. */
+export function materialRateFloor(cm: CostModel, grades: Iterable<GradeName>): number {
+  let g = Infinity;
+  for (const name of grades) g = Math.min(g, cm.gradeFactor[name]);
+  return cm.km * g * Math.min(1, cm.thickFactor);
+}
+
+/**
+ * Summing the same masses in another order than costOf can round the other way: a floor built from
+ * a mass summed elsewhere is lowered by this relative margin so that it is never above the value.
+ */
+export const SUM_ORDER_MARGIN = 1e-12;
+
+/**
+ * A lower bound on the cost (costOf(…).cost) of any candidate of at least `kg` of steel, whose
+ * plates' painted surface is at least `As` (mm², platesSurface) and whose flange welds have a
+ * throat of at least `awMin` (mm), with every plate's rate at least `rate` (materialRateFloor):
+ * costOf's own terms with κ = MIN_PARTS, no stiffener welds and no stiffener faces. Each term of
+ * costOf is non-decreasing in what is dropped, and the terms are summed in costOf's order.
+ */
+export function costFloor(cm: CostModel, rate: number, kg: number, As: number, awMin: number, L: number): number {
+  const m = kg * (1 - SUM_ORDER_MARGIN);
+  const T2 = flangeWeldMinutes(cm, awMin, L);
+  const minutes = assemblyMinutes(cm, MIN_PARTS, m) + T2 + T3_OVER_T2 * T2 + surfacePrepMinutes(cm, As) + paintingMinutes(cm, As);
+  return rate * m + cm.kfOverKm * cm.km * minutes;
+}
+
 export const DEFAULT_COST: CostModel = {
   km: 1.0,
   kfOverKm: 1.0,
@@ -59,8 +130,6 @@ export const DEFAULT_COST: CostModel = {
   thetaP: 2,
   painted: true,
 };
-
-const KG_PER_MM3 = STEEL_DENSITY * 1e-9;
 
 /** Per-web quantities that do not depend on the flanges, computed once per web configuration. */
 export interface WebParts {
@@ -128,18 +197,15 @@ export function costOf(
     flangeMass(bot, L) * rate(bot.grade, bot.t) +
     (parts.stiffMass + bearingKg) * rate(w.grade, tStiff);
   const mass = parts.webMass + parts.stiffMass + bearingKg + flangeMass(top, L) + flangeMass(bot, L);
-  const kappa = 3 + parts.stiffCount + bearingFlats;
-  const T1 = cm.thetaD * Math.sqrt(kappa * mass);
+  const kappa = MIN_PARTS + parts.stiffCount + bearingFlats;
+  const T1 = assemblyMinutes(cm, kappa, mass);
   const flats = parts.stiffCount + bearingFlats;
-  const T2 = C2[cm.flangeWeld] * aw * aw * 4 * L + C2[cm.stiffenerWeld] * cm.stiffenerThroat ** 2 * flats * 2 * w.hw;
-  const T3 = 0.3 * T2;
+  const T2 = flangeWeldMinutes(cm, aw, L) + C2[cm.stiffenerWeld] * cm.stiffenerThroat ** 2 * flats * 2 * w.hw;
+  const T3 = T3_OVER_T2 * T2;
   const stiffB = w.flat?.b ?? 0;
-  const As =
-    L * (top.b + (top.b - w.tw) + 2 * top.t + bot.b + (bot.b - w.tw) + 2 * bot.t + 2 * w.hw) +
-    parts.stiffCount * 2 * stiffB * w.hw +
-    bearingFlats * 2 * bearingBs * w.hw;
-  const Tsp = cm.painted ? cm.thetaSp * 3e-6 * As : 0;
-  const Tp = cm.painted ? cm.thetaP * (3e-6 + 4.15e-6) * As : 0;
+  const As = platesSurface(w, top, bot, L) + parts.stiffCount * 2 * stiffB * w.hw + bearingFlats * 2 * bearingBs * w.hw;
+  const Tsp = surfacePrepMinutes(cm, As);
+  const Tp = paintingMinutes(cm, As);
   const minutes = T1 + T2 + T3 + Tsp + Tp;
   const fabrication = cm.kfOverKm * cm.km * minutes;
   return { cost: material + fabrication, material, fabrication, minutes };

@@ -6,6 +6,7 @@ import { flangeInducedCheck } from '../en1993-1-5/flange-induced.js';
 import { patchBendingInteraction, patchForForce, patchLoadingCheck } from '../en1993-1-5/patch-loading.js';
 import { ltbCheck, pickSag as pickSagAt } from './ltb.js';
 import { deflectionCheck } from '../sls/deflection.js';
+import { BENDING_IDS, type BendingCheckId } from '../registry.js';
 import { weldCheck } from '../en1993-1-8/weld.js';
 
 /** The bending family's checks, each computed on first call; shared intermediates computed once. */
@@ -33,7 +34,7 @@ export function bendingThunks(ctx: CheckContext, e: Effects): Record<BendingChec
     return b;
   };
   return {
-    classification: () => classificationResult(per()),
+    classification: () => classificationCheck(per()),
     bending: () => bendingCheck(ctx, e, per()),
     'flange-induced-buckling': () => flangeInducedCheck(ctx, per()),
     'patch-loading': () => patchLoadingCheck(ctx, e),
@@ -44,17 +45,6 @@ export function bendingThunks(ctx: CheckContext, e: Effects): Record<BendingChec
   };
 }
 
-export const BENDING_IDS = [
-  'classification',
-  'bending',
-  'flange-induced-buckling',
-  'patch-loading',
-  'patch-bending',
-  'lateral-torsional-buckling',
-  'deflection',
-  'web-flange-weld',
-] as const;
-export type BendingCheckId = (typeof BENDING_IDS)[number];
 
 /**
  * The bending family of checks for one section under the design effects: classification,
@@ -70,7 +60,7 @@ export function bendingChecks(ctx: CheckContext, e: Effects): CheckResult[] {
  * 'classification' (EN 1993-1-1 5.5, Table 5.2): never fails — utilisation 0, the class in values.
  * The reported class is the worse over the signs of moment that occur; per-sign values are suffixed.
  */
-function classificationResult(per: ReadonlyMap<FlangeSide, SignBending>): CheckResult {
+export function classificationCheck(per: ReadonlyMap<FlangeSide, SignBending>): CheckResult {
   let gov: SignBending | null = null;
   for (const b of per.values()) if (!gov || b.cls.sectionClass > gov.cls.sectionClass) gov = b;
   const c = gov!.cls;
@@ -100,7 +90,7 @@ function classificationResult(per: ReadonlyMap<FlangeSide, SignBending>): CheckR
  * (envelope of the stations, interpolated) and η1 = |MEd| / (fy Weff/γM0): Mel,Rd for Class 1–3,
  * Meff,Rd for Class 4, for the sign of MEd at x. utilisation = (η2 + 0.8 η1)/1.4.
  */
-function patchBendingCheck(ctx: CheckContext, e: Effects, bendingFor: (side: FlangeSide) => SignBending): CheckResult {
+export function patchBendingCheck(ctx: CheckContext, e: Effects, bendingFor: (side: FlangeSide) => SignBending): CheckResult {
   const clause = 'EN 1993-1-5 7.2';
   if (e.forces.length === 0) return notApplicable('patch-bending', clause, 'no concentrated forces enter through a flange without a stiffener');
   let best: { u: number; at: number; values: Record<string, CheckValue> } | null = null;

@@ -3,6 +3,7 @@ import type { CheckContext, CheckResult, CheckValue, Effects, Station } from '..
 import { governs, verdict } from '../result.js';
 import { effectiveSection, type EffectiveSection } from '../en1993-1-5/effective-section.js';
 import { classifySection, type SectionClassification } from './classification.js';
+import { negligibleMoment } from '../tolerances.js';
 
 /**
  * Bending resistance of the cross-section, EN 1993-1-1:2005 6.2.5 (eqs. 6.12–6.15), with the
@@ -54,10 +55,10 @@ export function bendingForSign(ctx: CheckContext, side: FlangeSide): SignBending
 
 /** Signs of moment that occur among the stations (sagging if none is non-zero). */
 export function signsOf(stations: readonly Station[]): FlangeSide[] {
-  // a moment below 1e-9 of the largest (and below 1 N·mm) is round-off of the analysis, not a sign
   let max = 0;
   for (const st of stations) max = Math.max(max, Math.abs(st.MEd));
-  const tiny = Math.max(1, 1e-9 * max);
+  // a moment within round-off of zero is no sign of bending
+  const tiny = negligibleMoment(max);
   const sides: FlangeSide[] = [];
   if (stations.some((st) => st.MEd > tiny)) sides.push('top');
   if (stations.some((st) => st.MEd < -tiny)) sides.push('bot');

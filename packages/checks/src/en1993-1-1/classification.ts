@@ -1,5 +1,6 @@
 import { epsilon, flangeOutstand, plastic, elastic, rects, type FlangeSide } from '../section.js';
 import type { CheckContext } from '../types.js';
+import { SAME_RATIO } from '../tolerances.js';
 
 /**
  * Cross-section classification, EN 1993-1-1:2005 5.5.2 and Table 5.2 (sheets 1 and 2).
@@ -53,7 +54,7 @@ export function classifyInternalCompression(c: number, t: number, eps: number): 
  * expression gives 82.9ε for Class 2 there, the table prints 83ε.
  */
 export function classifyWebBendingCompression(c: number, t: number, eps: number, alpha: number, psi: number): PartClassification {
-  if (Math.abs(alpha - 0.5) < 1e-12 && Math.abs(psi + 1) < 1e-12) return classifyWebBending(c, t, eps);
+  if (Math.abs(alpha - 0.5) < SAME_RATIO && Math.abs(psi + 1) < SAME_RATIO) return classifyWebBending(c, t, eps);
   const l1 = alpha > 0.5 ? (396 * eps) / (13 * alpha - 1) : (36 * eps) / alpha;
   const limits: [number, number, number] = [l1, webClass2Limit(eps, alpha), webClass3Limit(eps, psi)];
   const cOverT = c / t;

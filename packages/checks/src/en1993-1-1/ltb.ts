@@ -4,6 +4,7 @@ import type { CheckContext, CheckResult, CheckValue, Effects, Station } from '..
 import { notApplicable, verdict } from '../result.js';
 import { bracket, envelopeOf, firstAbove, type SignBending } from './bending.js';
 import { perSide } from '../context.js';
+import { negligibleMoment } from '../tolerances.js';
 
 /**
  * Lateral-torsional buckling of a welded (mono-)symmetric I-beam, EN 1993-1-1:2005 6.3.2.
@@ -339,7 +340,7 @@ function ltbCore(
     if (env.sag[i]! > maxSag) maxSag = env.sag[i]!;
     if (env.hog[i]! < minHog) minHog = env.hog[i]!;
   }
-  tiny = Math.max(1, 1e-9 * Math.max(maxSag, -minHog));
+  tiny = negligibleMoment(Math.max(maxSag, -minHog));
   let best: { u: number; at: number; values: Record<string, CheckValue> | null } | null = null;
   const todo: { side: FlangeSide; x0: number; x1: number; MEd: number }[] = [];
   for (const side of ['top', 'bot'] as const) {

@@ -1,5 +1,6 @@
 import { elastic, firstYieldMoment, flangeEffectiveWidth, flangeOutstand, rects, type FlangeSide, type Rect } from '../section.js';
 import type { Material, Section } from '../types.js';
+import { EMPTY_RECT_MM, NO_HOLE_MM } from '../tolerances.js';
 
 /**
  * Effective cross-section of a Class 4 welded I-section in bending, EN 1993-1-5:2006 (+AC:2009)
@@ -128,7 +129,7 @@ export function effectiveSection(s: Section, m: Material, side: FlangeSide, thro
   let holeZ1 = 0;
   const out: Rect[] = [rs[0]!];
   const w = rs[1]!;
-  if (d1 - d0 > 1e-9) {
+  if (d1 - d0 > NO_HOLE_MM) {
     const za = zCompEdge + dir * d0;
     const zb = zCompEdge + dir * d1;
     holeZ0 = Math.min(za, zb);
@@ -138,7 +139,7 @@ export function effectiveSection(s: Section, m: Material, side: FlangeSide, thro
     out.push(w);
   }
   out.push(rs[2]!);
-  const parts = out.filter((r) => r.z1 - r.z0 > 1e-12);
+  const parts = out.filter((r) => r.z1 - r.z0 > EMPTY_RECT_MM);
   const el = elastic(parts);
   const h = s.hw + s.top.t + s.bot.t;
   const Weff = el.I / Math.max(el.z, h - el.z);
@@ -207,7 +208,7 @@ export function effectiveMeff(s: Section, m: Material, side: FlangeSide, throat:
   const d1 = bc - be2;
   const r = meffRects;
   let n = putRect(0, bBot, 0, tb, m.fyBot);
-  if (d1 - d0 > 1e-9) {
+  if (d1 - d0 > NO_HOLE_MM) {
     const za = zCompEdge + dir * d0;
     const zb = zCompEdge + dir * d1;
     n = putRect(n, s.tw, zw0, Math.min(za, zb), m.fyw);
@@ -237,9 +238,9 @@ export function effectiveMeff(s: Section, m: Material, side: FlangeSide, throat:
   return M;
 }
 
-/** Rectangle n of meffRects when effectiveSection keeps it (z1 − z0 > 1e-12); the count after. */
+/** Rectangle n of meffRects when effectiveSection keeps it (z1 − z0 > EMPTY_RECT_MM); the count after. */
 function putRect(n: number, b: number, lo: number, hi: number, fy: number): number {
-  if (!(hi - lo > 1e-12)) return n;
+  if (!(hi - lo > EMPTY_RECT_MM)) return n;
   meffRects[4 * n] = b;
   meffRects[4 * n + 1] = lo;
   meffRects[4 * n + 2] = hi;

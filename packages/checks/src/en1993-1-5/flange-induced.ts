@@ -18,6 +18,11 @@ export function kFibFor(kOpt: number | 'auto', plasticUsed: boolean): number {
   return plasticUsed ? 0.4 : 0.55;
 }
 
+/** The largest k the check may use with this option, whichever resistance it uses (for a bound). */
+export function kFibMax(kOpt: number | 'auto'): number {
+  return Math.max(kFibFor(kOpt, true), kFibFor(kOpt, false));
+}
+
 /**
  * 'flange-induced-buckling' for each sign of moment that occurs (compression flange `side`).
  * Afc is the gross area for a flange that is not Class 4 and bEff·tf otherwise (EN 1993-1-5 4.4).

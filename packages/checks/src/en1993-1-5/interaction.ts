@@ -4,6 +4,7 @@ import { perSide } from '../context.js';
 import type { CheckContext, Station } from '../types.js';
 import { classificationThroat, momentsAt, type PanelShear } from './shear-buckling.js';
 import { vplRd } from './shear-plastic.js';
+import { SAME_POSITION_MM, VANISHING } from '../tolerances.js';
 
 /**
  * Interaction of bending and shear. Units: N, mm, MPa, N·mm.
@@ -53,7 +54,7 @@ export function stationInteraction71(ctx: CheckContext, ps: PanelShear, st: Stat
   const eta1 = Math.abs(st.MEd) / MplRd;
   const eta3 = Math.abs(st.VEd) / ps.VbwRd;
   // strictly inside hw/2 of a support is exempt; the section at hw/2 itself is checked
-  const nearSupport = o.supports.some((x) => Math.abs(st.x - x) < s.hw / 2 - 1e-6);
+  const nearSupport = o.supports.some((x) => Math.abs(st.x - x) < s.hw / 2 - SAME_POSITION_MM);
   const r = interaction71(eta1, eta3, MfRd, MplRd);
   const required = r.required && !nearSupport;
   return { station: st, clause: 'EN 1993-1-5 7.1', required, utilisation: required ? r.value : 0, MfRd, MplRd, eta1, eta3, rho: 0, MVRd: MplRd };
@@ -79,12 +80,12 @@ export function stationInteraction628(ctx: CheckContext, st: Station): StationIn
     const rs = rectsEffectiveFlanges(s, m, side, throat, true);
     if (classOf(ctx, side) <= 2) {
       // a tiny positive strength keeps the plastic neutral-axis search defined when ρ = 1
-      rs[1] = { ...rs[1]!, fy: Math.max((1 - rho) * m.fyw, 1e-6) };
+      rs[1] = { ...rs[1]!, fy: Math.max((1 - rho) * m.fyw, VANISHING) };
       MVRd = plastic(rs).Mp / o.factors.gammaM0;
     } else {
       // 6.2.8(3) with the class's elastic basis: first yield of the section with the effective
       // compression flange and the web thinned to (1 − ρ) tw (same fy), the usual reading
-      rs[1] = { ...rs[1]!, b: Math.max((1 - rho) * s.tw, 1e-6) };
+      rs[1] = { ...rs[1]!, b: Math.max((1 - rho) * s.tw, VANISHING) };
       const el = elastic(rs);
       MVRd = firstYieldMoment(rs, el.z, el.I) / o.factors.gammaM0;
     }

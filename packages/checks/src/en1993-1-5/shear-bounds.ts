@@ -1,3 +1,4 @@
+import { vbRdCap } from './shear-buckling.js';
 import { vplRd } from './shear-plastic.js';
 
 /**
@@ -6,8 +7,9 @@ import { vplRd } from './shear-plastic.js';
  *
  * 'shear' applies to every section, so VEd ≤ Vpl,Rd always binds: hw·tw ≥ √3 γM0 VEd/(η fyw).
  * 'shear-buckling' binds only where 5.1(2) requires it; pass `bucklingApplies = true` only when the
- * caller knows it does (then γ = max(γM0, γM1)). fyw must be the largest web yield strength the
- * caller's candidates can have (thickness bands make fy fall with thickness).
+ * caller knows it does (then the lesser of Vpl,Rd and the eq. 5.1 cap binds). fyw must be the
+ * largest web yield strength the caller's candidates can have (thickness bands make fy fall with
+ * thickness). Both bounds are written with the checks' own vplRd and vbRdCap.
  * Units: VEd N, fyw MPa, hw and tw mm; areas mm².
  */
 export function minWebAreaForShear(
@@ -18,8 +20,9 @@ export function minWebAreaForShear(
   gammaM1: number,
   bucklingApplies = false,
 ): number {
-  const gamma = bucklingApplies ? Math.max(gammaM0, gammaM1) : gammaM0;
-  return (Math.sqrt(3) * gamma * Math.abs(VEd)) / (eta * fyw);
+  // the resistance of a web of unit area (1 mm × 1 mm), from the checks' own functions
+  const perMm2 = bucklingApplies ? Math.min(vplRd(1, 1, fyw, eta, gammaM0), vbRdCap(eta, fyw, 1, 1, gammaM1)) : vplRd(1, 1, fyw, eta, gammaM0);
+  return Math.abs(VEd) / perMm2;
 }
 
 /**
@@ -36,5 +39,5 @@ export function webShearCapacityBound(
   bucklingApplies = false,
 ): number {
   const vpl = vplRd(hw, tw, fyw, eta, gammaM0);
-  return bucklingApplies ? Math.min(vpl, (eta * fyw * hw * tw) / (Math.sqrt(3) * gammaM1)) : vpl;
+  return bucklingApplies ? Math.min(vpl, vbRdCap(eta, fyw, hw, tw, gammaM1)) : vpl;
 }

@@ -1,6 +1,7 @@
 import { compressionSide, epsilon, flangeAndPlasticMoments } from '../section.js';
 import { perSide } from '../context.js';
 import type { CheckContext, EndPost, Panel, Station } from '../types.js';
+import { PANEL_EDGE_MM } from '../tolerances.js';
 
 /**
  * EN 1993-1-5:2006 (+AC:2009) Section 5 and Annex A.3: shear buckling resistance of webs
@@ -153,7 +154,7 @@ export function panelShear(ctx: CheckContext): PanelShear[] {
  * never left unchecked.
  */
 export function stationsIn(stations: readonly Station[], x0: number, x1: number): Station[] {
-  const inside = stations.filter((st) => st.x >= x0 - 1e-9 && st.x <= x1 + 1e-9);
+  const inside = stations.filter((st) => st.x >= x0 - PANEL_EDGE_MM && st.x <= x1 + PANEL_EDGE_MM);
   if (inside.length > 0 || stations.length === 0) return inside;
   let left = -Infinity;
   let right = Infinity;

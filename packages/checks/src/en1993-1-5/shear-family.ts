@@ -1,11 +1,13 @@
 import { governs, notApplicable, verdict } from '../result.js';
 import { absAt, envelopeAt, pickM, pickV } from '../en1993-1-1/bending.js';
 import type { CheckContext, CheckResult, Effects, Station } from '../types.js';
+import { SHEAR_IDS, type ShearCheckId } from '../registry.js';
 import { bearingStiffenerAt, rigidEndPost } from './end-post.js';
 import { stationInteraction628, stationInteraction71, type StationInteraction } from './interaction.js';
 import { panelShear, stationShear, stationsIn, type PanelShear, type StationShear } from './shear-buckling.js';
 import { shearArea, vplRd } from './shear-plastic.js';
 import { flatTorsion, siteSection, siteStrength, stiffenerIstMin, stiffenerSites } from './stiffeners.js';
+import { PANEL_EDGE_MM } from '../tolerances.js';
 
 /**
  * The EN 1993-1-5 shear family: one result per id, in this order: 'shear', 'shear-buckling',
@@ -16,21 +18,6 @@ export function shearChecks(ctx: CheckContext, e: Effects): CheckResult[] {
   const t = shearThunks(ctx, e);
   return SHEAR_IDS.map((id) => t[id]());
 }
-
-export const SHEAR_IDS = [
-  'shear',
-  'shear-buckling',
-  'bending-shear',
-  'stiffener-stiffness',
-  'stiffener-strength',
-  'stiffener-torsion',
-  'end-post',
-  'bearing-stiffener',
-] as const;
-export type ShearCheckId = (typeof SHEAR_IDS)[number];
-
-/** Checks of this family that read the bearing stiffeners (the rest do not). */
-export const BEARING_DEPENDENT: ReadonlySet<string> = new Set(['stiffener-torsion', 'end-post', 'bearing-stiffener']);
 
 /** The shear family's checks, each computed on first call; the panel analysis computed once. */
 export function shearThunks(ctx: CheckContext, e: Effects): Record<ShearCheckId, () => CheckResult> {
@@ -116,7 +103,7 @@ export function bendingShearCheck(ctx: CheckContext, panels: readonly PanelShear
       extra.push({ x, MEd: envelopeAt(stations, x, pickM).value, VEd: absAt(stations, x, pickV) });
     }
   }
-  // the panels a station lies in (within 1e-9 mm of either edge), or every panel when none: with
+  // the panels a station lies in (within PANEL_EDGE_MM of either edge), or every panel when none: with
   // the panels in x order (as panelsOf gives them) a bisection finds the first, else a scan
   let ordered = true;
   for (let i = 1; i < panels.length; i++) if (panels[i]!.panel.x0 < panels[i - 1]!.panel.x0 || panels[i]!.panel.x1 < panels[i - 1]!.panel.x1) ordered = false;
@@ -125,17 +112,17 @@ export function bendingShearCheck(ctx: CheckContext, panels: readonly PanelShear
     if (c.required && governs(c.utilisation, worst?.utilisation)) worst = c;
   };
   const visit = (st: Station): void => {
-    const inside = (p: PanelShear) => st.x >= p.panel.x0 - 1e-9 && st.x <= p.panel.x1 + 1e-9;
+    const inside = (p: PanelShear) => st.x >= p.panel.x0 - PANEL_EDGE_MM && st.x <= p.panel.x1 + PANEL_EDGE_MM;
     let any = false;
     if (ordered) {
       let lo = 0;
       let hi = panels.length;
       while (lo < hi) {
         const mid = (lo + hi) >> 1;
-        if (st.x <= panels[mid]!.panel.x1 + 1e-9) hi = mid;
+        if (st.x <= panels[mid]!.panel.x1 + PANEL_EDGE_MM) hi = mid;
         else lo = mid + 1;
       }
-      for (let i = lo; i < panels.length && panels[i]!.panel.x0 - 1e-9 <= st.x; i++) {
+      for (let i = lo; i < panels.length && panels[i]!.panel.x0 - PANEL_EDGE_MM <= st.x; i++) {
         if (!inside(panels[i]!)) continue;
         any = true;
         consider(panels[i]!, st);

@@ -1,6 +1,7 @@
 import { chi } from '../en1993-1-1/buckling-curves.js';
 import type { CheckContext, Station } from '../types.js';
 import { kTau, lambdaW, stationsIn } from './shear-buckling.js';
+import { SAME_POSITION_MM } from '../tolerances.js';
 
 /**
  * EN 1993-1-5:2006 Section 9: transverse stiffeners made of flats. Units: mm, mm², mm⁴, MPa, N.
@@ -88,8 +89,8 @@ export interface StiffenerSite {
 export function stiffenerSites(ctx: CheckContext): StiffenerSite[] {
   const sites: StiffenerSite[] = [];
   for (const x of ctx.stiffenerXs) {
-    const left = ctx.panels.find((p) => Math.abs(p.x1 - x) < 1e-6);
-    const right = ctx.panels.find((p) => Math.abs(p.x0 - x) < 1e-6);
+    const left = ctx.panels.find((p) => Math.abs(p.x1 - x) < SAME_POSITION_MM);
+    const right = ctx.panels.find((p) => Math.abs(p.x0 - x) < SAME_POSITION_MM);
     if (left && right) sites.push({ x, a1: left.a, a2: right.a });
   }
   return sites;

@@ -1,4 +1,4 @@
-import { DomainError, STEEL_DENSITY, type GradeName } from '@platesmith/catalogue';
+import { DomainError, STEEL_KG_PER_MM3, type GradeName } from '@platesmith/catalogue';
 import type { PublishedSearch, SectionJson } from '@platesmith/schema';
 import { highsRuntime, solveSelection, type SelectionModel, type SelectionOutcome } from './milp.js';
 import type { Rates } from './tonnage.js';
@@ -132,7 +132,7 @@ export interface Rationalisation {
  * left out (a few flats per girder whatever the section). Used for "mass per metre × length".
  */
 export function sectionMassPerMetre(s: SectionJson): number {
-  const k = STEEL_DENSITY * 1e-9 * 1000; // kg per mm² per metre
+  const k = STEEL_KG_PER_MM3 * 1000; // kg per mm² per metre
   let area = s.web.depth * s.web.thickness + s.topFlange.width * s.topFlange.thickness + s.bottomFlange.width * s.bottomFlange.thickness;
   if (s.stiffeners) area += (s.stiffeners.sides * s.stiffeners.width * s.stiffeners.thickness * s.web.depth) / s.stiffeners.spacing;
   return area * k;

@@ -1,4 +1,4 @@
-import { DomainError, STEEL_DENSITY, type GradeName } from '@platesmith/catalogue';
+import { DomainError, STEEL_KG_PER_MM3, type GradeName } from '@platesmith/catalogue';
 import { material, resolveBearing } from '@platesmith/checks';
 import { toSection, type SectionJson } from '@platesmith/schema';
 
@@ -81,11 +81,9 @@ export interface Tonnage {
 /** Material rates: cost per kg of each grade (any currency; the unit is the caller's). */
 export type Rates = Partial<Record<GradeName, number>>;
 
-const KG_PER_MM3 = STEEL_DENSITY * 1e-9;
-
 /** Mass of a rectangular plate piece t × b × L (mm), kg. Density 7850 kg/m³ (EN 1991-1-1 Table A.4 gives 77.0–78.5 kN/m³ for steel). */
 export function pieceMass(t: number, b: number, L: number): number {
-  return t * b * L * KG_PER_MM3;
+  return t * b * L * STEEL_KG_PER_MM3;
 }
 
 interface Grades {
