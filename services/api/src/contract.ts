@@ -20,6 +20,8 @@ declare module 'fastify' {
   interface FastifySchema {
     /** The service's error codes this operation answers beyond those of every operation (ALWAYS) and of every JSON body (BODY). */
     errors?: readonly ErrorCode[];
+    /** Headers of its success answers, by status: name → what it holds, and whether every such answer has it. */
+    answerHeaders?: Record<number, Record<string, { description: string; required: boolean }>>;
   }
 }
 
@@ -63,6 +65,10 @@ export const routeTransform: typeof jsonSchemaTransform = (input) => {
     s['x-error-codes'] = s.errors;
     delete s.errors;
   }
+  if (s && 'answerHeaders' in s) {
+    s['x-answer-headers'] = s.answerHeaders;
+    delete s.answerHeaders;
+  }
   return out;
 };
 
@@ -84,7 +90,9 @@ export function* operations(doc: Json): Generator<[string, Json, string]> {
 
 function finishOperation(doc: Json, op: Json): void {
   const declared: ErrorCode[] = op['x-error-codes'] ?? [];
+  const answerHeaders: Json = op['x-answer-headers'] ?? {};
   delete op['x-error-codes'];
+  delete op['x-answer-headers'];
   const codes = new Set<ErrorCode>([...declared, ...ALWAYS, ...(op.requestBody ? BODY : []), ...(op.parameters?.length ? PARAMS : [])]);
   const responses: Json = {};
   for (const [status, r] of Object.entries<Json>(op.responses ?? {})) {
@@ -94,6 +102,11 @@ function finishOperation(doc: Json, op: Json): void {
       continue;
     }
     responses[status] = finishSuccess(doc, r, op.summary ?? 'the answer');
+    if (answerHeaders[status]) {
+      responses[status].headers = Object.fromEntries(
+        Object.entries<Json>(answerHeaders[status]).map(([name, h]) => [name, { description: h.description, required: h.required, schema: name === 'Retry-After' ? { type: 'integer', minimum: 0 } : { type: 'string' } }]),
+      );
+    }
   }
   const byStatus = new Map<number, ErrorCode[]>();
   for (const c of Object.keys(ERROR_CODES) as ErrorCode[]) if (codes.has(c)) byStatus.set(ERROR_CODES[c].status, [...(byStatus.get(ERROR_CODES[c].status) ?? []), c]);

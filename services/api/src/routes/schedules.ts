@@ -117,6 +117,12 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
         }),
         response: { 202: JobStatusJson, 400: ProblemDetailsJson, 413: ProblemDetailsJson, 415: ProblemDetailsJson, 422: ProblemDetailsJson, 503: ProblemDetailsJson },
         errors: ['JOBS_SATURATED'],
+        answerHeaders: {
+          202: {
+            Location: { description: 'the job (getSchedule)', required: true },
+            'Retry-After': { description: 'seconds before the first poll of Location', required: true },
+          },
+        },
       },
     },
     async (req, reply) => {
@@ -152,7 +158,17 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
 
   app.get(
     '/v1/schedules/:id',
-    { schema: { operationId: 'getSchedule', tags: ['schedules'], summary: 'Status and progress of a schedule job', params: Params, response: { 200: JobStatusJson, 404: ProblemDetailsJson }, errors: ['JOB_NOT_FOUND'] } },
+    {
+      schema: {
+        operationId: 'getSchedule',
+        tags: ['schedules'],
+        summary: 'Status and progress of a schedule job',
+        params: Params,
+        response: { 200: JobStatusJson, 404: ProblemDetailsJson },
+        errors: ['JOB_NOT_FOUND'],
+        answerHeaders: { 200: { 'Retry-After': { description: 'seconds before the next poll, while the job is queued or running', required: false } } },
+      },
+    },
     async (req, reply) => {
       const j = await load(req.params.id);
       if (!TERMINAL.has(j.status)) void reply.header('retry-after', '1');
