@@ -24,14 +24,10 @@ export function demoGirderRequest(demo: Demo, mark: string): Json {
   return { ...demo.defaults, ...fields, options: { ...demo.defaults.options, ...(fields.options ?? {}) } };
 }
 
-/** The problem part of a search request (what POST /v1/effects takes). */
-export function problemOf(search: Json): Json {
-  const { space: _s, objective: _o, cost: _c, ...problem } = search;
-  return problem;
-}
-
 export const FILES = {
   checkDemo: 'examples/check-demo.json',
+  problemDemo: 'examples/problem-demo.json',
+  searchDemo: 'examples/search-demo.json',
   demoProject: 'demo/kestrel-quay.json',
   schedule: 'demo/schedule-harbour-sheds.json',
 } as const;
@@ -62,7 +58,8 @@ export async function recordExamples(root: string): Promise<Record<string, Opera
   const demo = readJson(root, FILES.demoProject) as Demo;
   const schedule = readJson(root, FILES.schedule);
   const search = demoGirderRequest(demo, DEMO_MARK);
-  const problem = problemOf(search);
+  const problem = readJson(root, FILES.problemDemo);
+  const searchDemo = readJson(root, FILES.searchDemo);
   const girder = demo.girders.find((g) => g.mark === DEMO_MARK)!;
   const demoNote = `girder ${DEMO_MARK} of the invented demo project (${FILES.demoProject}): ${girder.description}`;
   const out: Record<string, OperationExamples> = {};
@@ -93,13 +90,13 @@ export async function recordExamples(root: string): Promise<Record<string, Opera
     // analyseEffects
     const effects = await call(app, 'POST', '/v1/effects', problem);
     expectStatus(effects, 200, 'effects');
-    const effectsBad = await call(app, 'POST', '/v1/effects', { ...problem, spans: [20] });
-    expectStatus(effectsBad, 422, 'effects with a span in m');
+    const effectsBad = await call(app, 'POST', '/v1/effects', { ...problem, spans: [20, 25] });
+    expectStatus(effectsBad, 422, 'effects with spans in m');
     out.analyseEffects = {
-      request: { 'application/json': { demoGirder: { summary: demoNote, value: problem } } },
+      request: { 'application/json': { problemDemo: { summary: `the bundled example (${FILES.problemDemo}): a two-span floor girder`, value: problem } } },
       responses: {
-        '200': { demoGirder: { summary: `the analysis of ${DEMO_MARK}`, value: effects.body } },
-        '422': { spanInMetres: { summary: `${DEMO_MARK} with "spans": [20] (lengths are in mm)`, value: effectsBad.body } },
+        '200': { problemDemo: { summary: 'the analysis of the bundled example', value: effects.body } },
+        '422': { spanInMetres: { summary: 'the bundled example with "spans": [20, 25] (lengths are in mm)', value: effectsBad.body } },
       },
     };
 
@@ -110,7 +107,12 @@ export async function recordExamples(root: string): Promise<Record<string, Opera
     const searchBusy = await call(full, 'POST', '/v1/searches', search);
     expectStatus(searchBusy, 503, 'search on a saturated pool');
     out.searchGirders = {
-      request: { 'application/json': { demoGirder: { summary: demoNote, value: search } } },
+      request: {
+        'application/json': {
+          demoGirder: { summary: demoNote, value: search },
+          searchDemo: { summary: `the bundled example (${FILES.searchDemo}): a 12 m floor girder over the default plate stock`, value: searchDemo },
+        },
+      },
       responses: {
         '200': {
           demoGirder: {
@@ -140,6 +142,15 @@ export async function recordExamples(root: string): Promise<Record<string, Opera
     const report = await call(app, 'GET', `/v1/schedules/${id}/report`);
     const events = await call(app, 'GET', `/v1/schedules/${id}/events`, undefined, { accept: 'text/event-stream' });
     const missing = await call(app, 'GET', '/v1/schedules/no-such-job');
+    const plates = await call(app, 'GET', `/v1/schedules/${id}/plates.csv`);
+    expectStatus(plates, 200, 'plate list');
+    const firstMark = String(schedule.girders[0].mark);
+    const markRecord = await call(app, 'GET', `/v1/schedules/${id}/marks/${encodeURIComponent(firstMark)}/record`);
+    expectStatus(markRecord, 200, 'record of a mark');
+    const noMark = await call(app, 'GET', `/v1/schedules/${id}/marks/NO-SUCH-MARK/record`);
+    expectStatus(noMark, 404, 'record of an unknown mark');
+    const record = await call(app, 'POST', '/v1/records', checkDemo);
+    expectStatus(record, 200, 'record');
     const queued = await call(idle, 'POST', '/v1/schedules', schedule);
     const notYet = await call(idle, 'GET', `/v1/schedules/${String(queued.body.id)}/result`);
     expectStatus(notYet, 409, 'result of a queued job');
@@ -191,6 +202,23 @@ export async function recordExamples(root: string): Promise<Record<string, Opera
       responses: {
         '200': { done: { summary: `the report of ${scheduleNote}`, description: `Its first 300 of ${html.length} characters.`, value: html.slice(0, 300) } },
         '404': notFound,
+      },
+    };
+    const recordHtml = String(record.body);
+    const markHtml = String(markRecord.body);
+    out.recordGirder = {
+      request: { 'application/json': { checkDemo: { summary: `the bundled example (${FILES.checkDemo}), without a title block`, value: checkDemo } } },
+      responses: {
+        '200': { checkDemo: { summary: 'the record of the bundled example (text/html)', description: `Its first 300 of ${recordHtml.length} characters.`, value: recordHtml.slice(0, 300) } },
+      },
+    };
+    out.getSchedulePlates = {
+      responses: { '200': { done: { summary: `the plate list of ${scheduleNote}`, value: String(plates.body) } }, '404': notFound },
+    };
+    out.getMarkRecord = {
+      responses: {
+        '200': { done: { summary: `the record of mark ${firstMark} of ${scheduleNote} (text/html)`, description: `Its first 300 of ${markHtml.length} characters.`, value: markHtml.slice(0, 300) } },
+        '404': { noSuchMark: { summary: 'a mark the schedule does not have', value: noMark.body } },
       },
     };
     out.followSchedule = {

@@ -6,6 +6,7 @@
  * here. Behaviour tests; the engineering figures asserted are closed forms named beside them.
  */
 import { afterAll, beforeAll, expect, test } from 'vitest';
+import { CAUTION } from '@platesmith/schema';
 import { checkSection, parseCheckRequest } from '../../services/api/src/index.js';
 import { SqliteJobStore } from '../../services/api/src/jobs/sqlite.js';
 import { start, TINY_SPACE, type Running } from '../../services/api/test/harness.js';
@@ -42,6 +43,13 @@ test('checkSection: the bundled example answers the domain call\'s verdict; a sp
   expect(bad.response.status).toBe(422);
   expect(bad.error?.code).toBe('INVALID_VALUE');
   expect(bad.error?.errors?.[0]?.path).toBe('span');
+});
+
+test('recordGirder: the record of the bundled check example is HTML with the caution', async () => {
+  const r = await api.client.POST('/v1/records', { body: readJson(root, FILES.checkDemo) as any, parseAs: 'text' });
+  expect(r.response.status).toBe(200);
+  expect(r.response.headers.get('content-type')).toMatch(/^text\/html/);
+  expect(r.data).toContain(CAUTION);
 });
 
 test('analyseEffects: 12 m simply supported, 10 + 15 kN/m (category B) under EN 1990 6.10', async () => {
@@ -88,7 +96,7 @@ test('searchGirders: a small space answers its Pareto set; a saturated service a
   }
 });
 
-test('a schedule: submitSchedule, followSchedule to done, getSchedule, listSchedules, getScheduleMarks, getScheduleResult, getScheduleReport, cancelSchedule', async () => {
+test('a schedule: submitSchedule, followSchedule to done, getSchedule, listSchedules, getScheduleMarks, getScheduleResult, getScheduleReport, getSchedulePlates, getMarkRecord, cancelSchedule', async () => {
   const schedule = readJson(root, FILES.schedule) as any;
   const sub = await api.client.POST('/v1/schedules', { body: schedule });
   expect(sub.response.status).toBe(202);
@@ -112,6 +120,15 @@ test('a schedule: submitSchedule, followSchedule to done, getSchedule, listSched
   const report = await api.client.GET('/v1/schedules/{id}/report', { params: { path: { id } }, parseAs: 'text' });
   expect(report.response.headers.get('content-type')).toMatch(/^text\/html/);
   expect(report.data).toMatch(/^<!doctype html>/i);
+  const plates = await api.client.GET('/v1/schedules/{id}/plates.csv', { params: { path: { id } }, parseAs: 'text' });
+  expect(plates.response.headers.get('content-type')).toMatch(/^text\/csv/);
+  expect(String(plates.data).split('\n')[0]).toMatch(/^product,grade,thickness_mm,width_mm,length_mm,count,unit_mass_kg,mass_kg/);
+  const mark = schedule.girders[0].mark as string;
+  const record = await api.client.GET('/v1/schedules/{id}/marks/{mark}/record', { params: { path: { id, mark } }, parseAs: 'text' });
+  expect(record.response.headers.get('content-type')).toMatch(/^text\/html/);
+  expect(record.data).toContain(mark);
+  const noMark = await api.client.GET('/v1/schedules/{id}/marks/{mark}/record', { params: { path: { id, mark: 'NO-SUCH-MARK' } }, parseAs: 'text' });
+  expect(noMark.response.status).toBe(404);
 
   const del = await api.client.DELETE('/v1/schedules/{id}', { params: { path: { id } } });
   expect(del.response.status).toBe(204);
@@ -142,7 +159,24 @@ test('every operation of the document was answered here, each with a success', (
   const ops = [...api.checker.seen].filter(([, statuses]) => [...statuses].some((s) => s.startsWith('2'))).map(([id]) => id);
   // the queued-job and saturated-service calls above ran on servers of their own
   expect(ops.sort()).toEqual(
-    ['getHealth', 'getReadiness', 'checkSection', 'analyseEffects', 'searchGirders', 'submitSchedule', 'followSchedule', 'getSchedule', 'listSchedules', 'getScheduleMarks', 'getScheduleResult', 'getScheduleReport', 'cancelSchedule'].sort(),
+    [
+      'getHealth',
+      'getReadiness',
+      'checkSection',
+      'analyseEffects',
+      'searchGirders',
+      'recordGirder',
+      'submitSchedule',
+      'followSchedule',
+      'getSchedule',
+      'listSchedules',
+      'getScheduleMarks',
+      'getScheduleResult',
+      'getScheduleReport',
+      'getSchedulePlates',
+      'getMarkRecord',
+      'cancelSchedule',
+    ].sort(),
   );
 });
 

@@ -38,6 +38,7 @@ const RETRY_AFTER: Partial<Record<ErrorCode, 'always' | 'sometimes'>> = {
   SHUTTING_DOWN: 'always',
   NOT_READY: 'always',
   JOB_NOT_FINISHED: 'sometimes',
+  PRINT_FAILED: 'always',
 };
 
 const SCHEMAS = '#/components/schemas/';
