@@ -9,5 +9,7 @@ export default defineConfig({
     include: ['packages/*/test/**/*.test.ts', 'services/*/test/**/*.test.ts', 'test/**/*.test.ts'],
     setupFiles: ['./test/setup/no-console.ts'],
     testTimeout: 60_000,
+    // servers start in beforeAll (worker pool, the OpenAPI document the harness checks answers with): 10 s was too short on a loaded 2-core host
+    hookTimeout: 60_000,
   },
 });

@@ -130,6 +130,8 @@ export const ProblemDetailsJson = z
     errors: z
       .array(z.object({ path: z.string(), pointer: z.string().meta({ description: 'JSON pointer into the body, e.g. #/spans/0' }), message: z.string() }))
       .optional(),
+    jobStatus: z.enum(['queued', 'running', 'done', 'failed', 'cancelled']).optional().meta({ description: 'the job\'s status (JOB_NOT_FINISHED)' }),
+    budgetMs: z.number().int().optional().meta({ description: 'the time budget the search ran out of, ms (TIME_BUDGET_EXCEEDED)' }),
   })
   .meta({ id: 'ProblemDetails', description: 'RFC 9457 problem details (application/problem+json)' });
 export type ProblemDetailsJson = z.output<typeof ProblemDetailsJson>;

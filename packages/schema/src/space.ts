@@ -51,7 +51,10 @@ export const CostJson = z
   .strictObject({
     km: z.number().positive().optional().meta({ description: 'material rate for S355 plate, per kg (illustrative default 1.0)' }),
     kfOverKm: z.number().min(0).max(10).optional().meta({ description: 'fabrication-to-material cost ratio kf/km, kg/min (published range 0–2; 0 = mass optimum)' }),
-    gradeFactor: z.record(Grade, z.number().positive()).optional(),
+    gradeFactor: z
+      .partialRecord(Grade, z.number().positive())
+      .optional()
+      .meta({ description: 'material rate of a grade relative to S355, - (grades not given keep the illustrative defaults: S235 0.95, S275 0.97, S355 1.0, S420 1.1, S460 1.15)' }),
     thetaD: z.number().positive().optional().meta({ description: 'assembly difficulty factor Θd (1–4)' }),
     flangeWeld: z.enum(['SAW', 'GMAW-C', 'SMAW']).optional(),
     stiffenerWeld: z.enum(['SAW', 'GMAW-C', 'SMAW']).optional(),

@@ -2,8 +2,14 @@ import { Writable } from 'node:stream';
 import { pino } from 'pino';
 import { buildApp, type ApiOptions } from '../src/index.js';
 import type { FastifyInstance } from 'fastify';
+import { ContractChecker } from '../../../test/client/index.js';
 
-/** A real server on 127.0.0.1, port 0, with its pino lines collected (no console output). */
+/**
+ * A real server on 127.0.0.1, port 0, with its pino lines collected (no console output). Every
+ * answer to post() and get() on a documented path is checked against the OpenAPI document the
+ * server serves (test/client: status, content type, body schema, required headers); a mismatch
+ * throws, so the test fails on a broken contract.
+ */
 export interface Running {
   app: FastifyInstance;
   url: string;
@@ -23,7 +29,8 @@ export async function start(opts: ApiOptions = {}): Promise<Running> {
   });
   const app = await buildApp({ loggerInstance: pino({ level: 'info' }, sink), ...opts });
   const url = await app.listen({ host: '127.0.0.1', port: 0 });
-  const read = async (r: Response) => {
+  const contract = new ContractChecker((await (await fetch(`${url}/openapi.json`)).json()) as Record<string, unknown>);
+  const read = async (method: string, path: string, r: Response) => {
     const text = await r.text();
     let body: unknown = text;
     try {
@@ -31,6 +38,8 @@ export async function start(opts: ApiOptions = {}): Promise<Running> {
     } catch {
       /* not JSON: keep the text */
     }
+    const template = contract.templateOf(method, new URL(path, url).pathname);
+    if (template) contract.check(method, template, r.status, r.headers, text === '' ? undefined : body);
     return { status: r.status, headers: r.headers, body };
   };
   return {
@@ -38,8 +47,8 @@ export async function start(opts: ApiOptions = {}): Promise<Running> {
     url,
     logs,
     post: async (path, body, headers = {}) =>
-      read(await fetch(url + path, { method: 'POST', headers: { 'content-type': 'application/json', ...headers }, body: typeof body === 'string' ? body : JSON.stringify(body) })),
-    get: async (path, headers = {}) => read(await fetch(url + path, { headers })),
+      read('POST', path, await fetch(url + path, { method: 'POST', headers: { 'content-type': 'application/json', ...headers }, body: typeof body === 'string' ? body : JSON.stringify(body) })),
+    get: async (path, headers = {}) => read('GET', path, await fetch(url + path, { headers })),
     close: () => app.close(),
   };
 }

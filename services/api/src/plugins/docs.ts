@@ -2,7 +2,7 @@ import swagger from '@fastify/swagger';
 import swaggerUi from '@fastify/swagger-ui';
 import { CAUTION, SCOPE } from '@platesmith/schema';
 import fp from 'fastify-plugin';
-import { jsonSchemaTransform, jsonSchemaTransformObject } from 'fastify-type-provider-zod';
+import { documentTransform, routeTransform } from '../contract.js';
 import { ERROR_CODES } from '../errors.js';
 
 export const API_VERSION = '0.1.0';
@@ -51,6 +51,9 @@ export const docsPlugin = fp(
       openapi: {
         openapi: '3.1.0',
         info: { title: 'Platesmith API', version: API_VERSION, description: API_DESCRIPTION },
+        // open: no authentication until bearer keys are configured
+        security: [],
+        servers: [{ url: 'http://127.0.0.1:8080', description: 'the service on its default local address (HOST 127.0.0.1, PORT 8080)' }],
         tags: [
           { name: 'checks', description: 'one section checked' },
           { name: 'effects', description: 'analysis of a problem' },
@@ -59,8 +62,8 @@ export const docsPlugin = fp(
           { name: 'service', description: 'health and readiness' },
         ],
       },
-      transform: jsonSchemaTransform,
-      transformObject: (doc) => withBearer(jsonSchemaTransformObject(doc) as OpenApiDoc) as ReturnType<typeof jsonSchemaTransformObject>,
+      transform: routeTransform,
+      transformObject: (doc) => withBearer(documentTransform(doc) as OpenApiDoc) as ReturnType<typeof documentTransform>,
     });
     await app.register(swaggerUi, { routePrefix: '/docs', uiConfig: { docExpansion: 'list', deepLinking: false } });
     app.get('/openapi.json', { schema: { hide: true } }, async () => app.swagger());

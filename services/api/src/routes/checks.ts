@@ -10,11 +10,13 @@ export const checkRoutes: FastifyPluginAsyncZod = async (app) => {
     '/v1/checks',
     {
       schema: {
+        operationId: 'checkSection',
         tags: ['checks'],
         summary: 'Check one section (EN 1993-1-1, -1-5, -1-8) under design effects or for a problem',
         description: 'A body with "effects" is a section under design effects at stations (kNm, kN, mm); any other body is a problem (spans mm, actions kN/m or kN, or an envelope) with the section, whose self-weight is added. A failing check is a 200 answer with passes: false.',
         body: Body,
         response: { 200: PublishedVerdictJson, 400: ProblemDetailsJson, 422: ProblemDetailsJson },
+        errors: ['UNPROCESSABLE'],
       },
     },
     async (req) => checkSection(req.body as CheckRequestT),

@@ -7,16 +7,18 @@ import { ApiError } from '../errors.js';
 export const healthRoutes: FastifyPluginAsyncZod = async (app) => {
   app.get(
     '/health',
-    { schema: { tags: ['service'], summary: 'Liveness: the process answers', response: { 200: z.object({ status: z.literal('ok') }) } } },
+    { schema: { operationId: 'getHealth', tags: ['service'], summary: 'Liveness: the process answers', response: { 200: z.object({ status: z.literal('ok') }) } } },
     async () => ({ status: 'ok' as const }),
   );
   app.get(
     '/ready',
     {
       schema: {
+        operationId: 'getReadiness',
         tags: ['service'],
         summary: 'Readiness: the search worker pool answered a ping and the job store is usable (503 NOT_READY names the cause)',
         response: { 200: z.object({ status: z.literal('ready'), threads: z.number(), activeSearches: z.number() }), 503: ProblemDetailsJson },
+        errors: ['NOT_READY'],
       },
     },
     async () => {

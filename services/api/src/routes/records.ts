@@ -16,6 +16,12 @@ const RecordBody = withParser(
   parseRecordRequest,
 );
 
+/** The record: HTML, or the PDF for Accept: application/pdf. */
+const RECORD_ANSWER = {
+  description: 'the calculation record: one self-contained HTML file, or its PDF (Accept: application/pdf)',
+  content: { 'text/html': { schema: z.string() }, 'application/pdf': { schema: z.string().meta({ description: 'the PDF file (binary)' }) } },
+};
+
 /** Prints at once; more answer 503 PRINT_FAILED with Retry-After (each print is a chromium process of ~100 MB). */
 const MAX_PRINTS = 2;
 
@@ -48,13 +54,14 @@ export const recordRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async (
     '/v1/records',
     {
       schema: {
+        operationId: 'recordGirder',
         tags: ['records'],
         summary: 'The calculation record of one girder (text/html; application/pdf where chromium is installed)',
         description:
           'Title block, design basis with every default taken, moment and shear diagrams, the section drawn with its properties and class, every check with its clause, formula, values and utilisation, utilisation along the span; the caution and scope on every printed page. Ask for the PDF with Accept: application/pdf (406 where chromium is not installed).',
         body: RecordBody,
-        produces: ['text/html', 'application/pdf'],
-        response: { 400: ProblemDetailsJson, 406: ProblemDetailsJson, 422: ProblemDetailsJson, 503: ProblemDetailsJson },
+        response: { 200: RECORD_ANSWER, 400: ProblemDetailsJson, 406: ProblemDetailsJson, 422: ProblemDetailsJson, 503: ProblemDetailsJson },
+        errors: ['UNPROCESSABLE', 'NOT_ACCEPTABLE', 'PRINT_FAILED'],
       },
     },
     async (req, reply) => {
@@ -69,11 +76,12 @@ export const recordRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async (
     '/v1/schedules/:id/marks/:mark/record',
     {
       schema: {
+        operationId: 'getMarkRecord',
         tags: ['schedules', 'records'],
         summary: 'The calculation record of a finished mark: its adopted section, else its lightest (text/html; application/pdf where chromium is installed)',
         params: z.object({ id: z.string().min(1).max(100), mark: z.string().min(1).max(200) }),
-        produces: ['text/html', 'application/pdf'],
-        response: { 404: ProblemDetailsJson, 406: ProblemDetailsJson, 409: ProblemDetailsJson, 503: ProblemDetailsJson },
+        response: { 200: RECORD_ANSWER, 404: ProblemDetailsJson, 406: ProblemDetailsJson, 409: ProblemDetailsJson, 503: ProblemDetailsJson },
+        errors: ['JOB_NOT_FOUND', 'MARK_NOT_FOUND', 'JOB_NOT_FINISHED', 'NO_SECTION', 'NOT_ACCEPTABLE', 'PRINT_FAILED'],
       },
     },
     async (req, reply) => {

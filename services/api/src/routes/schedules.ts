@@ -106,17 +106,26 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
     '/v1/schedules',
     {
       schema: {
+        operationId: 'submitSchedule',
         tags: ['schedules'],
         summary: 'Submit a girder schedule as a job (202; poll Location or follow its events)',
         description:
           'Each mark is the defaults merged with its own fields (its own win; space and options merged one level deep), searched, and checked as adopted when a section is given. A mark whose input is invalid fails alone with its field issues. The body is JSON (Schedule) or, with content-type text/csv, one CSV row per mark (columns in the schedule package\'s CSV.md; issues name the row and column). `baseline` (the records of a previous result) makes every mark compared with it; `tender` asks for rates and rationalisation. The query parameters apply to either form where the body does not say.',
         body: ScheduleJson,
+        consumes: ['application/json', 'text/csv'],
         querystring: z.object({
           name: z.string().max(200).optional().meta({ description: 'name of the schedule (when the body has none, e.g. CSV)' }),
           rationalise: z.coerce.number().int().min(1).max(50).optional().meta({ description: 'rationalise to at most K distinct sections (when the body has no tender.rationalise)' }),
           massTolerance: z.coerce.number().min(0).max(1).optional().meta({ description: 'relative tolerance of the lightest mass in the comparison, - (default 0.01)' }),
         }),
         response: { 202: JobStatusJson, 400: ProblemDetailsJson, 413: ProblemDetailsJson, 415: ProblemDetailsJson, 422: ProblemDetailsJson, 429: ProblemDetailsJson, 503: ProblemDetailsJson },
+        errors: ['JOBS_SATURATED'],
+        answerHeaders: {
+          202: {
+            Location: { description: 'the job (getSchedule)', required: true },
+            'Retry-After': { description: 'seconds before the first poll of Location', required: true },
+          },
+        },
       },
     },
     async (req, reply) => {
@@ -136,6 +145,7 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
     '/v1/schedules',
     {
       schema: {
+        operationId: 'listSchedules',
         tags: ['schedules'],
         summary: 'List schedule jobs, newest first',
         querystring: z.object({ status: z.enum(States).optional(), limit: z.coerce.number().int().min(1).max(500).default(50) }),
@@ -152,7 +162,17 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
 
   app.get(
     '/v1/schedules/:id',
-    { schema: { tags: ['schedules'], summary: 'Status and progress of a schedule job', params: Params, response: { 200: JobStatusJson, 404: ProblemDetailsJson } } },
+    {
+      schema: {
+        operationId: 'getSchedule',
+        tags: ['schedules'],
+        summary: 'Status and progress of a schedule job',
+        params: Params,
+        response: { 200: JobStatusJson, 404: ProblemDetailsJson },
+        errors: ['JOB_NOT_FOUND'],
+        answerHeaders: { 200: { 'Retry-After': { description: 'seconds before the next poll, while the job is queued or running', required: false } } },
+      },
+    },
     async (req, reply) => {
       const j = await load(req.params.id, req);
       if (!TERMINAL.has(j.status)) void reply.header('retry-after', '1');
@@ -164,10 +184,12 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
     '/v1/schedules/:id/result',
     {
       schema: {
+        operationId: 'getScheduleResult',
         tags: ['schedules'],
         summary: 'Result of a finished schedule job: marks, totals, records (the baseline of a later run), comparison with the baseline, tonnage, plate list, rationalisation',
         params: Params,
         response: { 200: ScheduleRunResultJson, 404: ProblemDetailsJson, 409: ProblemDetailsJson },
+        errors: ['JOB_NOT_FOUND', 'JOB_NOT_FINISHED'],
       },
     },
     async (req) => (await finished(req.params.id, req)).result,
@@ -177,10 +199,12 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
     '/v1/schedules/:id/marks',
     {
       schema: {
+        operationId: 'getScheduleMarks',
         tags: ['schedules'],
         summary: 'The marks of a job finished so far (each stored as it finishes), in schedule order',
         params: Params,
         response: { 200: z.object({ id: z.string(), status: z.enum(States), marksTotal: z.number(), marks: ScheduleResultJson.shape.marks }), 404: ProblemDetailsJson },
+        errors: ['JOB_NOT_FOUND'],
       },
     },
     async (req) => {
@@ -193,11 +217,16 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
     '/v1/schedules/:id/report',
     {
       schema: {
+        operationId: 'getScheduleReport',
         tags: ['schedules'],
         summary: 'HTML report of a finished schedule job (text/html: one self-contained file, SVG charts, no script)',
         params: Params,
-        produces: ['text/html'],
-        response: { 404: ProblemDetailsJson, 409: ProblemDetailsJson },
+        response: {
+          200: { description: 'the report: one self-contained HTML file', content: { 'text/html': { schema: z.string() } } },
+          404: ProblemDetailsJson,
+          409: ProblemDetailsJson,
+        },
+        errors: ['JOB_NOT_FOUND', 'JOB_NOT_FINISHED'],
       },
     },
     async (req, reply) => {
@@ -213,11 +242,12 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
     '/v1/schedules/:id/plates.csv',
     {
       schema: {
+        operationId: 'getSchedulePlates',
         tags: ['schedules'],
         summary: 'The plate list of a finished schedule job as CSV (product, grade, thickness_mm, width_mm, length_mm, count, unit_mass_kg, mass_kg, marks, parts)',
         params: Params,
-        produces: ['text/csv'],
-        response: { 404: ProblemDetailsJson, 409: ProblemDetailsJson },
+        response: { 200: { description: 'the plate list, one row per plate size and grade', content: { 'text/csv': { schema: z.string() } } }, 404: ProblemDetailsJson, 409: ProblemDetailsJson },
+        errors: ['JOB_NOT_FOUND', 'JOB_NOT_FINISHED'],
       },
     },
     async (req, reply) => {
@@ -230,10 +260,12 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
     '/v1/schedules/:id',
     {
       schema: {
+        operationId: 'cancelSchedule',
         tags: ['schedules'],
         summary: 'Cancel a queued or running job (200, its final status); delete a finished one (204)',
         params: Params,
         response: { 200: JobStatusJson, 204: z.null(), 404: ProblemDetailsJson },
+        errors: ['JOB_NOT_FOUND'],
       },
     },
     async (req, reply) => {
@@ -252,11 +284,17 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
     {
       sse: { kind: 'manual', heartbeat: true },
       schema: {
+        operationId: 'followSchedule',
         tags: ['schedules'],
         summary: 'Server-Sent Events of a job: snapshot (the status now), progress (each change), done (the final status)',
         description: 'text/event-stream. Each event\'s data is a ScheduleJob status as JSON. The stream ends after done.',
         params: Params,
-        response: { 404: ProblemDetailsJson, 406: ProblemDetailsJson },
+        response: {
+          200: { description: 'the event stream (ends after done)', content: { 'text/event-stream': { schema: z.string() } } },
+          404: ProblemDetailsJson,
+          406: ProblemDetailsJson,
+        },
+        errors: ['JOB_NOT_FOUND', 'NOT_ACCEPTABLE'],
       },
       preHandler: async (req) => {
         const accept = req.headers.accept;

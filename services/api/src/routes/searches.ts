@@ -24,12 +24,14 @@ export const searchRoutes: FastifyPluginAsyncZod<SearchRouteOptions> = async (ap
     '/v1/searches',
     {
       schema: {
+        operationId: 'searchGirders',
         tags: ['searches'],
         summary: 'Exact search of the plate space: the Pareto set of overall depth against mass or cost',
         description: `Synchronous. The space may hold at most ${opts.spaceCap.toExponential(0)} candidates (422 SPACE_TOO_LARGE names the size and the cap). No feasible section is a 200 answer with an empty pareto and the nearest misses.`,
         querystring: Query,
         body: SearchInput,
         response: { 200: PublishedSearchJson, 400: ProblemDetailsJson, 422: ProblemDetailsJson, 503: ProblemDetailsJson },
+        errors: ['UNPROCESSABLE', 'POOL_SATURATED', 'TIME_BUDGET_EXCEEDED', 'WORKER_FAILED'],
       },
     },
     async (req, reply) => {
