@@ -9,5 +9,7 @@ export default defineConfig({
     include: ['packages/*/test/**/*.test.ts', 'services/*/test/**/*.test.ts', 'test/**/*.test.ts'],
     setupFiles: ['./test/setup/no-console.ts'],
     testTimeout: 60_000,
+    // a server's workers start in its beforeAll: on a loaded 2-core host that takes seconds
+    hookTimeout: 60_000,
   },
 });

@@ -22,7 +22,7 @@ export {
   DEFAULT_SPACE_CAP,
   type CheckJob,
 } from './problem-convert.js';
-export { publishSearch, publishPoint, type PublishedSearch, type PublishedPoint, type PublishedMiss } from './search-output.js';
+export { publishSearch, publishPoint, searchMessage, type PublishedSearch, type PublishedPoint, type PublishedMiss, type SearchAbort } from './search-output.js';
 export {
   PublishedCheckJson,
   PublishedVerdictJson,
@@ -31,6 +31,4 @@ export {
   SearchStatsJson,
   PublishedSearchJson,
   EffectsSummaryJson,
-  ProblemDetailsJson,
-  publishEffects,
 } from './api-output.js';

@@ -64,6 +64,11 @@ export interface SliceResult {
   pruned: PruneStats;
   /** candidates judged that failed, by the first check that failed them */
   failedBy: Record<string, number>;
+  /**
+   * false when the slice was stopped before its heap ran empty (a time budget): its front holds
+   * verified points, but points of the exact front may be missing. Absent means complete.
+   */
+  complete?: boolean;
 }
 
 /** Total order on (value, key): the tie-break that makes the answer unique and equal to brute force. */

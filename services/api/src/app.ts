@@ -1,21 +1,19 @@
 import { randomUUID } from 'node:crypto';
 import { fastifySSE } from '@fastify/sse';
 import { DEFAULT_SPACE_CAP } from '@platesmith/schema';
-import { searchOnPool } from '@platesmith/search/pool';
+import { runSchedule } from '@platesmith/schedule';
 import Fastify, { type FastifyBaseLogger, type FastifyInstance, type FastifyServerOptions } from 'fastify';
 import { ApiError } from './errors.js';
-import { runScheduleJob } from './domain.js';
 import { JobManager } from './jobs/manager.js';
 import { MemoryJobStore, type JobStore } from './jobs/store.js';
 import { docsPlugin } from './plugins/docs.js';
-import { poolPlugin } from './plugins/pool.js';
+import { enginePlugin } from './plugins/engine.js';
 import { problemPlugin } from './plugins/problem.js';
 import { checkRoutes } from './routes/checks.js';
 import { effectsRoutes } from './routes/effects.js';
 import { healthRoutes } from './routes/health.js';
 import { scheduleRoutes } from './routes/schedules.js';
 import { searchRoutes } from './routes/searches.js';
-import { testHookRoutes } from './routes/test-hooks.js';
 import { zodValidator } from './validate.js';
 
 export interface ApiOptions {
@@ -29,11 +27,13 @@ export interface ApiOptions {
   threads?: number;
   /** warm the search workers up in the background once ready (default off; the server turns it on) */
   warmUp?: boolean;
-  /** synchronous searches in flight before 503 POOL_SATURATED (default 4 per thread) */
+  /** synchronous requests (checks, effects, searches) on the workers before 503 POOL_SATURATED (default 4 per thread) */
   maxActiveSearches?: number;
-  /** default and greatest time budget of a synchronous search, ms (30 000 and 300 000) */
+  /** default and greatest time budget of a synchronous /v1 POST (check, effects, search), ms (30 000 and 300 000) */
   defaultBudgetMs?: number;
   maxBudgetMs?: number;
+  /** the worker module of the pool (default the application's worker; tests pass a fixture worker) */
+  workerFile?: string | URL;
   /** cap on the candidates of one space (default DEFAULT_SPACE_CAP) */
   spaceCap?: number;
   /** where schedule jobs live (default in memory) */
@@ -41,8 +41,6 @@ export interface ApiOptions {
   /** schedule jobs run at once (1) and queued before 503 (100) */
   jobConcurrency?: number;
   maxQueuedJobs?: number;
-  /** adds the internal test routes (worker crash); never in production */
-  testHooks?: boolean;
 }
 
 declare module 'fastify' {
@@ -83,17 +81,19 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
   await app.register(problemPlugin);
   await app.register(docsPlugin);
   await app.register(fastifySSE, { heartbeatInterval: 15_000 });
-  await app.register(poolPlugin, {
+  const spaceCap = opts.spaceCap ?? DEFAULT_SPACE_CAP;
+  await app.register(enginePlugin, {
+    spaceCap,
     ...(opts.threads !== undefined ? { threads: opts.threads } : {}),
-    ...(opts.maxActiveSearches !== undefined ? { maxActiveSearches: opts.maxActiveSearches } : {}),
+    ...(opts.maxActiveSearches !== undefined ? { maxActive: opts.maxActiveSearches } : {}),
     ...(opts.warmUp !== undefined ? { warmUp: opts.warmUp } : {}),
+    ...(opts.workerFile !== undefined ? { workerFile: opts.workerFile } : {}),
   });
 
-  const spaceCap = opts.spaceCap ?? DEFAULT_SPACE_CAP;
   // schedules search on the same pool, one job at a time, outside the synchronous searches' gate
   const jobs = new JobManager(
     opts.jobStore ?? new MemoryJobStore(),
-    (input, signal, onProgress) => runScheduleJob(input, (task, s) => searchOnPool(app.searcher.pool, task, s), signal, onProgress, spaceCap),
+    (input, signal, onProgress) => runSchedule(input, { search: (task, s) => app.engine.searchTask(task, s), onProgress, spaceCap }, signal),
     {
       ...(opts.jobConcurrency !== undefined ? { concurrency: opts.jobConcurrency } : {}),
       ...(opts.maxQueuedJobs !== undefined ? { maxQueued: opts.maxQueuedJobs } : {}),
@@ -109,12 +109,12 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
     await jobs.store.close();
   });
 
+  const budget = { defaultMs: opts.defaultBudgetMs ?? 30_000, maxMs: opts.maxBudgetMs ?? 300_000 };
   await app.register(healthRoutes);
-  await app.register(checkRoutes);
-  await app.register(effectsRoutes);
-  await app.register(searchRoutes, { defaultBudgetMs: opts.defaultBudgetMs ?? 30_000, maxBudgetMs: opts.maxBudgetMs ?? 300_000, spaceCap });
+  await app.register(checkRoutes, { budget });
+  await app.register(effectsRoutes, { budget });
+  await app.register(searchRoutes, { budget, spaceCap });
   await app.register(scheduleRoutes, { jobs });
-  if (opts.testHooks) await app.register(testHookRoutes);
   return app;
 }
 

@@ -17,12 +17,13 @@ export const ERROR_CODES = {
   UNSUPPORTED_MEDIA_TYPE: { status: 415, title: 'Unsupported media type', when: 'a body that is not application/json' },
   INVALID_VALUE: { status: 422, title: 'Request values are not meaningful', when: 'well-formed, but a value is out of range or inconsistent (each field named in errors)' },
   UNPROCESSABLE: { status: 422, title: 'Input outside the scope of the checks', when: 'a domain error from the engineering packages; code, field and hint are the domain error\'s' },
-  POOL_SATURATED: { status: 503, title: 'Search workers busy', when: 'too many searches in flight or queued; retry after Retry-After seconds' },
+  POOL_SATURATED: { status: 503, title: 'Workers busy', when: 'too many checks, analyses or searches in flight or queued; retry after Retry-After seconds' },
   JOBS_SATURATED: { status: 503, title: 'Schedule queue full', when: 'too many schedule jobs queued; retry after Retry-After seconds' },
-  TIME_BUDGET_EXCEEDED: { status: 503, title: 'Search time budget exceeded', when: 'the search ran past its budgetMs and was aborted' },
+  TIME_BUDGET_EXCEEDED: { status: 503, title: 'Time budget exceeded', when: 'a check or an analysis ran past its budgetMs and was stopped (a search answers 200 with status aborted instead)' },
+  CANCELLED: { status: 503, title: 'Request cancelled', when: 'the client went away before the answer; the work was stopped (nobody reads this answer; it is in the log)' },
   SHUTTING_DOWN: { status: 503, title: 'Service shutting down', when: 'the service is closing; retry on another instance' },
   NOT_READY: { status: 503, title: 'Not ready', when: 'the worker pool did not answer a ping' },
-  WORKER_FAILED: { status: 500, title: 'Search worker failed', when: 'a worker thread threw or died; the pool replaces it, retry' },
+  WORKER_FAILED: { status: 500, title: 'Worker failed', when: 'a worker thread threw or died; the pool replaces it, retry' },
   INTERNAL: { status: 500, title: 'Internal error', when: 'anything else; the full error is in the log under the request id' },
 } as const satisfies Record<string, { status: number; title: string; when: string }>;
 

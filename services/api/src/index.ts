@@ -8,6 +8,6 @@ export { MemoryJobStore, TERMINAL, type JobStore, type JobRecord, type JobPatch,
 export { JobManager, type JobEvent, type ScheduleWork, type JobManagerOptions } from './jobs/manager.js';
 export { generateOpenApi, GENERATED_NOTE } from './openapi.js';
 export { API_DESCRIPTION, API_VERSION } from './plugins/docs.js';
-export { checkSection, parseCheckRequest, CheckRequest, searchPlates, analyseProblem, runScheduleJob } from './domain.js';
+export { ProblemDetailsJson } from './problem-json.js';
 export { JobStatusJson, statusOf } from './routes/schedules.js';
 export { SqliteJobStore, openJobStore, JOB_STORE_VERSION, DEFAULT_DB_PATH } from './jobs/sqlite.js';

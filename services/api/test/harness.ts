@@ -13,7 +13,8 @@ export interface Running {
   close(): Promise<void>;
 }
 
-export async function start(opts: ApiOptions = {}): Promise<Running> {
+/** buildApp's options, and routes a test adds before the server listens (e.g. to drive a fixture worker). */
+export async function start(opts: ApiOptions & { routes?: (app: FastifyInstance) => void } = {}): Promise<Running> {
   const logs: Record<string, unknown>[] = [];
   const sink = new Writable({
     write(chunk, _enc, cb) {
@@ -21,7 +22,9 @@ export async function start(opts: ApiOptions = {}): Promise<Running> {
       cb();
     },
   });
-  const app = await buildApp({ loggerInstance: pino({ level: 'info' }, sink), ...opts });
+  const { routes, ...apiOpts } = opts;
+  const app = await buildApp({ loggerInstance: pino({ level: 'info' }, sink), ...apiOpts });
+  routes?.(app);
   const url = await app.listen({ host: '127.0.0.1', port: 0 });
   const read = async (r: Response) => {
     const text = await r.text();

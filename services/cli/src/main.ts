@@ -13,7 +13,10 @@ const USAGE = `platesmith — the lightest welded plate girders that pass Euroco
 usage:
   platesmith check FILE.json [--json]    check a section: under given effects, or for a problem (self-weight added)
   platesmith effects FILE.json [--json]  the analysis of a problem: reactions, MEd and VEd envelopes
-  platesmith search FILE.json [--json]   exact search of the plate space: Pareto set of depth against mass or cost
+  platesmith search FILE.json [--json] [--budget-ms=N]
+                                         exact search of the plate space: Pareto set of depth against mass or cost;
+                                         past N ms the points found so far (each passes, the set may be incomplete)
+                                         with a warning on standard error
   platesmith schedule FILE [options]     run a girder schedule (.json or .csv): every mark searched and its adopted
                                          section re-checked; --baseline PREV.json compares with an earlier --out;
                                          --junit, --markdown, --report, --out write files; --rationalise K
@@ -23,11 +26,21 @@ usage:
   platesmith help                        this text
 
 FILE may be - for standard input. Units: mm, kN, kN/m, kNm, MPa, kg.
-exit codes: 0 ok, 1 a check fails or no feasible section, 2 bad input`;
+exit codes: 0 ok (a search stopped at its budget too, with a warning), 1 a check fails or no feasible section,
+2 bad input`;
+
+/** `--budget-ms=N`: a whole number of ms from 100 to 10^9, in decimal digits. */
+function budgetArg(argv: readonly string[]): number | undefined {
+  const a = argv.find((x) => x.startsWith('--budget-ms'));
+  if (a === undefined) return undefined;
+  const v = a.slice('--budget-ms'.length + 1);
+  if (!a.startsWith('--budget-ms=') || !/^[0-9]{1,9}$/.test(v) || Number(v) < 100) throw new InputError(`--budget-ms must be given as --budget-ms=N, N a whole number of ms (at least 100), got '${a}'`);
+  return Number(v);
+}
 
 export async function main(argv: string[], io: Out = stdio): Promise<number> {
   const args = argv.filter((a) => !a.startsWith('--'));
-  const flags = new Set(argv.filter((a) => a.startsWith('--')));
+  const flags = new Set(argv.filter((a) => a.startsWith('--')).map((a) => a.split('=')[0]!));
   const json = flags.has('--json');
   const [cmd, file] = args;
   try {
@@ -37,7 +50,7 @@ export async function main(argv: string[], io: Out = stdio): Promise<number> {
       case 'effects':
         return runEffects(readJson(file), json, io);
       case 'search':
-        return await runSearch(readJson(file), json, io);
+        return await runSearch(readJson(file), json, io, budgetArg(argv));
       case 'schedule':
         if (flags.has('--help')) {
           io.out(SCHEDULE_USAGE);

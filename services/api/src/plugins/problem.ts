@@ -1,5 +1,6 @@
+import { isEngineError, type EngineErrorCode } from '@platesmith/app';
 import { isDomainError } from '@platesmith/catalogue';
-import type { ProblemDetailsJson } from '@platesmith/schema';
+import type { ProblemDetailsJson } from '../problem-json.js';
 import type { FastifyError, FastifyReply, FastifyRequest } from 'fastify';
 import fp from 'fastify-plugin';
 import { ApiError, ERROR_CODES, problemType, RequestInvalid, type ErrorCode } from '../errors.js';
@@ -11,6 +12,14 @@ const FASTIFY_CODES: Record<string, ErrorCode> = {
   FST_ERR_CTP_BODY_TOO_LARGE: 'BODY_TOO_LARGE',
   FST_ERR_CTP_INVALID_MEDIA_TYPE: 'UNSUPPORTED_MEDIA_TYPE',
   FST_ERR_CTP_INVALID_CONTENT_LENGTH: 'INVALID_JSON',
+};
+
+/** The engine's failures, by their code. */
+const ENGINE_CODES: Record<EngineErrorCode, ErrorCode> = {
+  SATURATED: 'POOL_SATURATED',
+  TIME_BUDGET_EXCEEDED: 'TIME_BUDGET_EXCEEDED',
+  WORKER_FAILED: 'WORKER_FAILED',
+  CANCELLED: 'CANCELLED',
 };
 
 interface Mapped {
@@ -34,8 +43,16 @@ export function toProblem(err: unknown, req: FastifyRequest): Mapped {
     };
   }
   if (err instanceof ApiError) {
-    const out: Mapped = { body: { ...base(err.code, err.message, req), ...err.extra }, internal: ERROR_CODES[err.code].status >= 500 && err.code !== 'TIME_BUDGET_EXCEEDED' };
+    const out: Mapped = { body: { ...base(err.code, err.message, req), ...err.extra }, internal: ERROR_CODES[err.code].status === 500 };
     if (err.retryAfter !== undefined) out.retryAfter = err.retryAfter;
+    else if (ERROR_CODES[err.code].status === 503) out.retryAfter = 1;
+    return out;
+  }
+  if (isEngineError(err)) {
+    const code = ENGINE_CODES[err.code];
+    const out: Mapped = { body: { ...base(code, err.message, req), ...(err.budgetMs !== undefined ? { budgetMs: err.budgetMs } : {}) }, internal: err.code === 'WORKER_FAILED' };
+    // every 503 says when to come back
+    if (ERROR_CODES[code].status === 503) out.retryAfter = err.retryAfter ?? 1;
     return out;
   }
   if (isDomainError(err)) {

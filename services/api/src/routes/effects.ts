@@ -1,18 +1,22 @@
-import { EffectsSummaryJson, ProblemDetailsJson, ProblemJson } from '@platesmith/schema';
+import { EffectsSummaryJson, ProblemJson } from '@platesmith/schema';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
-import { analyseProblem } from '../domain.js';
+import { budgetQuery, type BudgetLimits } from '../budget.js';
+import { ProblemDetailsJson } from '../problem-json.js';
+import { clientGone } from '../signal.js';
 
-export const effectsRoutes: FastifyPluginAsyncZod = async (app) => {
+export const effectsRoutes: FastifyPluginAsyncZod<{ budget: BudgetLimits }> = async (app, { budget }) => {
   app.post(
     '/v1/effects',
     {
       schema: {
         tags: ['effects'],
         summary: 'Analyse a problem: reactions, MEd and VEd envelopes of the EN 1990 combinations (without self-weight)',
+        description: 'The analysis runs on a worker thread within budgetMs.',
+        querystring: budgetQuery(budget, 'analysis'),
         body: ProblemJson,
-        response: { 200: EffectsSummaryJson, 400: ProblemDetailsJson, 422: ProblemDetailsJson },
+        response: { 200: EffectsSummaryJson, 400: ProblemDetailsJson, 422: ProblemDetailsJson, 503: ProblemDetailsJson },
       },
     },
-    async (req) => analyseProblem(req.body),
+    async (req, reply) => app.engine.effects(req.body, { signal: clientGone(reply), budgetMs: req.query.budgetMs ?? budget.defaultMs }),
   );
 };

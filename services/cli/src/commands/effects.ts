@@ -1,5 +1,5 @@
-import { summarise } from '@platesmith/actions';
-import { formatIssues, fromN, fromNmm, parseWith, ProblemJson, toAnalysis } from '@platesmith/schema';
+import { effectsOf } from '@platesmith/app';
+import { formatIssues, parseWith, ProblemJson } from '@platesmith/schema';
 import { EXIT, InputError, type Out } from '../io.js';
 import { fmt, table } from '../table.js';
 import { caution } from '../render.js';
@@ -8,15 +8,7 @@ import { caution } from '../render.js';
 export function runEffects(input: unknown, json: boolean, io: Out): number {
   const parsed = parseWith(ProblemJson, input);
   if (!parsed.ok) throw new InputError(formatIssues(parsed.issues));
-  const a = toAnalysis(parsed.value);
-  const s = summarise(a, 0);
-  const out = {
-    reactions: s.reactions.map((r) => ({ x: r.x, R: round(fromN(r.R)) })),
-    stations: s.stations.map((st) => ({ x: round(st.x), MEd: round(fromNmm(st.MEd)), VEd: round(fromN(st.VEd)) })),
-    envelope: { MEdMax: round(fromNmm(s.envelope.MEdMax)), MEdMin: round(fromNmm(s.envelope.MEdMin)), VEdMax: round(fromN(s.envelope.VEdMax)) },
-    governing: s.governing,
-    note: 'design values without the girder self-weight (check and search add each section its own)',
-  };
+  const out = effectsOf(parsed.value);
   if (json) io.out(JSON.stringify(out, null, 2));
   else {
     io.out(table(['support x (mm)', 'R (kN)'], out.reactions.map((r) => [r.x, fmt(r.R, 4)]), ['r', 'r']));
@@ -25,9 +17,9 @@ export function runEffects(input: unknown, json: boolean, io: Out): number {
       table(
         ['envelope', 'value', 'governing combination'],
         [
-          ['MEd,max (kNm)', fmt(out.envelope.MEdMax, 4), s.governing.MEdMax],
-          ['MEd,min (kNm)', fmt(out.envelope.MEdMin, 4), s.governing.MEdMin],
-          ['VEd,max (kN)', fmt(out.envelope.VEdMax, 4), s.governing.VEdMax],
+          ['MEd,max (kNm)', fmt(out.envelope.MEdMax, 4), out.governing.MEdMax],
+          ['MEd,min (kNm)', fmt(out.envelope.MEdMin, 4), out.governing.MEdMin],
+          ['VEd,max (kN)', fmt(out.envelope.VEdMax, 4), out.governing.VEdMax],
         ],
         ['l', 'r', 'l'],
       ),
@@ -36,5 +28,3 @@ export function runEffects(input: unknown, json: boolean, io: Out): number {
   }
   return EXIT.ok;
 }
-
-const round = (v: number) => Math.round(v * 1000) / 1000;

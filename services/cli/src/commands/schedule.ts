@@ -12,7 +12,7 @@ import {
   type ScheduleRunResult,
 } from '@platesmith/schedule';
 import { formatIssues, parseWith } from '@platesmith/schema';
-import { createSearchPool, searchOnPool } from '@platesmith/search/pool';
+import { createEngine } from '@platesmith/app';
 import { EXIT, InputError, type Out } from '../io.js';
 import { caution } from '../render.js';
 import { fmt, progressBar, table } from '../table.js';
@@ -215,11 +215,11 @@ export function failsRun(r: ScheduleRunResult): boolean {
 export async function runScheduleCommand(argv: readonly string[], io: Out): Promise<number> {
   const a = parseScheduleArgs(argv);
   const schedule = loadSchedule(a);
-  const pool = createSearchPool(a.threads !== undefined ? { threads: a.threads } : {});
+  const engine = createEngine(a.threads !== undefined ? { threads: a.threads } : {});
   let result: ScheduleRunResult;
   try {
     const run = await runSchedule(schedule, {
-      search: (task, signal) => searchOnPool(pool, task, signal),
+      search: (task, signal) => engine.searchTask(task, signal),
       onProgress: (p) => {
         if (a.quiet || !p.finished) return;
         const left = p.estimateMs === null ? '' : `, about ${Math.ceil(p.estimateMs / 1000)} s left`;
@@ -231,7 +231,7 @@ export async function runScheduleCommand(argv: readonly string[], io: Out): Prom
     });
     result = finishSchedule(schedule, run.marks);
   } finally {
-    await pool.close();
+    await engine.close();
   }
   if (a.out) write(a.out, JSON.stringify(result, null, 2) + '\n');
   if (a.junit) write(a.junit, toJUnit(junitCases(result), result.name ?? 'girder schedule regression'));

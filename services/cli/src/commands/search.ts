@@ -1,29 +1,37 @@
-import { createSearchPool, searchOnPool } from '@platesmith/search/pool';
-import { formatIssues, parseWith, publishSearch, SearchInput, toSearchTask, type PublishedSearch } from '@platesmith/schema';
+import { createEngine } from '@platesmith/app';
+import { formatIssues, parseWith, SearchInput, type PublishedSearch } from '@platesmith/schema';
 import { EXIT, InputError, type Out } from '../io.js';
 import { caution } from '../render.js';
 import { fmt, progressBar, table } from '../table.js';
 
-export async function solve(input: unknown, threads?: number): Promise<PublishedSearch> {
+/** The search of one input on a fresh engine (its own worker pool), within `budgetMs` when given. */
+export async function solve(input: unknown, opts: { threads?: number; budgetMs?: number } = {}): Promise<PublishedSearch> {
   const parsed = parseWith(SearchInput, input);
   if (!parsed.ok) throw new InputError(formatIssues(parsed.issues));
-  const task = toSearchTask(parsed.value);
-  const pool = createSearchPool(threads !== undefined ? { threads } : {});
+  const engine = createEngine(opts.threads !== undefined ? { threads: opts.threads } : {});
   try {
     // a progress bar on a terminal (slices of the space finished)
     const tty = process.stderr.isTTY === true;
-    const r = await searchOnPool(pool, task, undefined, (done, total) => {
-      if (tty) process.stderr.write(`\r${progressBar(done, total)} slices of the space searched` + (done === total ? '\n' : ''));
+    return await engine.search(parsed.value, {
+      ...(opts.budgetMs !== undefined ? { budgetMs: opts.budgetMs } : {}),
+      onSlice: (done, total) => {
+        if (tty) process.stderr.write(`\r${progressBar(done, total)} slices of the space searched` + (done === total ? '\n' : ''));
+      },
     });
-    return publishSearch(r, task.objective, task.analysis.length);
   } finally {
-    await pool.close();
+    await engine.close();
   }
+}
+
+/** The line a search that was not exact prints on standard error. */
+export function statusWarning(r: PublishedSearch): string | null {
+  return r.status === 'aborted' ? `warning: ${r.message}` : null;
 }
 
 export function renderSearch(r: PublishedSearch, title?: string): string {
   const lines: string[] = [];
   if (title) lines.push(title, '');
+  if (r.status === 'aborted') lines.push(`Search ${r.message}.`, '');
   if (r.pareto.length === 0) {
     lines.push('No section in the space passes every check.');
     if (r.nearMisses.length) {
@@ -73,9 +81,15 @@ export function describe(s: PublishedSearch['pareto'][number]['section']): strin
   return `web ${s.web.depth}×${s.web.thickness}, ${flanges}, ${st}, ${s.endPost} end post, ${grade}`;
 }
 
-export async function runSearch(input: unknown, json: boolean, io: Out): Promise<number> {
-  const r = await solve(input);
+/**
+ * `search`: exit 0 with a Pareto set (exact, or aborted at its budget with a warning on standard
+ * error), 1 when the whole space was searched and nothing passes.
+ */
+export async function runSearch(input: unknown, json: boolean, io: Out, budgetMs?: number): Promise<number> {
+  const r = await solve(input, budgetMs !== undefined ? { budgetMs } : {});
+  const warn = statusWarning(r);
+  if (warn) io.err(warn);
   if (json) io.out(JSON.stringify(r, null, 2));
   else io.out(`${renderSearch(r)}\n\n${caution()}`);
-  return r.pareto.length > 0 ? EXIT.ok : EXIT.fails;
+  return r.status === 'infeasible' ? EXIT.fails : EXIT.ok;
 }
