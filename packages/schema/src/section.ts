@@ -1,12 +1,14 @@
 import { z } from 'zod';
 import { GRADES } from '@platesmith/catalogue';
+import { LIMITS } from './limits.js';
 
 /** A plate dimension in mm: finite, positive, and plausible for a girder plate. */
-export const mm = (what: string, max = 100_000) =>
+export const mm = (what: string, max = 100_000, min = 0) =>
   z
     .number({ error: `${what} must be a number of mm` })
     .refine(Number.isFinite, { message: `${what} must be finite` })
     .refine((v) => v > 0, { message: `${what} must be positive (mm)` })
+    .refine((v) => v >= min, { message: `${what} under ${min} mm is not a girder's; lengths are in mm` })
     .refine((v) => v <= max, { message: `${what} over ${max} mm is not a girder plate; lengths are in mm` })
     .meta({ description: `${what}, mm` });
 
@@ -27,7 +29,7 @@ export const Web = z.strictObject({
 
 export const Stiffeners = z
   .strictObject({
-    spacing: mm('stiffener spacing a', 100_000),
+    spacing: mm('stiffener spacing a', LIMITS.spanMm, LIMITS.stiffenerSpacingMm),
     width: mm('stiffener flat outstand bs', 1000),
     thickness: mm('stiffener flat thickness ts', 150),
     sides: z.union([z.literal(1), z.literal(2)]).default(2).meta({ description: 'flats on one or both faces of the web' }),

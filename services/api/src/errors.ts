@@ -1,4 +1,4 @@
-import type { FieldIssue } from '@platesmith/schema';
+import { MAX_LISTED_ISSUES, type FieldIssue } from '@platesmith/schema';
 
 /**
  * The one table of the service's error codes. docs/api.md carries the same table (a test keeps
@@ -52,7 +52,9 @@ export class RequestInvalid extends Error {
   readonly statusCode: number;
   readonly code: 'INVALID_REQUEST' | 'INVALID_VALUE';
   constructor(issues: FieldIssue[]) {
-    super(issues.map((i) => `${i.path || '(body)'}: ${i.message}`).join('; '));
+    const shown = issues.slice(0, MAX_LISTED_ISSUES).map((i) => `${i.path || '(body)'}: ${i.message}`);
+    if (issues.length > MAX_LISTED_ISSUES) shown.push(`and ${issues.length - MAX_LISTED_ISSUES} more`);
+    super(shown.join('; '));
     this.name = 'RequestInvalid';
     this.issues = issues;
     this.code = issues.some((i) => i.kind === 'shape') ? 'INVALID_REQUEST' : 'INVALID_VALUE';

@@ -1,5 +1,6 @@
 import { isEngineError, type EngineErrorCode } from '@platesmith/app';
 import { isDomainError } from '@platesmith/catalogue';
+import { MAX_LISTED_ISSUES } from '@platesmith/schema';
 import type { ProblemDetailsJson } from '../problem-json.js';
 import type { FastifyError, FastifyReply, FastifyRequest } from 'fastify';
 import fp from 'fastify-plugin';
@@ -37,10 +38,11 @@ function base(code: ErrorCode, detail: string, req: FastifyRequest): ProblemDeta
 /** Any error → RFC 9457 problem details. Never a stack trace; a 500 says only that it happened. */
 export function toProblem(err: unknown, req: FastifyRequest): Mapped {
   if (err instanceof RequestInvalid) {
-    return {
-      body: { ...base(err.code, `${err.issues.length} field(s) rejected: ${err.message}`, req), errors: err.issues.map((i) => ({ path: i.path, pointer: i.pointer, message: i.message })) },
-      internal: false,
-    };
+    // at most MAX_LISTED_ISSUES issues listed, and how many there were (an error never amplifies its input)
+    const listed = err.issues.slice(0, MAX_LISTED_ISSUES).map((i) => ({ path: i.path, pointer: i.pointer, message: i.message }));
+    const body: ProblemDetailsJson = { ...base(err.code, `${err.issues.length} field(s) rejected: ${err.message}`, req), errors: listed };
+    if (err.issues.length > listed.length) body.issueCount = err.issues.length;
+    return { body, internal: false };
   }
   if (err instanceof ApiError) {
     const out: Mapped = { body: { ...base(err.code, err.message, req), ...err.extra }, internal: ERROR_CODES[err.code].status === 500 };
