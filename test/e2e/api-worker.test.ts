@@ -50,12 +50,14 @@ test('a search past its time budget answers 200 aborted: the points found so far
   expect(ok.body.status).toBe('exact');
 });
 
-test('search statistics are logged with the request id', async () => {
+test('one log line per request, at info, with the search statistics and the request id', async () => {
   const r = await srv.post('/v1/searches', { ...PROBLEM, space: TINY_SPACE });
   expect(r.status).toBe(200);
   const id = r.headers.get('x-request-id');
-  const line = srv.logs.find((l) => l.reqId === id && l.msg === 'search statistics') as { search: Record<string, unknown> } | undefined;
-  expect(line).toBeDefined();
+  const lines = srv.logs.filter((l) => l.reqId === id);
+  expect(lines).toHaveLength(1);
+  const line = lines[0] as { level: number; msg: string; status: number; search: Record<string, unknown> };
+  expect(line).toMatchObject({ level: 30, msg: 'request', method: 'POST', path: '/v1/searches', status: 200 });
   expect(line!.search).toMatchObject({ status: 'exact', spaceSize: r.body.stats.spaceSize, fullEvaluations: r.body.stats.fullEvaluations, paretoPoints: r.body.pareto.length });
   expect(r.body.stats.spaceSize).toBe(3 * 2 * 3 * 3); // TINY_SPACE: 3 depths × 2 webs × 3 widths × 3 thicknesses, symmetric, no stiffeners, one end post
 });

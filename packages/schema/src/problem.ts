@@ -51,7 +51,7 @@ export const BeamProblemFields = {
     .array(bounded('span', 'mm', Number.NEGATIVE_INFINITY, LIMITS.spanMm))
     .min(1, { message: 'give at least one span' })
     .max(LIMITS.spans, { message: `at most ${LIMITS.spans} spans` })
-    .meta({ description: `span lengths, mm (24000 for 24 m; each at most ${LIMITS.spanMm})` }),
+    .meta({ description: `span lengths, mm (24000 for 24 m), each at most ${LIMITS.spanMm}` }),
   actions: z.array(ActionJson).max(LIMITS.actions, { message: `at most ${LIMITS.actions} actions` }),
   combination: z.enum(['6.10', '6.10ab']).default('6.10').meta({ description: 'EN 1990 eq. 6.10, or the worse of 6.10a and 6.10b' }),
   factors: FactorsGJson.optional(),

@@ -2,13 +2,14 @@ import { randomUUID } from 'node:crypto';
 import { fastifySSE } from '@fastify/sse';
 import { DEFAULT_SPACE_CAP } from '@platesmith/schema';
 import { runSchedule } from '@platesmith/schedule';
-import Fastify, { type FastifyBaseLogger, type FastifyInstance, type FastifyServerOptions } from 'fastify';
+import Fastify, { LogController, type FastifyBaseLogger, type FastifyInstance, type FastifyServerOptions } from 'fastify';
 import { ApiError } from './errors.js';
 import { JobManager } from './jobs/manager.js';
 import { MemoryJobStore, type JobStore } from './jobs/store.js';
 import { docsPlugin } from './plugins/docs.js';
 import { enginePlugin } from './plugins/engine.js';
-import { problemPlugin } from './plugins/problem.js';
+import { guardPlugin } from './plugins/guard.js';
+import { clientError, frameworkError, problemPlugin } from './plugins/problem.js';
 import { checkRoutes } from './routes/checks.js';
 import { effectsRoutes } from './routes/effects.js';
 import { healthRoutes } from './routes/health.js';
@@ -36,6 +37,16 @@ export interface ApiOptions {
   workerFile?: string | URL;
   /** cap on the candidates of one space (default DEFAULT_SPACE_CAP) */
   spaceCap?: number;
+  /** event-loop delay past which requests and /health answer 503 OVERLOADED, ms (default 1000) */
+  maxEventLoopDelayMs?: number;
+  /** Host header values answered (host or host:port); unset: any */
+  allowedHosts?: readonly string[];
+  /** receiving a whole request, ms (default 30 000); its headers, ms (default 10 000); an idle keep-alive socket, ms (default 5 000) */
+  requestTimeoutMs?: number;
+  headersTimeoutMs?: number;
+  keepAliveTimeoutMs?: number;
+  /** open connections at once (default 1024); more are refused by the socket */
+  maxConnections?: number;
   /** where schedule jobs live (default in memory) */
   jobStore?: JobStore;
   /** schedule jobs run at once (1) and queued before 503 (100) */
@@ -46,21 +57,40 @@ export interface ApiOptions {
 declare module 'fastify' {
   interface FastifyInstance {
     jobs: JobManager;
+    /** aborts when the service starts closing: in-flight checks, analyses and searches stop */
+    shutdownSignal: AbortSignal;
   }
 }
 
+/** A client's request id is echoed only when it is this plain and short. */
+const REQUEST_ID = /^[A-Za-z0-9._:-]{1,64}$/;
+
 /** The service as a Fastify instance, not listening (server.ts listens; tests build their own). */
 export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> {
+  const headersTimeout = opts.headersTimeoutMs ?? 10_000;
   const app = Fastify({
     ...(opts.loggerInstance ? { loggerInstance: opts.loggerInstance } : { logger: opts.logger ?? false }),
     bodyLimit: opts.bodyLimit ?? 1024 * 1024,
-    genReqId: () => randomUUID(),
-    requestIdHeader: 'x-request-id',
+    // a client's x-request-id is kept only when short and plain (never an 8 kB echo); else a new one
+    genReqId: (req) => {
+      const given = req.headers['x-request-id'];
+      return typeof given === 'string' && REQUEST_ID.test(given) ? given : randomUUID();
+    },
+    requestIdHeader: false,
+    // one line per request (guard.ts), not fastify's two
+    logController: new LogController({ disableRequestLogging: true }),
     onProtoPoisoning: 'error',
     onConstructorPoisoning: 'error',
     return503OnClosing: false,
     routerOptions: { ignoreTrailingSlash: true },
+    requestTimeout: opts.requestTimeoutMs ?? 30_000,
+    keepAliveTimeout: opts.keepAliveTimeoutMs ?? 5_000,
+    // node checks the request and header timeouts on this interval (30 s by default: too coarse)
+    http: { headersTimeout, connectionsCheckingInterval: Math.min(1000, headersTimeout) },
+    frameworkErrors: frameworkError,
+    clientErrorHandler: clientError,
   });
+  app.server.maxConnections = opts.maxConnections ?? 1024;
   // JSON only: a text/plain body is 415, not a string handed to the schema
   app.removeContentTypeParser('text/plain');
   app.setValidatorCompiler(zodValidator);
@@ -68,6 +98,8 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
   app.setSerializerCompiler(() => (data) => JSON.stringify(data));
 
   let closing = false;
+  const shutdown = new AbortController();
+  app.decorate('shutdownSignal', shutdown.signal);
   app.addHook('onRequest', async (req, reply) => {
     void reply.header('x-request-id', String(req.id));
     if (closing) throw new ApiError('SHUTTING_DOWN', 'the service is shutting down', { retryAfter: 5 });
@@ -79,6 +111,10 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
   });
 
   await app.register(problemPlugin);
+  await app.register(guardPlugin, {
+    ...(opts.maxEventLoopDelayMs !== undefined ? { maxEventLoopDelayMs: opts.maxEventLoopDelayMs } : {}),
+    ...(opts.allowedHosts !== undefined ? { allowedHosts: opts.allowedHosts } : {}),
+  });
   await app.register(docsPlugin);
   await app.register(fastifySSE, { heartbeatInterval: 15_000 });
   const spaceCap = opts.spaceCap ?? DEFAULT_SPACE_CAP;
@@ -103,6 +139,7 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
   app.decorate('jobs', jobs);
   app.addHook('preClose', async () => {
     closing = true;
+    shutdown.abort(new DOMException('the service is shutting down', 'AbortError'));
     await jobs.shutdown();
   });
   app.addHook('onClose', async () => {

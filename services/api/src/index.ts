@@ -3,6 +3,7 @@
  */
 export { buildApp, type ApiOptions } from './app.js';
 export { startServer } from './server.js';
+export { SETTINGS, optionsFromEnv } from './settings.js';
 export { ERROR_CODES, ApiError, RequestInvalid, problemType, type ErrorCode } from './errors.js';
 export { MemoryJobStore, TERMINAL, type JobStore, type JobRecord, type JobPatch, type JobState } from './jobs/store.js';
 export { JobManager, type JobEvent, type ScheduleWork, type JobManagerOptions } from './jobs/manager.js';

@@ -37,7 +37,7 @@ export const docsPlugin = fp(
       transform: jsonSchemaTransform,
       transformObject: jsonSchemaTransformObject,
     });
-    await app.register(swaggerUi, { routePrefix: '/docs', uiConfig: { docExpansion: 'list', deepLinking: false } });
+    await app.register(swaggerUi, { routePrefix: '/docs', staticCSP: true, uiConfig: { docExpansion: 'list', deepLinking: false } });
     app.get('/openapi.json', { schema: { hide: true } }, async () => app.swagger());
   },
   { name: 'platesmith-docs' },

@@ -3,7 +3,7 @@ import { PublishedVerdictJson } from '@platesmith/schema';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { budgetQuery, type BudgetLimits } from '../budget.js';
 import { ProblemDetailsJson } from '../problem-json.js';
-import { clientGone } from '../signal.js';
+import { requestSignal } from '../signal.js';
 import { withParser } from '../validate.js';
 
 const Body = withParser(CheckRequest, parseCheckRequest);
@@ -21,6 +21,6 @@ export const checkRoutes: FastifyPluginAsyncZod<{ budget: BudgetLimits }> = asyn
         response: { 200: PublishedVerdictJson, 400: ProblemDetailsJson, 422: ProblemDetailsJson, 503: ProblemDetailsJson },
       },
     },
-    async (req, reply) => app.engine.check(req.body as CheckRequestT, { signal: clientGone(reply), budgetMs: req.query.budgetMs ?? budget.defaultMs }),
+    async (req, reply) => app.engine.check(req.body as CheckRequestT, { signal: requestSignal(reply, app.shutdownSignal), budgetMs: req.query.budgetMs ?? budget.defaultMs }),
   );
 };

@@ -2,7 +2,7 @@ import { EffectsSummaryJson, ProblemJson } from '@platesmith/schema';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { budgetQuery, type BudgetLimits } from '../budget.js';
 import { ProblemDetailsJson } from '../problem-json.js';
-import { clientGone } from '../signal.js';
+import { requestSignal } from '../signal.js';
 
 export const effectsRoutes: FastifyPluginAsyncZod<{ budget: BudgetLimits }> = async (app, { budget }) => {
   app.post(
@@ -17,6 +17,6 @@ export const effectsRoutes: FastifyPluginAsyncZod<{ budget: BudgetLimits }> = as
         response: { 200: EffectsSummaryJson, 400: ProblemDetailsJson, 422: ProblemDetailsJson, 503: ProblemDetailsJson },
       },
     },
-    async (req, reply) => app.engine.effects(req.body, { signal: clientGone(reply), budgetMs: req.query.budgetMs ?? budget.defaultMs }),
+    async (req, reply) => app.engine.effects(req.body, { signal: requestSignal(reply, app.shutdownSignal), budgetMs: req.query.budgetMs ?? budget.defaultMs }),
   );
 };
