@@ -82,6 +82,8 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
     onProtoPoisoning: 'error',
     onConstructorPoisoning: 'error',
     return503OnClosing: false,
+    // the boot ping waits for the workers to load (up to 60 s on a loaded host): past fastify's 10 s default
+    pluginTimeout: 90_000,
     routerOptions: { ignoreTrailingSlash: true },
     requestTimeout: opts.requestTimeoutMs ?? 30_000,
     keepAliveTimeout: opts.keepAliveTimeoutMs ?? 5_000,
