@@ -116,6 +116,34 @@ describe('3. unbounded synchronous work on the event loop', () => {
   });
 });
 
+describe('3b. /health reflects a wedged loop', () => {
+  test('a request queued behind work that holds the loop 2 s gets 503 OVERLOADED with Retry-After, /health included', async () => {
+    const w = await start({
+      threads: 1,
+      maxEventLoopDelayMs: 100,
+      // the test's own stand-in for heavy work on the loop (the service has none left)
+      // it answers first and then holds the loop, so the /health sent after the answer waits behind it
+      routes: (app) =>
+        app.post('/_test/hold', async () => {
+          setImmediate(() => {
+            const t = Date.now();
+            while (Date.now() - t < 2000);
+          });
+          return { held: true };
+        }),
+    });
+    try {
+      expect((await w.post('/_test/hold', {})).status).toBe(200);
+      const h = await w.get('/health');
+      expect(h.status).toBe(503);
+      expect(h.headers.get('retry-after')).toBe('5');
+      expect(h.body).toMatchObject({ code: 'OVERLOADED' });
+    } finally {
+      await w.close();
+    }
+  });
+});
+
 describe('5. slow clients', () => {
   test('a request whose headers never finish is closed by the headers timeout', async () => {
     const url = new URL(srv.url);
