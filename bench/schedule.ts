@@ -69,7 +69,7 @@ const pool = createSearchPool();
 await pingPool(pool);
 try {
   const t0 = performance.now();
-  const run = await runSchedule(schedule, { search: (t, s) => searchOnPool(pool, t, s) });
+  const run = await runSchedule(schedule, { search: (t, s) => searchOnPool(pool, t, s ? { signal: s } : {}) });
   const t1 = performance.now();
   const result = finishSchedule({ ...schedule, baseline: { records: run.marks.map((m) => ({ mark: m.mark, lightestMass: m.search?.lightest?.mass ?? null, lightestGoverning: m.search?.lightest?.governing.id ?? null })) } }, run.marks);
   const t2 = performance.now();

@@ -71,6 +71,11 @@ export interface SliceResult {
   complete?: boolean;
 }
 
+/** Every prune count at zero (a slice before its search, or one that never ran). */
+export function zeroPrunes(): PruneStats {
+  return { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, patchBending: 0, lateralTorsional: 0, bearing: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 };
+}
+
 /** Total order on (value, key): the tie-break that makes the answer unique and equal to brute force. */
 export function better(v1: number, k1: CandidateKey, v2: number, k2: CandidateKey): boolean {
   if (v1 !== v2) return v1 < v2;

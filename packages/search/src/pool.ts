@@ -4,7 +4,7 @@ import { Piscina } from 'piscina';
 import { mergeSlices, type SearchResult } from './search.js';
 import { assertSpace, flangeGroups, spaceSize, webPlateCounts } from './space.js';
 import type { SearchTask } from './task.js';
-import type { PruneStats, SliceResult } from './core.js';
+import { zeroPrunes, type SliceResult } from './core.js';
 import type { WorkerMessage } from './worker.js';
 import { createSharedStairs, depthGrid } from './shared-bound.js';
 import { warmUpTasks } from './warm-up.js';
@@ -75,11 +75,8 @@ export interface PoolSearchOptions {
   onSlice?: (done: number, total: number) => void;
 }
 
-const noPrunes = (): PruneStats => ({ depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, patchBending: 0, lateralTorsional: 0, bearing: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 });
-
-export async function searchOnPool(pool: SearchPool, task: SearchTask, signalOrOptions?: AbortSignal | PoolSearchOptions, onSliceArg?: (done: number, total: number) => void): Promise<SearchResult> {
-  const o: PoolSearchOptions = signalOrOptions instanceof AbortSignal ? { signal: signalOrOptions } : { ...signalOrOptions };
-  const onSlice = o.onSlice ?? onSliceArg;
+export async function searchOnPool(pool: SearchPool, task: SearchTask, o: PoolSearchOptions = {}): Promise<SearchResult> {
+  const onSlice = o.onSlice;
   const t0 = performance.now();
   assertSpace(task.space);
   // plates as contiguous runs of web indices (webConfigs order), counted without building them: a short message
@@ -123,7 +120,7 @@ export async function searchOnPool(pool: SearchPool, task: SearchTask, signalOrO
     for (const s of settled) {
       if (s.status === 'fulfilled') results.push(s.value);
       // a slice aborted after its grace: its points are lost, the answer is incomplete
-      else if (late.signal.aborted) results.push({ front: [], nearMisses: [], spaceSize: 0, fullEvaluations: 0, pruned: noPrunes(), failedBy: {}, complete: false });
+      else if (late.signal.aborted) results.push({ front: [], nearMisses: [], spaceSize: 0, fullEvaluations: 0, pruned: zeroPrunes(), failedBy: {}, complete: false });
       else throw s.reason;
     }
     return mergeSlices(results, performance.now() - t0, pool.threads, n, spaceSize(task.space));
@@ -141,7 +138,7 @@ export async function searchOnPool(pool: SearchPool, task: SearchTask, signalOrO
 export async function warmPool(pool: SearchPool, rounds = 3, signal?: AbortSignal): Promise<number> {
   const t0 = performance.now();
   const tasks = warmUpTasks();
-  for (let r = 0; r < rounds; r++) for (const t of tasks) await searchOnPool(pool, t, signal);
+  for (let r = 0; r < rounds; r++) for (const t of tasks) await searchOnPool(pool, t, signal ? { signal } : {});
   return performance.now() - t0;
 }
 

@@ -1,5 +1,5 @@
 import { assertSpace, spaceSize } from './space.js';
-import { prepareSearch, type Evaluated, type PruneStats, type SearchProblem, type SliceResult } from './core.js';
+import { prepareSearch, zeroPrunes, type Evaluated, type PruneStats, type SearchProblem, type SliceResult } from './core.js';
 import { searchSlice } from './best-first.js';
 import { paretoFront } from './pareto.js';
 
@@ -38,7 +38,7 @@ export interface SearchResult {
  */
 export function mergeSlices(slices: SliceResult[], wallMs: number, workers: number, webConfigurations: number, size: number): SearchResult {
   const pareto = paretoFront(slices.flatMap((s) => s.front));
-  const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, patchBending: 0, lateralTorsional: 0, bearing: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 };
+  const pruned: PruneStats = zeroPrunes();
   for (const s of slices) for (const k of Object.keys(pruned) as (keyof PruneStats)[]) pruned[k] += s.pruned[k];
   const failedBy: Record<string, number> = {};
   for (const s of slices) for (const [k, v] of Object.entries(s.failedBy)) failedBy[k] = (failedBy[k] ?? 0) + v;
