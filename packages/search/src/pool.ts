@@ -94,7 +94,8 @@ export async function searchOnPool(pool: SearchPool, task: SearchTask, o: PoolSe
   const nSlices = Math.max(1, pool.threads);
   const shared = createSharedStairs(depthGrid(task.space, groups));
   const searchId = randomUUID();
-  // the stop flag the workers poll; past the grace the slices still running are aborted outright
+  // the stop flag the workers poll (only when a stop is asked for: a search without one runs as
+  // before); past the grace the slices still running are aborted outright
   const stopFlag = new SharedArrayBuffer(4);
   const late = new AbortController();
   const runSignal = o.signal ? AbortSignal.any([o.signal, late.signal]) : late.signal;
@@ -109,7 +110,7 @@ export async function searchOnPool(pool: SearchPool, task: SearchTask, o: PoolSe
   try {
     const settled = await Promise.allSettled(
       Array.from({ length: nSlices }, (_, slot) =>
-        (pool.piscina.run({ kind: 'slice', task, runs: plates, shared, searchId, stop: stopFlag, ...(nSlices > 1 ? { part: { slot, of: nSlices } } : {}) } satisfies WorkerMessage, { signal: runSignal }) as Promise<SliceResult>).then((r) => {
+        (pool.piscina.run({ kind: 'slice', task, runs: plates, shared, searchId, ...(o.stop ? { stop: stopFlag } : {}), ...(nSlices > 1 ? { part: { slot, of: nSlices } } : {}) } satisfies WorkerMessage, { signal: runSignal }) as Promise<SliceResult>).then((r) => {
           onSlice?.(++done, nSlices);
           return r;
         }),
