@@ -25,7 +25,7 @@ test('a search past --budget-ms: exit 0, a warning on standard error, status abo
   const file = join(dir, 'big.json');
   // about 10^10 candidates on 24 m: seconds at best, never 200 ms
   writeFileSync(file, JSON.stringify({ spans: [24000], actions, space: { symmetric: false } }));
-  const r = await run('search', file, '--json', '--budget-ms=200');
+  const r = await run('search', file, '--json', '--quiet', '--budget-ms=200');
   expect(r.code).toBe(0);
   expect(r.err).toMatch(/^warning: aborted at its time budget of 200 ms: .*may be incomplete/m);
   expect(JSON.parse(r.out)).toMatchObject({ status: 'aborted', abort: { reason: 'time-budget', budgetMs: 200 } });
@@ -34,7 +34,7 @@ test('a search past --budget-ms: exit 0, a warning on standard error, status abo
 test('an exact search: no warning, status exact', async () => {
   const file = join(dir, 'small.json');
   writeFileSync(file, JSON.stringify({ spans: [12000], actions, space: { webDepth: [700, 800, 900], webThickness: [8, 10], flangeWidth: [200, 250, 300], flangeThickness: [12, 15, 20], panels: [0], endPost: 'rigid' } }));
-  const r = await run('search', file, '--json', '--budget-ms=60000');
+  const r = await run('search', file, '--json', '--quiet', '--budget-ms', '60000');
   expect(r.code).toBe(0);
   expect(r.err).toBe('');
   expect(JSON.parse(r.out).status).toBe('exact');

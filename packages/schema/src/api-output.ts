@@ -18,6 +18,9 @@ export const PublishedCheckJson = z
     values: z
       .record(z.string(), z.union([z.number(), z.string(), z.boolean()]))
       .meta({ description: "intermediate values by the standard's symbols: forces kN, moments kNm, lengths mm, areas mm², moduli mm³, second moments mm⁴, stresses MPa" }),
+    units: z
+      .record(z.string(), z.enum(['kN', 'kNm', 'kN/m', 'mm', 'mm2', 'mm3', 'mm4', 'MPa', '-']))
+      .meta({ description: "the unit of each numeric entry of values, as published ('-' for a ratio, factor or class)" }),
   })
   .meta({ id: 'CheckResult' });
 
@@ -91,6 +94,7 @@ export const EffectsSummaryJson = z
     governing: z.object({ MEdMax: z.string(), MEdMin: z.string(), VEdMax: z.string() }).meta({ description: 'labels of the governing combinations' }),
     note: z.string(),
     caution: z.string(),
+    scope: z.string(),
   })
   .meta({ id: 'EffectsSummary', description: 'design values of the governing ULS combinations, without the girder self-weight' });
 export type EffectsSummaryJson = z.output<typeof EffectsSummaryJson>;

@@ -13,6 +13,7 @@ import { clientError, frameworkError, problemPlugin } from './plugins/problem.js
 import { checkRoutes } from './routes/checks.js';
 import { effectsRoutes } from './routes/effects.js';
 import { healthRoutes } from './routes/health.js';
+import { recordRoutes } from './routes/records.js';
 import { scheduleRoutes } from './routes/schedules.js';
 import { searchRoutes } from './routes/searches.js';
 import { zodValidator } from './validate.js';
@@ -154,6 +155,7 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
   await app.register(effectsRoutes, { budget });
   await app.register(searchRoutes, { budget, spaceCap });
   await app.register(scheduleRoutes, { jobs });
+  await app.register(recordRoutes, { jobs });
   return app;
 }
 

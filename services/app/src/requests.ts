@@ -74,7 +74,8 @@ export function effectsOf(p: ProblemJson): EffectsSummaryJson {
     envelope: { MEdMax: round3(fromNmm(s.envelope.MEdMax)), MEdMin: round3(fromNmm(s.envelope.MEdMin)), VEdMax: round3(fromN(s.envelope.VEdMax)) },
     governing: s.governing,
     note: 'design values without the girder self-weight (check and search add each section its own)',
-    caution: `${CAUTION} ${SCOPE}`,
+    caution: CAUTION,
+    scope: SCOPE,
   };
 }
 

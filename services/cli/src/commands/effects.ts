@@ -8,7 +8,9 @@ import { caution } from '../render.js';
 export function runEffects(input: unknown, json: boolean, io: Out): number {
   const parsed = parseWith(ProblemJson, input);
   if (!parsed.ok) throw new InputError(formatIssues(parsed.issues));
+  // the same publication as the HTTP answer: units, rounding, caution and scope
   const out = effectsOf(parsed.value);
+  const s = out;
   if (json) io.out(JSON.stringify(out, null, 2));
   else {
     io.out(table(['support x (mm)', 'R (kN)'], out.reactions.map((r) => [r.x, fmt(r.R, 4)]), ['r', 'r']));
