@@ -30,7 +30,7 @@ try {
     if (!parsed.ok) throw new Error(parsed.issues.map((i) => i.message).join('\n'));
     const schedule = { ...parsed.value, tender: { ...parsed.value.tender!, rationalise: maxK, plates: { thicknesses: 4, widths: 3 }, timeLimit } };
     const t0 = performance.now();
-    const run = await runSchedule(schedule, { search: (t, s) => searchOnPool(pool, t, s) });
+    const run = await runSchedule(schedule, { search: (t, s) => searchOnPool(pool, t, s ? { signal: s } : {}) });
     const t1 = performance.now();
     const baseline = { records: run.marks.map((m) => ({ mark: m.mark, lightestMass: m.search?.lightest?.mass ?? null, lightestGoverning: m.search?.lightest?.governing.id ?? null })) };
     const result = await finishSchedule({ ...schedule, baseline }, run.marks);

@@ -69,7 +69,7 @@ const cases: Case[] = [
   { name: 'malformed JSON', path: '/v1/effects', body: null, raw: '{"spans": [12000', status: 400, code: 'INVALID_JSON' },
   { name: '__proto__ key', path: '/v1/effects', body: null, raw: '{"spans":[12000],"actions":[],"__proto__":{"polluted":true}}', status: 400, code: 'INVALID_JSON' },
   { name: 'constructor.prototype key', path: '/v1/effects', body: null, raw: '{"spans":[12000],"actions":[],"constructor":{"prototype":{"polluted":true}}}', status: 400, code: 'INVALID_JSON' },
-  { name: 'deeply nested JSON (5000 levels)', path: '/v1/effects', body: null, raw: `{"spans":[12000],"actions":[],"deep":${nest(5000)}}`, status: 400, code: 'INVALID_REQUEST', field: '' },
+  { name: 'deeply nested JSON (5000 levels)', path: '/v1/effects', body: null, raw: `{"spans":[12000],"actions":[],"deep":${nest(5000)}}`, status: 400, code: 'INVALID_REQUEST', field: 'deep' },
   { name: 'a 10 MB body', path: '/v1/effects', body: null, raw: JSON.stringify({ ...PROBLEM, note: 'x'.repeat(10 * 1024 * 1024) }), status: 413, code: 'BODY_TOO_LARGE' },
   { name: 'text/plain body', path: '/v1/effects', body: null, raw: 'spans=12000', contentType: 'text/plain', status: 415, code: 'UNSUPPORTED_MEDIA_TYPE' },
   { name: 'empty JSON body', path: '/v1/effects', body: null, raw: '', status: 400, code: 'EMPTY_BODY' },

@@ -7,7 +7,7 @@
  */
 import { afterAll, beforeAll, expect, test } from 'vitest';
 import { CAUTION } from '@platesmith/schema';
-import { checkSection, parseCheckRequest } from '../../services/api/src/index.js';
+import { checkSection, parseCheckRequest } from '../../services/app/src/index.js';
 import { SqliteJobStore } from '../../services/api/src/jobs/sqlite.js';
 import { start, TINY_SPACE, type Running } from '../../services/api/test/harness.js';
 import { DEMO_MARK, demoGirderRequest, FILES, readJson } from '../../scripts/openapi-examples.js';
@@ -72,7 +72,7 @@ test('analyseEffects: 12 m simply supported, 10 + 15 kN/m (category B) under EN 
 
 test('searchGirders: a small space answers its Pareto set; a saturated service answers 503 with Retry-After', async () => {
   const r = await api.client.POST('/v1/searches', {
-    params: { query: { budgetMs: 60_000 } },
+    params: { query: { budgetMs: '60000' } },
     body: {
       spans: [12000],
       actions: [

@@ -6,7 +6,7 @@
  * docs/openapi.json is a generated file: this test compares it with what the service generates
  * and fails on a diff (`pnpm openapi` writes it). The operation ids are fixed here: a client
  * generated from the document names its methods after them. docs/api.md's errors table must
- * equal ERROR_CODES, and every DomainError code in the packages must be listed.
+ * equal ERROR_CODES, and every DomainError code in the packages and the services must be listed.
  */
 import { spawnSync } from 'node:child_process';
 import { readdirSync, readFileSync, existsSync, statSync } from 'node:fs';
@@ -168,7 +168,7 @@ test('docs/api.md errors table equals ERROR_CODES', () => {
   expect(md).toContain(SCOPE);
 });
 
-test('docs/api.md lists every DomainError code of the packages', () => {
+test('docs/api.md lists every DomainError code of the packages and the services', () => {
   const md = readFileSync(join(root, 'docs', 'api.md'), 'utf8');
   const codes = new Set<string>();
   const walk = (dir: string): void => {
@@ -178,7 +178,9 @@ test('docs/api.md lists every DomainError code of the packages', () => {
       else if (p.endsWith('.ts')) for (const m of readFileSync(p, 'utf8').matchAll(/new DomainError\(\s*'([A-Z_]+)'/g)) codes.add(m[1]!);
     }
   };
-  for (const pkg of readdirSync(join(root, 'packages'))) if (existsSync(join(root, 'packages', pkg, 'src'))) walk(join(root, 'packages', pkg, 'src'));
+  for (const top of ['packages', 'services']) {
+    for (const pkg of readdirSync(join(root, top))) if (existsSync(join(root, top, pkg, 'src'))) walk(join(root, top, pkg, 'src'));
+  }
   expect(codes.size).toBeGreaterThan(10);
   for (const c of codes) expect.soft(md, c).toContain('`' + c + '`');
 });

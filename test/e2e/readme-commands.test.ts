@@ -11,7 +11,8 @@ import { spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, test } from 'vitest';
-import { parseWith, ProblemJson, publishEffects, SectionJson, SpaceJson } from '@platesmith/schema';
+import { effectsOf } from '@platesmith/app';
+import { parseWith, ProblemJson, SectionJson, SpaceJson } from '@platesmith/schema';
 
 const root = fileURLToPath(new URL('../../', import.meta.url));
 const readme = readFileSync(`${root}README.md`, 'utf8');
@@ -87,7 +88,7 @@ test("the README's JSON examples are accepted by the schemas they illustrate", (
   const problem = objects.find((o) => o.spans && o.actions);
   const p = parseWith(ProblemJson, problem);
   expect(p.ok, JSON.stringify(p)).toBe(true);
-  if (p.ok) expect(publishEffects(p.value).envelope.MEdMax).toBeGreaterThan(0);
+  if (p.ok) expect(effectsOf(p.value).envelope.MEdMax).toBeGreaterThan(0);
   const section = objects.find((o) => o.web && o.topFlange);
   expect(parseWith(SectionJson, section).ok).toBe(true);
   const space = json.map((b) => b.trim()).find((b) => b.startsWith('"space"'))!;

@@ -43,6 +43,42 @@ export function combinationsFor(p: BeamProblem): { uls: Combination[]; sls: { na
   };
 }
 
+/**
+ * Cap on the derived work of one analysis: stations × ULS combinations × load patterns (each
+ * variable action on each span). At about 50 ns a unit on this machine, 2·10^7 is about a second;
+ * the largest problems of the demo and the benchmarks are under 10^5.
+ */
+export const ANALYSIS_WORK_CAP = 2e7;
+
+/**
+ * Counts an analysis's derived work before any array is built (issue 16: 20 spans × 400 grid
+ * divisions × 40 variable actions held the service for 24 s). Stations are counted from their
+ * sources (supports, point loads both sides, the grid, partial-load ends, extra stations and
+ * about one zero-shear point per combination and span).
+ */
+function assertAnalysisWork(rp: ResolvedProblem, combinations: number, variables: number): void {
+  const n = rp.spans.length;
+  let points = 0;
+  let partials = 0;
+  for (const a of rp.actions) {
+    if (a.load === 'point') points++;
+    else if (a.load === 'partial-udl') partials++;
+  }
+  const stations = 2 * (n + 1) + 2 * points + n * (rp.grid - 1) + 2 * partials + rp.extra.length + (combinations + 1) * n;
+  const patterns = Math.max(1, variables * n);
+  const work = stations * combinations * patterns;
+  if (work > ANALYSIS_WORK_CAP) {
+    const field = patterns >= stations ? 'actions' : rp.extra.length > n * rp.grid ? 'extraStations' : 'gridDivisions';
+    throw new DomainError(
+      'ANALYSIS_TOO_LARGE',
+      `the analysis would take about ${stations} stations × ${combinations} combinations × ${patterns} load patterns = ${work.toExponential(2)}, over the cap of ${ANALYSIS_WORK_CAP.toExponential(0)}`,
+      'use fewer grid divisions, variable actions, spans, restraints or stiffener panels, or give the design effects as an envelope',
+      field,
+      { stations, combinations, patterns, work, cap: ANALYSIS_WORK_CAP },
+    );
+  }
+}
+
 interface Part {
   /** index among the variable actions */
   j: number;
@@ -80,6 +116,7 @@ export function analyse(p: BeamProblem): Analysis {
   const x0 = supportsOf(spans);
   const vars = rp.actions.filter((a) => a.kind === 'variable');
   const uls = ulsCombinations(variablesOf(rp), rp.combination, rp.factors);
+  assertAnalysisWork(rp, uls.length, vars.length);
 
   // ---- unit load cases
   const caseG = solveCase(spans, distribute(spans, rp.actions.filter((a) => a.kind === 'permanent').map(toBeamLoad)));
@@ -102,14 +139,15 @@ export function analyse(p: BeamProblem): Analysis {
   const cont: number[] = [];
   for (let s = 0; s < n; s++) for (let i = 1; i < rp.grid; i++) cont.push(x0[s]! + (spans[s]! * i) / rp.grid);
   for (const a of rp.actions) if (a.load === 'partial-udl') cont.push(a.from, a.to);
-  cont.push(...rp.extra);
+  // element by element: a spread of a long list overflows the call stack (issue 16)
+  for (const x of rp.extra) cont.push(x);
 
   // zero shear of each ULS combination's midspan-sagging pattern, and of g alone
   for (let s = 0; s < n; s++) {
     const L = spans[s]!;
     const bps = [0, L];
     const sl = [caseG.spanLoads[s]!, ...parts.filter((q) => q.s === s).map((q) => q.sc.spanLoads[s]!)];
-    for (const l of sl) bps.push(...l.a, ...l.c, ...l.d);
+    for (const l of sl) for (const xs of [l.a, l.c, l.d]) for (const x of xs) bps.push(x);
     const u = [...new Set(bps)].sort((a, b) => a - b);
     const roots = (Vf: (xl: number, side: Side) => number): void => {
       for (let i = 0; i + 1 < u.length; i++) {

@@ -16,7 +16,7 @@ export type {
   EnvelopeProblem,
   SlsData,
 } from './types.js';
-export { analyse, analyseEnvelope, designEffects, designReaction, summarise, combinationsFor } from './analyse.js';
+export { analyse, analyseEnvelope, designEffects, designReaction, summarise, combinationsFor, ANALYSIS_WORK_CAP } from './analyse.js';
 export { continuousBeam, type BeamLoad, type BeamSolution, type PointLoad, type DistributedLoad, type Side } from './beam.js';
 export { ulsCombinations, slsCombinations, type VariableInfo } from './combinations.js';
 export { psiFor, TABLE_A1_1, PSI_CATEGORIES, type PsiFactors } from './psi.js';

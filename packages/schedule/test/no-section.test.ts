@@ -13,6 +13,8 @@ const governing = { id: 'bending', clause: 'EN 1993-1-1 6.2.5', applies: true, u
 const stats = { spaceSize: 1, fullEvaluations: 1, pruned: { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, patchBending: 0, lateralTorsional: 0, bearing: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 }, failedBy: {}, wallMs: 1, workers: 1, webConfigurations: 1 };
 const withMiss: PublishedSearch = {
   objective: 'mass',
+  status: 'infeasible',
+  message: 'infeasible: no section passes every check',
   pareto: [],
   lightest: null,
   nearMisses: [{ depth: 1040, mass: 1234.5, section, governing, failing: ['bending', 'lateral-torsional-buckling'] }],

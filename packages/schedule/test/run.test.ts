@@ -7,7 +7,7 @@ import { mergeGirder, runSchedule, ScheduleJson, type ScheduleProgress } from '@
 import type { SearchResult } from '@platesmith/search';
 
 const PROBLEM = { spans: [12000], actions: [{ kind: 'permanent', load: 'udl', value: 10 }] };
-const empty: SearchResult = { pareto: [], lightest: null, nearMisses: [], stats: { spaceSize: 1, fullEvaluations: 0, pruned: { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, patchBending: 0, lateralTorsional: 0, bearing: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 }, failedBy: {}, wallMs: 0, workers: 1, webConfigurations: 1 } };
+const empty: SearchResult = { status: 'infeasible', pareto: [], lightest: null, nearMisses: [], stats: { spaceSize: 1, fullEvaluations: 0, pruned: { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, patchBending: 0, lateralTorsional: 0, bearing: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 }, failedBy: {}, wallMs: 0, workers: 1, webConfigurations: 1 } };
 
 test('girder fields win; space and options merge one level deep', () => {
   const m = mergeGirder({ spans: [1], space: { a: 1, b: 1 }, options: { eta: 1 }, combination: '6.10' }, { mark: 'G', quantity: 1, spans: [2], space: { b: 2 }, options: { eta: 1.2 } });

@@ -1,14 +1,9 @@
-import { summarise } from '@platesmith/actions';
 import { z } from 'zod';
-import { CAUTION, SCOPE } from './caution.js';
-import { toAnalysis } from './problem-convert.js';
-import type { ProblemJson } from './problem.js';
 import { SectionJson } from './section.js';
-import { fromN, fromNmm } from './units.js';
 
 /**
  * zod schemas of the published results (the shapes of publishCheck, publishVerdict,
- * publishSearch and publishEffects), so the HTTP service can declare and document its
+ * publishSearch and the effects summary), so the HTTP service can declare and document its
  * responses from the same definitions. Units as in VALUE_UNITS (per check, from the check registry): kN, kNm, mm, MPa, kg.
  */
 export const PublishedCheckJson = z
@@ -72,6 +67,11 @@ export const SearchStatsJson = z
 
 export const PublishedSearchJson = z
   .object({
+    status: z.enum(['exact', 'aborted', 'infeasible']).meta({
+      description: 'exact: the whole space was searched and the Pareto set is exact; infeasible: the whole space was searched and nothing passes (see nearMisses); aborted: stopped early (its time budget): every point passes every check, but the set may be incomplete',
+    }),
+    message: z.string().meta({ description: 'the status in words' }),
+    abort: z.object({ reason: z.literal('time-budget'), budgetMs: z.number().meta({ description: 'ms' }) }).optional().meta({ description: 'why the search stopped early (status aborted)' }),
     objective: z.enum(['mass', 'cost']),
     pareto: z.array(PublishedPointJson).meta({ description: 'depth ascending; nothing shallower or as shallow is lighter' }),
     lightest: PublishedPointJson.nullable(),
@@ -98,40 +98,3 @@ export const EffectsSummaryJson = z
   })
   .meta({ id: 'EffectsSummary', description: 'design values of the governing ULS combinations, without the girder self-weight' });
 export type EffectsSummaryJson = z.output<typeof EffectsSummaryJson>;
-
-const round3 = (v: number) => Math.round(v * 1000) / 1000;
-
-/** The analysis of a problem in public units (kN, kNm, mm), without self-weight. */
-export function publishEffects(p: ProblemJson): EffectsSummaryJson {
-  const s = summarise(toAnalysis(p), 0);
-  return {
-    reactions: s.reactions.map((r) => ({ x: r.x, R: round3(fromN(r.R)) })),
-    stations: s.stations.map((st) => ({ x: round3(st.x), MEd: round3(fromNmm(st.MEd)), VEd: round3(fromN(st.VEd)) })),
-    envelope: { MEdMax: round3(fromNmm(s.envelope.MEdMax)), MEdMin: round3(fromNmm(s.envelope.MEdMin)), VEdMax: round3(fromN(s.envelope.VEdMax)) },
-    governing: s.governing,
-    note: 'design values without the girder self-weight (check and search add each section its own)',
-    caution: CAUTION,
-    scope: SCOPE,
-  };
-}
-
-/** RFC 9457 problem details, with the field issues of a validation failure. */
-export const ProblemDetailsJson = z
-  .object({
-    type: z.string().meta({ description: 'URI naming the problem type (see the errors table)' }),
-    title: z.string(),
-    status: z.number().int(),
-    detail: z.string(),
-    instance: z.string().meta({ description: 'the request path' }),
-    code: z.string().meta({ description: 'stable error code' }),
-    requestId: z.string(),
-    field: z.string().optional().meta({ description: 'offending field (domain errors)' }),
-    hint: z.string().optional().meta({ description: 'what to do next' }),
-    errors: z
-      .array(z.object({ path: z.string(), pointer: z.string().meta({ description: 'JSON pointer into the body, e.g. #/spans/0' }), message: z.string() }))
-      .optional(),
-    jobStatus: z.enum(['queued', 'running', 'done', 'failed', 'cancelled']).optional().meta({ description: 'the job\'s status (JOB_NOT_FINISHED)' }),
-    budgetMs: z.number().int().optional().meta({ description: 'the time budget the search ran out of, ms (TIME_BUDGET_EXCEEDED)' }),
-  })
-  .meta({ id: 'ProblemDetails', description: 'RFC 9457 problem details (application/problem+json)' });
-export type ProblemDetailsJson = z.output<typeof ProblemDetailsJson>;

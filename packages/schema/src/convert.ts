@@ -3,6 +3,7 @@ import { FACTOR_SETS, defaultOptions, type CheckOptions, type Effects, type Sect
 import type { CheckOptionsJson } from './options.js';
 import type { SectionJson } from './section.js';
 import type { CheckEffectsInput } from './check-input.js';
+import { LIMITS } from './limits.js';
 import { toN, toNmm } from './units.js';
 
 /** Public section JSON (mm) → internal Section. */
@@ -39,10 +40,14 @@ export function fromSection(s: Section): SectionJson {
 }
 
 /** Restraint positions from the JSON form, mm. */
-function restraint(j: CheckOptionsJson['restraint'], L: number): CheckOptions['restraint'] {
+function restraint(j: CheckOptionsJson['restraint'], L: number, field: string): CheckOptions['restraint'] {
   if (j === 'continuous') return { kind: 'continuous' };
   if (j === 'supports') return { kind: 'at', at: [] };
   if ('spacing' in j) {
+    // counted before the array is built (issue 16: a spacing of 0.01 mm was millions of stations)
+    if (L / j.spacing > LIMITS.restraints) {
+      throw new DomainError('TOO_MANY_STATIONS', `${field}.spacing = ${j.spacing} mm gives about ${Math.floor(L / j.spacing)} restraints over ${L} mm, over the limit of ${LIMITS.restraints}`, 'give the restraint spacing in mm (e.g. 3000)', `${field}.spacing`, { count: Math.floor(L / j.spacing), limit: LIMITS.restraints });
+    }
     const at: number[] = [];
     for (let x = 0; x < L - 1e-6; x += j.spacing) at.push(x);
     at.push(L);
@@ -59,8 +64,8 @@ export function toCheckOptions(j: CheckOptionsJson, supports: number[]): CheckOp
     fySource: j.fySource,
     kFib: j.kFib,
     supports,
-    restraint: restraint(j.restraint, L),
-    restraintBottom: restraint(j.bottomRestraint, L),
+    restraint: restraint(j.restraint, L, 'options.restraint'),
+    restraintBottom: restraint(j.bottomRestraint, L, 'options.bottomRestraint'),
     loadHeight: j.loadHeight,
     ltbMethod: j.ltbMethod,
     ltbModification: j.ltbModification,

@@ -1,8 +1,9 @@
+export { LIMITS, bounded } from './limits.js';
 export { mm, Grade, Plate, Web, Stiffeners, Bearing, GradeSpec, SectionJson } from './section.js';
 export { FactorsJson, RestraintJson, CheckOptionsJson } from './options.js';
 export { SpanMm, EffectJson, SlsUdlJson, CheckEffectsInput } from './check-input.js';
 export { toSection, fromSection, toCheckOptions, toCheckEffects, assertStockThickness } from './convert.js';
-export { parseWith, formatIssues, pathString, type FieldIssue, type Parsed } from './parse.js';
+export { parseWith, formatIssues, pathString, MAX_LISTED_ISSUES, type FieldIssue, type Parsed } from './parse.js';
 export { VALUE_UNITS, unitOf, roundPublished, publishCheck, publishVerdict, type PublishedCheck, type PublishedVerdict } from './output.js';
 export { kN, kNm, toN, toNmm, fromN, fromNmm, convertValue, type ValueUnit } from './units.js';
 export { CAUTION, SCOPE } from './caution.js';
@@ -24,7 +25,7 @@ export {
   DEFAULT_SPACE_CAP,
   type CheckJob,
 } from './problem-convert.js';
-export { publishSearch, publishPoint, type PublishedSearch, type PublishedPoint, type PublishedMiss } from './search-output.js';
+export { publishSearch, publishPoint, searchMessage, type PublishedSearch, type PublishedPoint, type PublishedMiss, type SearchAbort } from './search-output.js';
 export {
   PublishedCheckJson,
   PublishedVerdictJson,
@@ -33,6 +34,4 @@ export {
   SearchStatsJson,
   PublishedSearchJson,
   EffectsSummaryJson,
-  ProblemDetailsJson,
-  publishEffects,
 } from './api-output.js';

@@ -80,6 +80,9 @@ export function publishCheck(c: CheckResult): PublishedCheck {
   const values: Record<string, number | string | boolean> = {};
   const units: Record<string, ValueUnit> = {};
   for (const [k, v] of Object.entries(c.values)) {
+    // a value the check did not compute (NaN, e.g. φLT where 6.3.2.2(4) lets the reduction be
+    // ignored) is left out, never published as null
+    if (typeof v === 'number' && !Number.isFinite(v)) continue;
     if (typeof v !== 'number') values[k] = v;
     else {
       const unit = unitOf(k, c.id) ?? '-';

@@ -35,18 +35,26 @@ function pointer(path: readonly PropertyKey[]): string {
 export function parseWith<S extends z.ZodType>(schema: S, data: unknown): Parsed<z.output<S>> {
   const r = schema.safeParse(data);
   if (r.success) return { ok: true, value: r.data };
-  return {
-    ok: false,
-    issues: r.error.issues.map((i) => ({
-      path: pathString(i.path),
-      pointer: pointer(i.path),
-      message: i.message,
-      code: i.code,
-      kind: VALUE_CODES.has(i.code) ? 'value' : 'shape',
-    })),
-  };
+  const issues: FieldIssue[] = [];
+  for (const i of r.error.issues) {
+    // an unknown key is reported at its own path (zod reports it at the object's)
+    if (i.code === 'unrecognized_keys') {
+      for (const k of i.keys) {
+        const path = [...i.path, k];
+        issues.push({ path: pathString(path), pointer: pointer(path), message: `unknown field "${k}"`, code: i.code, kind: 'shape' });
+      }
+      continue;
+    }
+    issues.push({ path: pathString(i.path), pointer: pointer(i.path), message: i.message, code: i.code, kind: VALUE_CODES.has(i.code) ? 'value' : 'shape' });
+  }
+  return { ok: false, issues };
 }
 
+/** The most issues an answer lists (a body of 20 000 bad stations had 80 001): the count says how many there were. */
+export const MAX_LISTED_ISSUES = 100;
+
 export function formatIssues(issues: readonly FieldIssue[]): string {
-  return issues.map((i) => `${i.path || '(input)'}: ${i.message}`).join('\n');
+  const shown = issues.slice(0, MAX_LISTED_ISSUES).map((i) => `${i.path || '(input)'}: ${i.message}`);
+  if (issues.length > MAX_LISTED_ISSUES) shown.push(`… and ${issues.length - MAX_LISTED_ISSUES} more (${issues.length} in all)`);
+  return shown.join('\n');
 }

@@ -8,6 +8,7 @@ import { assertStockThickness, toCheckOptions, toSection } from './convert.js';
 import { ProblemFields, problemShape, type ProblemJson } from './problem.js';
 import { SectionJson } from './section.js';
 import { CostJson, SpaceJson, type SpaceJson as SpaceJsonT } from './space.js';
+import { LIMITS } from './limits.js';
 import { toN, toNmm } from './units.js';
 
 export const CheckProblemInput = z
@@ -128,6 +129,11 @@ function spansOf(supports: readonly number[]): number[] {
 }
 
 function exactStiffenerXs(supports: readonly number[], a: number): number[] {
+  // counted before the array is built: a small spacing on a long girder would be millions of stations
+  const L = supports[supports.length - 1]! - supports[0]!;
+  if (L / a > LIMITS.restraints) {
+    throw new DomainError('TOO_MANY_STATIONS', `section.stiffeners.spacing = ${a} mm gives about ${Math.floor(L / a)} stiffeners over ${L} mm, over the limit of ${LIMITS.restraints}`, 'give the stiffener spacing a in mm (e.g. 2000)', 'section.stiffeners.spacing', { count: Math.floor(L / a), limit: LIMITS.restraints });
+  }
   const xs: number[] = [];
   for (let i = 0; i + 1 < supports.length; i++) for (let k = 1; supports[i]! + k * a < supports[i + 1]! - 1; k++) xs.push(supports[i]! + k * a);
   return xs;
@@ -138,8 +144,9 @@ function grid(v: number[] | { min: number; max: number; step: number } | undefin
   if (v === undefined) xs = fallback;
   else if (Array.isArray(v)) xs = [...new Set(v)].sort((a, b) => a - b);
   else {
-    xs = [];
-    for (let i = 0; v.min + i * v.step <= v.max + 1e-9; i++) xs.push(Math.round((v.min + i * v.step) * 1e6) / 1e6);
+    // the count first (the schema caps it at 1000): a loop on min + i·step never ends where the step is below the values' precision
+    const n = Math.floor((v.max - v.min) / v.step + 1e-9) + 1;
+    xs = Array.from({ length: Math.min(n, 1001) }, (_, i) => Math.round((v.min + i * v.step) * 1e6) / 1e6);
   }
   for (const x of xs) {
     if (!(x > 0)) throw new DomainError('BAD_DIMENSION', `${field} holds ${x}: plate dimensions must be positive (mm)`, 'give positive values in mm', field, { value: x });
@@ -215,6 +222,13 @@ export function toSearchTask(j: SearchInput, cap = DEFAULT_SPACE_CAP): SearchTas
   const supports = supportsOf(j);
   const options = toCheckOptions(j.options, supports);
   const spans = spansOf(supports);
+  // the stations at every layout's stiffeners, counted before they are made
+  const Lmax = Math.max(0, ...spans);
+  let count = 0;
+  for (const n of space.panels) if (n > 1) for (const L of spans) count += Math.ceil((L * n) / Lmax);
+  if (count > LIMITS.stiffenerStations) {
+    throw new DomainError('TOO_MANY_STATIONS', `space.panels gives ${count} stiffener stations over the spans, over the limit of ${LIMITS.stiffenerStations}`, 'ask for fewer or smaller panel counts (e.g. { "min": 0, "max": 16 })', 'space.panels', { count, limit: LIMITS.stiffenerStations });
+  }
   const analysis = toAnalysis(j, [...stiffenerStations(spans, space.panels), ...restraintStations(options)]);
   return { space, options, analysis, objective: j.objective, cost: toCost(j.cost) };
 }

@@ -1,21 +1,25 @@
 import { z } from 'zod';
+import { bounded, LIMITS } from './limits.js';
 import { CheckOptionsJson } from './options.js';
 
-const num = (what: string, unit: string) =>
-  z.number({ error: `${what} must be a number (${unit})` }).refine(Number.isFinite, { message: `${what} must be finite` }).meta({ description: `${what}, ${unit}` });
+const num = (what: string, unit: string, min: number, max: number) =>
+  bounded(what, unit, min, max).meta({ description: `${what}, ${unit} (${min === Number.NEGATIVE_INFINITY ? `at most ${max}` : `${min} … ${max}`})` });
+const position = (what: string, unit: string) => num(what, unit, -LIMITS.lengthMm, LIMITS.lengthMm);
+const psi = (what: string) => num(what, '-', 0, 1);
+const factor = (what: string) => num(what, '-', 0, LIMITS.factor);
 
 export const ActionJson = z
   .strictObject({
     kind: z.enum(['permanent', 'variable']),
     load: z.enum(['udl', 'partial-udl', 'point']),
-    value: num('value', 'kN/m for udl and partial-udl, kN for point; downward positive'),
-    at: num('at', 'mm from the left end (point loads)').optional(),
-    from: num('from', 'mm from the left end (partial-udl)').optional(),
-    to: num('to', 'mm from the left end (partial-udl)').optional(),
-    ss: num('ss', 'mm, stiff bearing length of a point load (default 100)').optional(),
-    psi0: num('psi0', '-').optional(),
-    psi1: num('psi1', '-').optional(),
-    psi2: num('psi2', '-').optional(),
+    value: num('value', 'kN/m for udl and partial-udl, kN for point; downward positive', -LIMITS.loadValue, LIMITS.loadValue),
+    at: position('at', 'mm from the left end (point loads)').optional(),
+    from: position('from', 'mm from the left end (partial-udl)').optional(),
+    to: position('to', 'mm from the left end (partial-udl)').optional(),
+    ss: num('ss', 'mm, stiff bearing length of a point load (default 100)', 0, LIMITS.bearingLengthMm).optional(),
+    psi0: psi('psi0').optional(),
+    psi1: psi('psi1').optional(),
+    psi2: psi('psi2').optional(),
     category: z
       .enum(['A', 'B', 'C', 'D', 'E', 'F', 'G', 'H', 'snow', 'snow-high-altitude', 'wind', 'temperature'])
       .optional()
@@ -26,24 +30,29 @@ export const ActionJson = z
 
 export const DeflectionLimitJson = z.strictObject({
   name: z.string().min(1).max(60),
-  ratio: num('ratio', 'limit = span / ratio'),
+  ratio: num('ratio', 'limit = span / ratio', 1, LIMITS.deflectionRatio),
   combination: z.enum(['characteristic', 'frequent', 'quasi-permanent']).default('characteristic'),
   include: z.enum(['all', 'variable']).default('all').meta({ description: "'variable': variable actions only" }),
 });
 
 export const FactorsGJson = z
   .strictObject({
-    gammaGsup: num('gammaGsup', '-').optional(),
-    gammaGinf: num('gammaGinf', '-').optional(),
-    gammaQ: num('gammaQ', '-').optional(),
-    xi: num('xi', '-').optional(),
+    gammaGsup: factor('gammaGsup').optional(),
+    gammaGinf: factor('gammaGinf').optional(),
+    gammaQ: factor('gammaQ').optional(),
+    xi: num('xi', '-', 0, 1).optional(),
   })
   .meta({ description: 'EN 1990 Table A1.2(B) factors (recommended 1.35, 1.00, 1.50, ξ 0.85)' });
 
 /** A beam problem: spans (mm, simply supported ends, continuous over inner supports) and actions. */
 export const BeamProblemFields = {
-  spans: z.array(num('span', 'mm')).min(1, { message: 'give at least one span' }).max(20).meta({ description: 'span lengths, mm (24000 for 24 m)' }),
-  actions: z.array(ActionJson).max(500),
+  // no lower bound here: a span under 1 m is the analysis's SPAN_IMPLAUSIBLE, with its hint that lengths are in mm
+  spans: z
+    .array(bounded('span', 'mm', Number.NEGATIVE_INFINITY, LIMITS.spanMm))
+    .min(1, { message: 'give at least one span' })
+    .max(LIMITS.spans, { message: `at most ${LIMITS.spans} spans` })
+    .meta({ description: `span lengths, mm (24000 for 24 m), each at most ${LIMITS.spanMm}` }),
+  actions: z.array(ActionJson).max(LIMITS.actions, { message: `at most ${LIMITS.actions} actions` }),
   combination: z.enum(['6.10', '6.10ab']).default('6.10').meta({ description: 'EN 1990 eq. 6.10, or the worse of 6.10a and 6.10b' }),
   factors: FactorsGJson.optional(),
   deflection: z.array(DeflectionLimitJson).max(10).optional().meta({ description: 'default: total span/250 and variable span/360, characteristic' }),
@@ -53,14 +62,24 @@ export const BeamProblemFields = {
 /** Design effects from the user's own global analysis (bridges, frames). */
 export const EnvelopeJson = z
   .strictObject({
-    length: num('length', 'mm'),
-    supports: z.array(num('support', 'mm')).min(2).max(21).optional().meta({ description: 'support positions, mm; default both ends' }),
+    length: num('length', 'mm', Number.NEGATIVE_INFINITY, LIMITS.lengthMm),
+    supports: z.array(position('support', 'mm')).min(2).max(LIMITS.spans + 1).optional().meta({ description: 'support positions, mm; default both ends' }),
     stations: z
-      .array(z.strictObject({ x: num('x', 'mm'), M: num('M', 'kNm, sagging positive'), V: num('V', 'kN') }))
+      .array(z.strictObject({ x: position('x', 'mm'), M: num('M', 'kNm, sagging positive', -LIMITS.momentKNm, LIMITS.momentKNm), V: num('V', 'kN', -LIMITS.forceKN, LIMITS.forceKN) }))
       .min(1)
-      .max(20_000),
-    reactions: z.array(z.strictObject({ x: num('x', 'mm'), R: num('R', 'kN') })).max(21).optional(),
-    forces: z.array(z.strictObject({ x: num('x', 'mm'), F: num('F', 'kN'), ss: num('ss', 'mm') })).max(500).optional(),
+      .max(LIMITS.stations, { message: `at most ${LIMITS.stations} stations` }),
+    reactions: z.array(z.strictObject({ x: position('x', 'mm'), R: num('R', 'kN', -LIMITS.forceKN, LIMITS.forceKN) })).max(LIMITS.spans + 1).optional(),
+    forces: z.array(z.strictObject({ x: position('x', 'mm'), F: num('F', 'kN', -LIMITS.forceKN, LIMITS.forceKN), ss: num('ss', 'mm', 0, LIMITS.bearingLengthMm) })).max(LIMITS.actions).optional(),
+  })
+  .superRefine((e, ctx) => {
+    // each span of the envelope within the span limit, as a beam problem's
+    const xs = e.supports ? [...e.supports].sort((a, b) => a - b) : [0, e.length];
+    for (let i = 1; i < xs.length; i++) {
+      if (xs[i]! - xs[i - 1]! > LIMITS.spanMm) {
+        ctx.addIssue({ code: 'custom', path: e.supports ? ['supports'] : ['length'], message: `a span of ${xs[i]! - xs[i - 1]!} mm between supports is over ${LIMITS.spanMm} mm (300 m)` });
+        break;
+      }
+    }
   })
   .meta({ id: 'Envelope' });
 

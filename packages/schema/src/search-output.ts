@@ -1,4 +1,4 @@
-import type { Evaluated, SearchResult } from '@platesmith/search';
+import type { Evaluated, SearchResult, SearchStatus } from '@platesmith/search';
 import { fromSection } from './convert.js';
 import { publishCheck, type PublishedCheck } from './output.js';
 import type { SectionJson } from './section.js';
@@ -26,7 +26,16 @@ export interface PublishedMiss {
   failing: string[];
 }
 
+/** Why a search stopped before the end of its space. */
+export type SearchAbort = { reason: 'time-budget'; budgetMs: number };
+
 export interface PublishedSearch {
+  /** exact: the whole space searched; infeasible: the whole space searched, nothing passes; aborted: stopped early, the points verified but the set possibly incomplete */
+  status: SearchStatus;
+  /** the status in words, for a reader */
+  message: string;
+  /** present when status is aborted: why */
+  abort?: SearchAbort;
   objective: 'mass' | 'cost';
   pareto: PublishedPoint[];
   lightest: PublishedPoint | null;
@@ -50,8 +59,20 @@ export function publishPoint(e: Evaluated, length: number): PublishedPoint {
   };
 }
 
-export function publishSearch(r: SearchResult, objective: 'mass' | 'cost', length: number): PublishedSearch {
+/** The status of a search in words: what a reader may and may not conclude from the answer. */
+export function searchMessage(r: Pick<SearchResult, 'status' | 'pareto' | 'stats'>, abort?: SearchAbort): string {
+  const n = r.pareto.length;
+  if (r.status === 'exact') return `exact: the whole space of ${r.stats.spaceSize.toExponential(2)} candidates was searched; the ${n} Pareto point(s) are the exact set`;
+  if (r.status === 'infeasible') return `infeasible: the whole space of ${r.stats.spaceSize.toExponential(2)} candidates was searched and no section passes every check; see the nearest misses`;
+  const why = abort?.reason === 'time-budget' ? `at its time budget of ${abort.budgetMs} ms` : 'before the end of its space';
+  return `aborted ${why}: each of the ${n} point(s) found passes every check, but the set may be incomplete (a lighter section may exist at some depth); narrow the space or raise the budget for the exact set`;
+}
+
+export function publishSearch(r: SearchResult, objective: 'mass' | 'cost', length: number, abort?: SearchAbort): PublishedSearch {
   return {
+    status: r.status,
+    message: searchMessage(r, abort),
+    ...(r.status === 'aborted' && abort ? { abort } : {}),
     objective,
     pareto: r.pareto.map((e) => publishPoint(e, length)),
     lightest: r.lightest ? publishPoint(r.lightest, length) : null,

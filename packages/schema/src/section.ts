@@ -1,12 +1,14 @@
 import { z } from 'zod';
 import { GRADES } from '@platesmith/catalogue';
+import { LIMITS } from './limits.js';
 
 /** A plate dimension in mm: finite, positive, and plausible for a girder plate. */
-export const mm = (what: string, max = 100_000) =>
+export const mm = (what: string, max = 100_000, min = 0) =>
   z
     .number({ error: `${what} must be a number of mm` })
     .refine(Number.isFinite, { message: `${what} must be finite` })
     .refine((v) => v > 0, { message: `${what} must be positive (mm)` })
+    .refine((v) => v >= min, { message: `${what} under ${min} mm is not a girder's; lengths are in mm` })
     .refine((v) => v <= max, { message: `${what} over ${max} mm is not a girder plate; lengths are in mm` })
     .meta({ description: `${what}, mm` });
 
@@ -14,31 +16,32 @@ export const Grade = z.enum(GRADES as unknown as [string, ...string[]], { error:
   description: 'steel grade (EN 10025-2: S235, S275, S355; EN 10025-4: S420, S460)',
 });
 
+// least plate dimensions: nothing thinner than 1 mm or narrower than 10 mm is a girder's plate (common practice, no source)
 export const Plate = (what: string) =>
   z.strictObject({
-    width: mm(`${what} width`, 3000),
-    thickness: mm(`${what} thickness`, 150),
+    width: mm(`${what} width`, 3000, 10),
+    thickness: mm(`${what} thickness`, 150, 1),
   });
 
 export const Web = z.strictObject({
-  depth: mm('web depth hw (clear, between flanges)', 10_000),
-  thickness: mm('web thickness tw', 150),
+  depth: mm('web depth hw (clear, between flanges)', 10_000, 100),
+  thickness: mm('web thickness tw', 150, 1),
 });
 
 export const Stiffeners = z
   .strictObject({
-    spacing: mm('stiffener spacing a', 100_000),
-    width: mm('stiffener flat outstand bs', 1000),
-    thickness: mm('stiffener flat thickness ts', 150),
+    spacing: mm('stiffener spacing a', LIMITS.spanMm, LIMITS.stiffenerSpacingMm),
+    width: mm('stiffener flat outstand bs', 1000, 10),
+    thickness: mm('stiffener flat thickness ts', 150, 1),
     sides: z.union([z.literal(1), z.literal(2)]).default(2).meta({ description: 'flats on one or both faces of the web' }),
   })
   .meta({ description: 'intermediate transverse stiffeners (full web depth)' });
 
 export const Bearing = z
   .strictObject({
-    width: mm('bearing stiffener outstand', 1000),
-    thickness: mm('bearing stiffener thickness', 150),
-    spacing: mm('distance e between the two pairs of a rigid end post', 5000).optional(),
+    width: mm('bearing stiffener outstand', 1000, 10),
+    thickness: mm('bearing stiffener thickness', 150, 1),
+    spacing: mm('distance e between the two pairs of a rigid end post', 5000, 10).optional(),
   })
   .meta({ description: 'bearing stiffeners at supports (double-sided); default from the stiffener flats or the flange outstand' });
 

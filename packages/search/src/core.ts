@@ -63,6 +63,16 @@ export interface SliceResult {
   pruned: PruneStats;
   /** candidates judged that failed, by the first check that failed them */
   failedBy: Record<string, number>;
+  /**
+   * false when the slice was stopped before its heap ran empty (a time budget): its front holds
+   * verified points, but points of the exact front may be missing. Absent means complete.
+   */
+  complete?: boolean;
+}
+
+/** Every prune count at zero (a slice before its search, or one that never ran). */
+export function zeroPrunes(): PruneStats {
+  return { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, patchBending: 0, lateralTorsional: 0, bearing: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 };
 }
 
 /** Total order on (value, key): the tie-break that makes the answer unique and equal to brute force. */

@@ -20,5 +20,5 @@ export { searchSlice, unitSlot, type OuterBound, type SlicePart } from './slice/
 export { prepareSearch, better, type SearchProblem, type Objective, type Evaluated, type CandidateKey, type SliceResult, type PruneStats, type Prepared } from './core.js';
 export { paretoFront } from './pareto.js';
 export { bruteForce } from './brute.js';
-export { search, mergeSlices, type SearchResult } from './search.js';
+export { search, mergeSlices, watchStop, type SearchResult, type SearchStatus } from './search.js';
 export { problemOf, stiffenerStations, type SearchTask } from './task.js';

@@ -4,7 +4,7 @@ import { Piscina } from 'piscina';
 import { mergeSlices, type SearchResult } from './search.js';
 import { assertSpace, flangeGroups, spaceSize, webPlateCounts } from './space.js';
 import type { SearchTask } from './task.js';
-import type { SliceResult } from './core.js';
+import { zeroPrunes, type SliceResult } from './core.js';
 import type { WorkerMessage } from './worker.js';
 import { createSharedStairs, depthGrid } from './shared-bound.js';
 import { warmUpTasks } from './warm-up.js';
@@ -19,11 +19,25 @@ export interface SearchPool {
   close(): Promise<void>;
 }
 
-export function createSearchPool(opts: { threads?: number; maxQueue?: number; onError?: (e: unknown) => void } = {}): SearchPool {
-  const fromSource = import.meta.url.endsWith('.ts');
+export interface SearchPoolOptions {
+  threads?: number;
+  maxQueue?: number;
+  onError?: (e: unknown) => void;
+  /**
+   * the worker module (default this package's worker): a module whose default export handles
+   * this package's WorkerMessage and may handle more kinds (the application's worker, a test's
+   * fixture worker). A .ts file runs with the TypeScript loader.
+   */
+  filename?: string | URL;
+}
+
+export function createSearchPool(opts: SearchPoolOptions = {}): SearchPool {
+  const own = import.meta.url.endsWith('.ts') ? './worker.ts' : './worker.js';
+  const filename = new URL(opts.filename ?? own, import.meta.url).href;
+  const fromSource = filename.endsWith('.ts');
   const threads = Math.max(1, opts.threads ?? availableParallelism());
   const piscina = new Piscina({
-    filename: new URL(fromSource ? './worker.ts' : './worker.js', import.meta.url).href,
+    filename,
     minThreads: threads,
     maxThreads: threads,
     maxQueue: opts.maxQueue ?? threads * 64,
@@ -48,7 +62,21 @@ export async function pingPool(pool: SearchPool, signal?: AbortSignal): Promise<
  * the workers share a staircase of feasible values by depth (shared-bound.ts) so that one
  * worker's light sections prune the others' nodes at once.
  */
-export async function searchOnPool(pool: SearchPool, task: SearchTask, signal?: AbortSignal, onSlice?: (done: number, total: number) => void): Promise<SearchResult> {
+export interface PoolSearchOptions {
+  /** aborts at once (the client went away): the workers are stopped and the search rejects */
+  signal?: AbortSignal;
+  /**
+   * stops the search cooperatively (a time budget): each worker returns the verified points it
+   * has found so far, and the answer is `aborted`
+   */
+  stop?: AbortSignal;
+  /** after `stop`, how long the workers may take to return before they are aborted, ms (default 2000) */
+  stopGraceMs?: number;
+  onSlice?: (done: number, total: number) => void;
+}
+
+export async function searchOnPool(pool: SearchPool, task: SearchTask, o: PoolSearchOptions = {}): Promise<SearchResult> {
+  const onSlice = o.onSlice;
   const t0 = performance.now();
   assertSpace(task.space);
   // plates as contiguous runs of web indices (webConfigs order), counted without building them: a short message
@@ -66,16 +94,41 @@ export async function searchOnPool(pool: SearchPool, task: SearchTask, signal?: 
   const nSlices = Math.max(1, pool.threads);
   const shared = createSharedStairs(depthGrid(task.space, groups));
   const searchId = randomUUID();
+  // the stop flag the workers poll (only when a stop is asked for: a search without one runs as
+  // before); past the grace the slices still running are aborted outright
+  const stopFlag = new SharedArrayBuffer(4);
+  const late = new AbortController();
+  const runSignal = o.signal ? AbortSignal.any([o.signal, late.signal]) : late.signal;
+  let grace: ReturnType<typeof setTimeout> | undefined;
+  const onStop = (): void => {
+    Atomics.store(new Int32Array(stopFlag), 0, 1);
+    grace = setTimeout(() => late.abort(new DOMException('the search did not stop within its grace', 'AbortError')), o.stopGraceMs ?? 2000);
+  };
+  if (o.stop?.aborted) onStop();
+  else o.stop?.addEventListener('abort', onStop, { once: true });
   let done = 0;
-  const results = await Promise.all(
-    Array.from({ length: nSlices }, (_, slot) =>
-      (pool.piscina.run({ kind: 'slice', task, runs: plates, shared, searchId, ...(nSlices > 1 ? { part: { slot, of: nSlices } } : {}) } satisfies WorkerMessage, signal ? { signal } : {}) as Promise<SliceResult>).then((r) => {
-        onSlice?.(++done, nSlices);
-        return r;
-      }),
-    ),
-  );
-  return mergeSlices(results, performance.now() - t0, pool.threads, n, spaceSize(task.space));
+  try {
+    const settled = await Promise.allSettled(
+      Array.from({ length: nSlices }, (_, slot) =>
+        (pool.piscina.run({ kind: 'slice', task, runs: plates, shared, searchId, ...(o.stop ? { stop: stopFlag } : {}), ...(nSlices > 1 ? { part: { slot, of: nSlices } } : {}) } satisfies WorkerMessage, { signal: runSignal }) as Promise<SliceResult>).then((r) => {
+          onSlice?.(++done, nSlices);
+          return r;
+        }),
+      ),
+    );
+    if (o.signal?.aborted) throw o.signal.reason;
+    const results: SliceResult[] = [];
+    for (const s of settled) {
+      if (s.status === 'fulfilled') results.push(s.value);
+      // a slice aborted after its grace: its points are lost, the answer is incomplete
+      else if (late.signal.aborted) results.push({ front: [], nearMisses: [], spaceSize: 0, fullEvaluations: 0, pruned: zeroPrunes(), failedBy: {}, complete: false });
+      else throw s.reason;
+    }
+    return mergeSlices(results, performance.now() - t0, pool.threads, n, spaceSize(task.space));
+  } finally {
+    clearTimeout(grace);
+    o.stop?.removeEventListener('abort', onStop);
+  }
 }
 
 /**
@@ -86,7 +139,7 @@ export async function searchOnPool(pool: SearchPool, task: SearchTask, signal?: 
 export async function warmPool(pool: SearchPool, rounds = 3, signal?: AbortSignal): Promise<number> {
   const t0 = performance.now();
   const tasks = warmUpTasks();
-  for (let r = 0; r < rounds; r++) for (const t of tasks) await searchOnPool(pool, t, signal);
+  for (let r = 0; r < rounds; r++) for (const t of tasks) await searchOnPool(pool, t, signal ? { signal } : {});
   return performance.now() - t0;
 }
 

@@ -1,5 +1,6 @@
 import { prepareSearch, type Prepared, type SliceResult } from './core.js';
 import { searchSlice, type SlicePart } from './slice/best-first.js';
+import { watchStop } from './search.js';
 import { problemOf, type SearchTask } from './task.js';
 import { SharedStairs, type SharedStairsData } from './shared-bound.js';
 
@@ -19,29 +20,28 @@ export interface SliceMessage {
   part?: SlicePart;
   /** the same for every slice of one search: lets a worker prepare the search once */
   searchId?: string;
+  /**
+   * a stop flag (one Int32, set to 1 by the pool at the search's time budget): the slice then
+   * returns the verified points found so far, marked incomplete
+   */
+  stop?: SharedArrayBuffer;
 }
 
 export interface PingMessage {
   kind: 'ping';
 }
 
-/** Test hook: a deliberately failing task (used to prove the pool survives a crashing worker). */
-export interface CrashMessage {
-  kind: 'crash';
-  how: 'throw' | 'exit';
-}
-
-export type WorkerMessage = SliceMessage | PingMessage | CrashMessage;
+export type WorkerMessage = SliceMessage | PingMessage;
 
 export default function run(msg: WorkerMessage): SliceResult | 'pong' {
   if (msg.kind === 'ping') return 'pong';
-  if (msg.kind === 'crash') {
-    if (msg.how === 'exit') process.exit(3);
-    throw new Error('deliberate worker failure');
-  }
+  if (msg.kind !== 'slice') throw new Error(`unknown worker message kind ${String((msg as { kind?: unknown }).kind)}`);
   const runs: [number, number][] = [...(msg.runs ?? [])];
   for (const wi of msg.webIdx ?? []) runs.push([wi, 1]);
-  return searchSlice(preparedFor(msg), runs, undefined, msg.shared ? new SharedStairs(msg.shared) : undefined, msg.part);
+  const flag = msg.stop ? new Int32Array(msg.stop) : undefined;
+  const w = flag ? watchStop(() => Atomics.load(flag, 0) !== 0) : undefined;
+  const r = searchSlice(preparedFor(msg), runs, w?.signal, msg.shared ? new SharedStairs(msg.shared) : undefined, msg.part);
+  return w?.cut() ? { ...r, complete: false } : r;
 }
 
 /** The last searches prepared in this worker (a search's slices all carry its id). */

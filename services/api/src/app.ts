@@ -1,24 +1,23 @@
 import { randomUUID } from 'node:crypto';
 import { fastifySSE } from '@fastify/sse';
 import { DEFAULT_SPACE_CAP } from '@platesmith/schema';
-import { searchOnPool } from '@platesmith/search/pool';
-import Fastify, { type FastifyBaseLogger, type FastifyInstance, type FastifyServerOptions } from 'fastify';
+import { runSchedule } from '@platesmith/schedule';
+import Fastify, { LogController, type FastifyBaseLogger, type FastifyInstance, type FastifyServerOptions } from 'fastify';
 import { ApiError } from './errors.js';
-import { runScheduleJob } from './domain.js';
 import { JobManager, type JobManagerOptions } from './jobs/manager.js';
 import type { ApiKeys } from './keys.js';
 import { accessPlugin } from './plugins/access.js';
 import { MemoryJobStore, type JobStore } from './jobs/store.js';
 import { docsPlugin } from './plugins/docs.js';
-import { poolPlugin } from './plugins/pool.js';
-import { problemPlugin } from './plugins/problem.js';
+import { enginePlugin } from './plugins/engine.js';
+import { guardPlugin } from './plugins/guard.js';
+import { clientError, frameworkError, problemPlugin } from './plugins/problem.js';
 import { checkRoutes } from './routes/checks.js';
 import { effectsRoutes } from './routes/effects.js';
 import { healthRoutes } from './routes/health.js';
 import { recordRoutes } from './routes/records.js';
 import { scheduleRoutes } from './routes/schedules.js';
 import { searchRoutes } from './routes/searches.js';
-import { testHookRoutes } from './routes/test-hooks.js';
 import { zodValidator } from './validate.js';
 
 export interface ApiOptions {
@@ -32,13 +31,25 @@ export interface ApiOptions {
   threads?: number;
   /** warm the search workers up in the background once ready (default off; the server turns it on) */
   warmUp?: boolean;
-  /** synchronous searches in flight before 503 POOL_SATURATED (default 4 per thread) */
+  /** synchronous requests (checks, effects, searches) on the workers before 503 POOL_SATURATED (default 4 per thread) */
   maxActiveSearches?: number;
-  /** default and greatest time budget of a synchronous search, ms (30 000 and 300 000) */
+  /** default and greatest time budget of a synchronous /v1 POST (check, effects, search), ms (30 000 and 300 000) */
   defaultBudgetMs?: number;
   maxBudgetMs?: number;
+  /** the worker module of the pool (default the application's worker; tests pass a fixture worker) */
+  workerFile?: string | URL;
   /** cap on the candidates of one space (default DEFAULT_SPACE_CAP) */
   spaceCap?: number;
+  /** event-loop delay past which requests and /health answer 503 OVERLOADED, ms (default 1000) */
+  maxEventLoopDelayMs?: number;
+  /** Host header values answered (host or host:port); unset: any */
+  allowedHosts?: readonly string[];
+  /** receiving a whole request, ms (default 30 000); its headers, ms (default 10 000); an idle keep-alive socket, ms (default 5 000) */
+  requestTimeoutMs?: number;
+  headersTimeoutMs?: number;
+  keepAliveTimeoutMs?: number;
+  /** open connections at once (default 1024); more are refused by the socket */
+  maxConnections?: number;
   /** where schedule jobs live (default in memory) */
   jobStore?: JobStore;
   /** marks of schedule jobs searched at once (1: each uses every worker) and jobs queued or running before 503 (100) */
@@ -46,32 +57,51 @@ export interface ApiOptions {
   maxQueuedJobs?: number;
   /** API keys (PLATESMITH_API_KEYS / _FILE); null or absent: /v1 is open */
   keys?: ApiKeys | null;
-  /** requests a minute per key, or per client address without keys; 0: no limit (PLATESMITH_RATE_LIMIT, default 600) */
+  /** requests a minute per key, or per client address without keys; 0: no limit (PLATESMITH_RATE_LIMIT, default 1200) */
   rateLimit?: number;
   /** per-key quota, time budgets and retention of schedule jobs (PLATESMITH_JOB_QUOTA, _MARK_BUDGET_MS, _JOB_BUDGET_MS, _JOB_RETENTION) */
   jobs?: Pick<JobManagerOptions, 'quota' | 'markBudgetMs' | 'jobBudgetMs' | 'retentionMs'>;
-  /** adds the internal test routes (worker crash); never in production */
-  testHooks?: boolean;
 }
 
 declare module 'fastify' {
   interface FastifyInstance {
     jobs: JobManager;
+    /** aborts when the service starts closing: in-flight checks, analyses and searches stop */
+    shutdownSignal: AbortSignal;
   }
 }
 
+/** A client's request id is echoed only when it is this plain and short. */
+const REQUEST_ID = /^[A-Za-z0-9._:-]{1,64}$/;
+
 /** The service as a Fastify instance, not listening (server.ts listens; tests build their own). */
 export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> {
+  const headersTimeout = opts.headersTimeoutMs ?? 10_000;
   const app = Fastify({
     ...(opts.loggerInstance ? { loggerInstance: opts.loggerInstance } : { logger: opts.logger ?? false }),
     bodyLimit: opts.bodyLimit ?? 1024 * 1024,
-    genReqId: () => randomUUID(),
-    requestIdHeader: 'x-request-id',
+    // a client's x-request-id is kept only when short and plain (never an 8 kB echo); else a new one
+    genReqId: (req) => {
+      const given = req.headers['x-request-id'];
+      return typeof given === 'string' && REQUEST_ID.test(given) ? given : randomUUID();
+    },
+    requestIdHeader: false,
+    // one line per request (guard.ts), not fastify's two
+    logController: new LogController({ disableRequestLogging: true }),
     onProtoPoisoning: 'error',
     onConstructorPoisoning: 'error',
     return503OnClosing: false,
+    // the boot ping waits for the workers to load (up to 60 s on a loaded host): past fastify's 10 s default
+    pluginTimeout: 90_000,
     routerOptions: { ignoreTrailingSlash: true },
+    requestTimeout: opts.requestTimeoutMs ?? 30_000,
+    keepAliveTimeout: opts.keepAliveTimeoutMs ?? 5_000,
+    // node checks the request and header timeouts on this interval (30 s by default: too coarse)
+    http: { headersTimeout, connectionsCheckingInterval: Math.min(1000, headersTimeout) },
+    frameworkErrors: frameworkError,
+    clientErrorHandler: clientError,
   });
+  app.server.maxConnections = opts.maxConnections ?? 1024;
   // JSON only: a text/plain body is 415, not a string handed to the schema
   app.removeContentTypeParser('text/plain');
   app.setValidatorCompiler(zodValidator);
@@ -79,6 +109,8 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
   app.setSerializerCompiler(() => (data) => JSON.stringify(data));
 
   let closing = false;
+  const shutdown = new AbortController();
+  app.decorate('shutdownSignal', shutdown.signal);
   app.addHook('onRequest', async (req, reply) => {
     void reply.header('x-request-id', String(req.id));
     if (closing) throw new ApiError('SHUTTING_DOWN', 'the service is shutting down', { retryAfter: 5 });
@@ -90,21 +122,27 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
   });
 
   await app.register(problemPlugin);
+  await app.register(guardPlugin, {
+    ...(opts.maxEventLoopDelayMs !== undefined ? { maxEventLoopDelayMs: opts.maxEventLoopDelayMs } : {}),
+    ...(opts.allowedHosts !== undefined ? { allowedHosts: opts.allowedHosts } : {}),
+  });
   await app.register(accessPlugin, { keys: opts.keys ?? null, ...(opts.rateLimit !== undefined ? { rateLimit: opts.rateLimit } : {}) });
   await app.register(docsPlugin);
   await app.register(fastifySSE, { heartbeatInterval: 15_000 });
-  await app.register(poolPlugin, {
+  const spaceCap = opts.spaceCap ?? DEFAULT_SPACE_CAP;
+  await app.register(enginePlugin, {
+    spaceCap,
     ...(opts.threads !== undefined ? { threads: opts.threads } : {}),
-    ...(opts.maxActiveSearches !== undefined ? { maxActiveSearches: opts.maxActiveSearches } : {}),
+    ...(opts.maxActiveSearches !== undefined ? { maxActive: opts.maxActiveSearches } : {}),
     ...(opts.warmUp !== undefined ? { warmUp: opts.warmUp } : {}),
+    ...(opts.workerFile !== undefined ? { workerFile: opts.workerFile } : {}),
   });
 
-  const spaceCap = opts.spaceCap ?? DEFAULT_SPACE_CAP;
   // schedules search on the same pool, outside the synchronous searches' gate: each mark takes a
   // fair turn (round-robin over keys, then jobs) within the mark's and the job's time budgets
   const jobs = new JobManager(
     opts.jobStore ?? new MemoryJobStore(),
-    (input, signal, onProgress, turn) => runScheduleJob(input, (task) => turn((s) => searchOnPool(app.searcher.pool, task, s)), signal, onProgress, spaceCap),
+    (input, signal, onProgress, turn) => runSchedule(input, { search: (task) => turn((s) => app.engine.searchTask(task, s)), onProgress, spaceCap }, signal),
     {
       ...opts.jobs,
       ...(opts.jobConcurrency !== undefined ? { slots: opts.jobConcurrency } : {}),
@@ -123,19 +161,20 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
   });
   app.addHook('preClose', async () => {
     closing = true;
+    shutdown.abort(new DOMException('the service is shutting down', 'AbortError'));
     await jobs.shutdown();
   });
   app.addHook('onClose', async () => {
     await jobs.store.close();
   });
 
+  const budget = { defaultMs: opts.defaultBudgetMs ?? 30_000, maxMs: opts.maxBudgetMs ?? 300_000 };
   await app.register(healthRoutes);
-  await app.register(checkRoutes);
-  await app.register(effectsRoutes);
-  await app.register(searchRoutes, { defaultBudgetMs: opts.defaultBudgetMs ?? 30_000, maxBudgetMs: opts.maxBudgetMs ?? 300_000, spaceCap });
+  await app.register(checkRoutes, { budget });
+  await app.register(effectsRoutes, { budget });
+  await app.register(searchRoutes, { budget, spaceCap });
   await app.register(scheduleRoutes, { jobs });
   await app.register(recordRoutes, { jobs });
-  if (opts.testHooks) await app.register(testHookRoutes);
   return app;
 }
 

@@ -1,4 +1,4 @@
-import type { FieldIssue } from '@platesmith/schema';
+import { MAX_LISTED_ISSUES, type FieldIssue } from '@platesmith/schema';
 
 /**
  * The one table of the service's error codes. docs/api.md carries the same table (a test keeps
@@ -11,26 +11,33 @@ export const ERROR_CODES = {
   INVALID_REQUEST: { status: 400, title: 'Request does not match the schema', when: 'wrong types, unknown or missing fields (each field named in errors)' },
   UNAUTHORIZED: { status: 401, title: 'Unauthorized', when: 'keys are on and the request has no Authorization: Bearer header, or an unknown key' },
   NOT_FOUND: { status: 404, title: 'Not found', when: 'no such route' },
+  METHOD_NOT_ALLOWED: { status: 405, title: 'Method not allowed', when: 'the path exists with other methods (listed in Allow)' },
   JOB_NOT_FOUND: { status: 404, title: 'No such schedule job', when: 'the job id is unknown, was deleted, or belongs to another key' },
   MARK_NOT_FOUND: { status: 404, title: 'No such mark', when: 'the schedule job has no girder of that mark' },
   NOT_ACCEPTABLE: { status: 406, title: 'Not acceptable', when: 'the events stream asked for with an Accept that refuses text/event-stream; a PDF asked for where chromium is not installed' },
   NO_SECTION: { status: 409, title: 'No section to record', when: 'the record of a mark that has no adopted section and no feasible section' },
   JOB_NOT_FINISHED: { status: 409, title: 'Schedule not finished', when: 'the result of a job that is queued, running, failed or cancelled; the record of a mark not finished yet' },
+  REQUEST_TIMEOUT: { status: 408, title: 'Request timeout', when: 'the request (headers or body) was not received within the server\'s timeout' },
   BODY_TOO_LARGE: { status: 413, title: 'Body too large', when: 'the body is over the limit (1 MiB by default)' },
+  URI_TOO_LONG: { status: 414, title: 'URI too long', when: 'a path parameter of the URL is over the length limit' },
   UNSUPPORTED_MEDIA_TYPE: { status: 415, title: 'Unsupported media type', when: 'a body that is not application/json' },
+  HOST_NOT_ALLOWED: { status: 421, title: 'Host not allowed', when: 'the Host header is not in PLATESMITH_ALLOWED_HOSTS' },
   INVALID_VALUE: { status: 422, title: 'Request values are not meaningful', when: 'well-formed, but a value is out of range or inconsistent (each field named in errors)' },
   UNPROCESSABLE: { status: 422, title: 'Input outside the scope of the checks', when: 'a domain error from the engineering packages; code, field and hint are the domain error\'s' },
   JOB_QUOTA_EXCEEDED: { status: 429, title: 'Job quota reached', when: 'the key already has its quota of schedule jobs queued or running (PLATESMITH_JOB_QUOTA); retry after Retry-After seconds' },
   RATE_LIMITED: { status: 429, title: 'Too many requests', when: 'the key (or the client address, without keys) is over PLATESMITH_RATE_LIMIT requests a minute; retry after Retry-After seconds' },
-  POOL_SATURATED: { status: 503, title: 'Search workers busy', when: 'too many searches in flight or queued; retry after Retry-After seconds' },
+  POOL_SATURATED: { status: 503, title: 'Workers busy', when: 'too many checks, analyses or searches in flight or queued; retry after Retry-After seconds' },
+  HEADERS_TOO_LARGE: { status: 431, title: 'Request header fields too large', when: 'the request\'s headers are over the HTTP parser\'s limit (16 KiB)' },
+  OVERLOADED: { status: 503, title: 'Service overloaded', when: 'the event loop is lagging past its limit (PLATESMITH_MAX_EVENT_LOOP_DELAY_MS), /health included; retry after Retry-After seconds' },
   JOBS_SATURATED: { status: 503, title: 'Schedule queue full', when: 'too many schedule jobs queued or running over all keys (100); retry after Retry-After seconds' },
   STORE_BUSY: { status: 503, title: 'Job store busy', when: 'another connection holds the job store\'s lock; retry after Retry-After seconds' },
   STORE_UNAVAILABLE: { status: 503, title: 'Job store unavailable', when: 'the job store is full, corrupt, read-only or failing; /ready answers 503 and the log says why' },
-  TIME_BUDGET_EXCEEDED: { status: 503, title: 'Search time budget exceeded', when: 'the search ran past its budgetMs and was aborted' },
+  TIME_BUDGET_EXCEEDED: { status: 503, title: 'Time budget exceeded', when: 'a check or an analysis ran past its budgetMs and was stopped (a search answers 200 with status aborted instead)' },
+  CANCELLED: { status: 503, title: 'Request cancelled', when: 'the client went away before the answer; the work was stopped (nobody reads this answer; it is in the log)' },
   SHUTTING_DOWN: { status: 503, title: 'Service shutting down', when: 'the service is closing; retry on another instance' },
   PRINT_FAILED: { status: 503, title: 'PDF printing failed', when: 'chromium did not print the record in time, or too many prints are running; retry after Retry-After seconds, or ask for the HTML' },
   NOT_READY: { status: 503, title: 'Not ready', when: 'the worker pool did not answer a ping, or the job store is unusable (the detail says why)' },
-  WORKER_FAILED: { status: 500, title: 'Search worker failed', when: 'a worker thread threw or died; the pool replaces it, retry' },
+  WORKER_FAILED: { status: 500, title: 'Worker failed', when: 'a worker thread threw or died; the pool replaces it, retry' },
   INTERNAL: { status: 500, title: 'Internal error', when: 'anything else; the full error is in the log under the request id' },
 } as const satisfies Record<string, { status: number; title: string; when: string }>;
 
@@ -59,7 +66,9 @@ export class RequestInvalid extends Error {
   readonly statusCode: number;
   readonly code: 'INVALID_REQUEST' | 'INVALID_VALUE';
   constructor(issues: FieldIssue[]) {
-    super(issues.map((i) => `${i.path || '(body)'}: ${i.message}`).join('; '));
+    const shown = issues.slice(0, MAX_LISTED_ISSUES).map((i) => `${i.path || '(body)'}: ${i.message}`);
+    if (issues.length > MAX_LISTED_ISSUES) shown.push(`and ${issues.length - MAX_LISTED_ISSUES} more`);
+    super(shown.join('; '));
     this.name = 'RequestInvalid';
     this.issues = issues;
     this.code = issues.some((i) => i.kind === 'shape') ? 'INVALID_REQUEST' : 'INVALID_VALUE';

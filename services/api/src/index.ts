@@ -3,6 +3,7 @@
  */
 export { buildApp, type ApiOptions } from './app.js';
 export { startServer } from './server.js';
+export { SETTINGS, optionsFromEnv } from './settings.js';
 export { ERROR_CODES, ApiError, RequestInvalid, problemType, type ErrorCode } from './errors.js';
 export { MemoryJobStore, TERMINAL, summaryOf, type JobStore, type JobRecord, type JobSummary, type JobPatch, type JobState, type StoreHealth } from './jobs/store.js';
 export { JobManager, JOB_DEFAULTS, type JobEvent, type ScheduleWork, type JobManagerOptions, type Turn } from './jobs/manager.js';
@@ -12,6 +13,6 @@ export { settingsFromEnv, parseDuration } from './team-settings.js';
 export { DEFAULT_RATE_LIMIT, AUTH_FAILURES_PER_MINUTE } from './plugins/access.js';
 export { generateOpenApi, GENERATED_NOTE } from './openapi.js';
 export { API_DESCRIPTION, API_VERSION } from './plugins/docs.js';
-export { checkSection, parseCheckRequest, CheckRequest, searchPlates, analyseProblem, runScheduleJob } from './domain.js';
+export { ProblemDetailsJson } from './problem-json.js';
 export { JobStatusJson, statusOf } from './routes/schedules.js';
 export { SqliteJobStore, openJobStore, JOB_STORE_VERSION, DEFAULT_DB_PATH, DEFAULT_BUSY_TIMEOUT_MS } from './jobs/sqlite.js';

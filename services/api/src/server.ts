@@ -2,6 +2,7 @@ import closeWithGrace from 'close-with-grace';
 import { buildApp, type ApiOptions } from './app.js';
 import { openJobStore } from './jobs/sqlite.js';
 import { isLoopback, settingsFromEnv } from './team-settings.js';
+import { optionsFromEnv } from './settings.js';
 
 /**
  * Starts the service: HOST and PORT from the environment (default 127.0.0.1:8080), pino logs at
@@ -14,7 +15,7 @@ export async function startServer(opts: ApiOptions & { host?: string; port?: num
   const team = settingsFromEnv();
   // jobs are kept in SQLite (PLATESMITH_DB, default .platesmith/jobs.sqlite) so a restart loses no finished mark
   const jobStore = opts.jobStore ?? openJobStore();
-  const app = await buildApp({ logger: { level: process.env.LOG_LEVEL ?? 'info' }, warmUp: true, ...team, ...opts, jobs: { ...team.jobs, ...opts.jobs }, jobStore });
+  const app = await buildApp({ logger: { level: process.env.LOG_LEVEL ?? 'info' }, warmUp: true, ...optionsFromEnv(), ...team, ...opts, jobs: { ...team.jobs, ...opts.jobs }, jobStore });
   const keys = opts.keys !== undefined ? opts.keys : team.keys;
   // keys rotate without a restart: SIGHUP re-reads PLATESMITH_API_KEYS_FILE (a bad file keeps the keys held)
   const onHup = (): void => {
@@ -29,8 +30,9 @@ export async function startServer(opts: ApiOptions & { host?: string; port?: num
   app.addHook('onClose', async () => void process.off('SIGHUP', onHup));
   const host = opts.host ?? process.env.HOST ?? '127.0.0.1';
   const port = opts.port ?? Number(process.env.PORT ?? 8080);
-  // SIGHUP re-reads the keys (below), it does not close the service
-  const grace = closeWithGrace({ delay: opts.graceMs ?? 10_000, skip: ['SIGHUP'] }, async ({ signal, err }) => {
+  // SIGTERM exits within 10 s whatever runs: past the grace, close-with-grace exits at once;
+  // SIGHUP re-reads the keys (above), it does not close the service
+  const grace = closeWithGrace({ delay: opts.graceMs ?? 8_000, skip: ['SIGHUP'] }, async ({ signal, err }) => {
     if (err) app.log.error({ err }, 'closing after an uncaught error');
     else app.log.info({ signal }, 'closing');
     await app.close();

@@ -11,3 +11,8 @@ export function clientGone(reply: FastifyReply): AbortSignal {
   });
   return ac.signal;
 }
+
+/** The signal a request's work stops on: its client going away, or the service shutting down. */
+export function requestSignal(reply: FastifyReply, shutdown: AbortSignal): AbortSignal {
+  return AbortSignal.any([clientGone(reply), shutdown]);
+}

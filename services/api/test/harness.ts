@@ -19,7 +19,8 @@ export interface Running {
   close(): Promise<void>;
 }
 
-export async function start(opts: ApiOptions = {}): Promise<Running> {
+/** buildApp's options, and routes a test adds before the server listens (e.g. to drive a fixture worker). */
+export async function start(opts: ApiOptions & { routes?: (app: FastifyInstance) => void } = {}): Promise<Running> {
   const logs: Record<string, unknown>[] = [];
   const sink = new Writable({
     write(chunk, _enc, cb) {
@@ -27,7 +28,10 @@ export async function start(opts: ApiOptions = {}): Promise<Running> {
       cb();
     },
   });
-  const app = await buildApp({ loggerInstance: pino({ level: 'info' }, sink), ...opts });
+  const { routes, ...apiOpts } = opts;
+  // the lag guard only where a test asks for it: on a loaded host a test process may stall past 1 s
+  const app = await buildApp({ loggerInstance: pino({ level: 'info' }, sink), maxEventLoopDelayMs: 60_000, ...apiOpts });
+  routes?.(app);
   const url = await app.listen({ host: '127.0.0.1', port: 0 });
   const contract = new ContractChecker((await (await fetch(`${url}/openapi.json`)).json()) as Record<string, unknown>);
   const read = async (method: string, path: string, r: Response) => {

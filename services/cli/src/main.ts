@@ -15,8 +15,10 @@ export const USAGE = `platesmith — the lightest welded plate girders that pass
 usage:
   platesmith check FILE.json [--json]    check a section: under given effects, or for a problem (self-weight added)
   platesmith effects FILE.json [--json]  the analysis of a problem: reactions, MEd and VEd envelopes
-  platesmith search FILE.json [--json] [--wide] [--quiet]
-                                         exact search of the plate space: Pareto set of depth against mass or cost
+  platesmith search FILE.json [--json] [--wide] [--quiet] [--budget-ms N]
+                                         exact search of the plate space: Pareto set of depth against mass or cost;
+                                         past N ms the points found so far (each passes, the set may be incomplete)
+                                         with a warning on standard error
   platesmith record FILE.json [--out girder.html] [--pdf girder.pdf]
                                          the calculation record of one girder (platesmith record --help)
   platesmith schedule FILE [options]     run a girder schedule (.json or .csv): every mark searched and its adopted
@@ -29,13 +31,21 @@ usage:
 
 FILE may be - for standard input. Units: mm, kN, kN/m, kNm, MPa, kg.
 --wide shows every column of a table (the default fits 120 columns).
-exit codes: 0 ok, 1 a check fails or no feasible section, 2 bad input, 3 internal error`;
+exit codes: 0 ok (a search stopped at its budget too, with a warning), 1 a check fails or no feasible
+section, 2 bad input, 3 internal error`;
 
 /** One input file and nothing else after the command. */
 function oneFile(positionals: readonly string[], usage: string): string {
   if (positionals.length === 0) throw new InputError(`no input file given\n\n${usage}`);
   if (positionals.length > 1) throw new InputError(`one input file, got ${positionals.length}: ${positionals.join(', ')}\n\n${usage}`);
   return positionals[0]!;
+}
+
+/** `--budget-ms N`: a whole number of ms from 100 to 10^9, in decimal digits (never 0x1000 or 1e3). */
+function budgetArg(v: string | undefined): number | undefined {
+  if (v === undefined) return undefined;
+  if (!/^[0-9]{1,9}$/.test(v) || Number(v) < 100) throw new InputError(`--budget-ms must be a whole number of ms (at least 100) in decimal digits, got '${v.slice(0, 40)}'`);
+  return Number(v);
 }
 
 export async function main(argv: string[], io: Out = stdio): Promise<number> {
@@ -51,8 +61,9 @@ export async function main(argv: string[], io: Out = stdio): Promise<number> {
         return runEffects(readJson(oneFile(a.positionals, USAGE)), a.flags.has('json'), io);
       }
       case 'search': {
-        const a = parseCommand(rest, { switches: ['json', 'wide', 'quiet'] }, USAGE);
-        return await runSearch(readJson(oneFile(a.positionals, USAGE)), a.flags.has('json'), io, { wide: a.flags.has('wide'), quiet: a.flags.has('quiet') });
+        const a = parseCommand(rest, { switches: ['json', 'wide', 'quiet'], valued: ['budget-ms'] }, USAGE);
+        const budgetMs = budgetArg(a.values.get('budget-ms'));
+        return await runSearch(readJson(oneFile(a.positionals, USAGE)), a.flags.has('json'), io, { wide: a.flags.has('wide'), quiet: a.flags.has('quiet'), ...(budgetMs !== undefined ? { budgetMs } : {}) });
       }
       case 'record': {
         if (rest.includes('--help')) {

@@ -44,6 +44,9 @@ export interface CsvSchedule {
 
 export type CsvParsed = { ok: true; value: CsvSchedule } | { ok: false; issues: CsvIssue[] };
 
+/** The most columns a header may have: about four times the known ones (a wider one is not a schedule). */
+export const CSV_MAX_COLUMNS = 100;
+
 /** The columns, in a documented order (see CSV.md beside this file). */
 export const CSV_COLUMNS = [
   'mark',
@@ -303,12 +306,18 @@ export function parseScheduleCsv(text: string | Uint8Array, defaults: Record<str
   const head = records[0];
   if (!head) return { ok: false, issues: [{ row: 0, column: null, message: 'the file has no header row' }] };
   const hr = startRow(head);
+  // a header far wider than the known columns is refused whole, before any per-column work or issue (issue 16)
+  if (head.record.length > CSV_MAX_COLUMNS) {
+    return { ok: false, issues: [{ row: hr, column: null, message: `row ${hr}: the header has ${head.record.length} columns, over the limit of ${CSV_MAX_COLUMNS} (known: ${CSV_COLUMNS.join(', ')})` }] };
+  }
   const header = head.record.map((h) => h.trim().toLowerCase());
   const known = new Set<string>(CSV_COLUMNS);
+  const seenColumns = new Set<string>();
   header.forEach((h, k) => {
     if (h === '') issues.push({ row: hr, column: null, message: `row ${hr}: header cell ${k + 1} is empty` });
     else if (!known.has(h)) issues.push({ row: hr, column: h, message: `row ${hr}, column ${h}: unknown column (known: ${CSV_COLUMNS.join(', ')})` });
-    else if (header.indexOf(h) !== k) issues.push({ row: hr, column: h, message: `row ${hr}, column ${h}: column appears twice` });
+    else if (seenColumns.has(h)) issues.push({ row: hr, column: h, message: `row ${hr}, column ${h}: column appears twice` });
+    seenColumns.add(h);
   });
   for (const c of ['mark', 'quantity'] as const) {
     if (!header.includes(c)) issues.push({ row: hr, column: c, message: `row ${hr}: the header has no ${c} column` });

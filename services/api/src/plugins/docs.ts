@@ -65,7 +65,7 @@ export const docsPlugin = fp(
       transform: routeTransform,
       transformObject: (doc) => withBearer(documentTransform(doc) as OpenApiDoc) as ReturnType<typeof documentTransform>,
     });
-    await app.register(swaggerUi, { routePrefix: '/docs', uiConfig: { docExpansion: 'list', deepLinking: false } });
+    await app.register(swaggerUi, { routePrefix: '/docs', staticCSP: true, uiConfig: { docExpansion: 'list', deepLinking: false } });
     app.get('/openapi.json', { schema: { hide: true } }, async () => app.swagger());
   },
   { name: 'platesmith-docs' },

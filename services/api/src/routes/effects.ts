@@ -1,8 +1,10 @@
-import { EffectsSummaryJson, ProblemDetailsJson, ProblemJson } from '@platesmith/schema';
+import { EffectsSummaryJson, ProblemJson } from '@platesmith/schema';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
-import { analyseProblem } from '../domain.js';
+import { budgetQuery, type BudgetLimits } from '../budget.js';
+import { ProblemDetailsJson } from '../problem-json.js';
+import { requestSignal } from '../signal.js';
 
-export const effectsRoutes: FastifyPluginAsyncZod = async (app) => {
+export const effectsRoutes: FastifyPluginAsyncZod<{ budget: BudgetLimits }> = async (app, { budget }) => {
   app.post(
     '/v1/effects',
     {
@@ -10,11 +12,13 @@ export const effectsRoutes: FastifyPluginAsyncZod = async (app) => {
         operationId: 'analyseEffects',
         tags: ['effects'],
         summary: 'Analyse a problem: reactions, MEd and VEd envelopes of the EN 1990 combinations (without self-weight)',
+        description: 'The analysis runs on a worker thread within budgetMs.',
+        querystring: budgetQuery(budget, 'analysis'),
         body: ProblemJson,
-        response: { 200: EffectsSummaryJson, 400: ProblemDetailsJson, 422: ProblemDetailsJson },
+        response: { 200: EffectsSummaryJson, 400: ProblemDetailsJson, 422: ProblemDetailsJson, 503: ProblemDetailsJson },
         errors: ['UNPROCESSABLE'],
       },
     },
-    async (req) => analyseProblem(req.body),
+    async (req, reply) => app.engine.effects(req.body, { signal: requestSignal(reply, app.shutdownSignal), budgetMs: req.query.budgetMs ?? budget.defaultMs }),
   );
 };

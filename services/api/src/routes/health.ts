@@ -1,6 +1,5 @@
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
-import { ProblemDetailsJson } from '@platesmith/schema';
-import { pingPool } from '@platesmith/search/pool';
+import { ProblemDetailsJson } from '../problem-json.js';
 import { z } from 'zod';
 import { ApiError } from '../errors.js';
 
@@ -25,11 +24,11 @@ export const healthRoutes: FastifyPluginAsyncZod = async (app) => {
       const store = app.jobs.store.health();
       if (!store.ok) throw new ApiError('NOT_READY', `the job store is unusable: ${store.cause}`, { retryAfter: 30 });
       try {
-        await pingPool(app.searcher.pool, AbortSignal.timeout(5000));
+        await app.engine.ping(AbortSignal.timeout(5000));
       } catch (e) {
         throw new ApiError('NOT_READY', 'the search worker pool did not answer a ping within 5 s', { retryAfter: 5, cause: e });
       }
-      return { status: 'ready' as const, threads: app.searcher.pool.threads, activeSearches: app.searcher.active() };
+      return { status: 'ready' as const, threads: app.engine.threads, activeSearches: app.engine.active() };
     },
   );
 };

@@ -1,6 +1,7 @@
 import { chromiumPath, htmlToPdf, PdfUnavailable, renderRecord } from '@platesmith/report';
 import { checkFieldsOf } from '@platesmith/schedule';
-import { parseRecordRequest, parseWith, ProblemDetailsJson, publishRecord, RecordTitleJson, CheckProblemInput, type RecordRequest, type RecordTitle } from '@platesmith/schema';
+import { parseRecordRequest, parseWith, publishRecord, RecordTitleJson, CheckProblemInput, type RecordRequest, type RecordTitle } from '@platesmith/schema';
+import { ProblemDetailsJson } from '../problem-json.js';
 import type { FastifyReply, FastifyRequest } from 'fastify';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { z } from 'zod';

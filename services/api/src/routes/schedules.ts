@@ -1,5 +1,6 @@
 import { plateListCsv, scheduleReport } from '@platesmith/report';
-import { ProblemDetailsJson, type FieldIssue } from '@platesmith/schema';
+import { type FieldIssue } from '@platesmith/schema';
+import { ProblemDetailsJson } from '../problem-json.js';
 import { parseScheduleCsv, ScheduleJson, ScheduleProgressJson, ScheduleResultJson, ScheduleRunResultJson, TenderOptionsJson, type ScheduleRunResult } from '@platesmith/schedule';
 import type { FastifyRequest } from 'fastify';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';

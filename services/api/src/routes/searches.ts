@@ -1,25 +1,10 @@
-import { ProblemDetailsJson, PublishedSearchJson, SearchInput } from '@platesmith/schema';
+import { PublishedSearchJson, SearchInput } from '@platesmith/schema';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
-import { z } from 'zod';
-import { searchPlates } from '../domain.js';
-import { clientGone } from '../signal.js';
+import { budgetQuery, type BudgetLimits } from '../budget.js';
+import { ProblemDetailsJson } from '../problem-json.js';
+import { requestSignal } from '../signal.js';
 
-export interface SearchRouteOptions {
-  defaultBudgetMs: number;
-  maxBudgetMs: number;
-  spaceCap: number;
-}
-
-export const searchRoutes: FastifyPluginAsyncZod<SearchRouteOptions> = async (app, opts) => {
-  const Query = z.object({
-    budgetMs: z.coerce
-      .number({ error: 'budgetMs must be a number of ms' })
-      .int()
-      .min(100)
-      .max(opts.maxBudgetMs)
-      .optional()
-      .meta({ description: `time budget of the search, ms (default ${opts.defaultBudgetMs}, at most ${opts.maxBudgetMs}); past it the search is aborted with 503 TIME_BUDGET_EXCEEDED` }),
-  });
+export const searchRoutes: FastifyPluginAsyncZod<{ budget: BudgetLimits; spaceCap: number }> = async (app, { budget, spaceCap }) => {
   app.post(
     '/v1/searches',
     {
@@ -27,19 +12,18 @@ export const searchRoutes: FastifyPluginAsyncZod<SearchRouteOptions> = async (ap
         operationId: 'searchGirders',
         tags: ['searches'],
         summary: 'Exact search of the plate space: the Pareto set of overall depth against mass or cost',
-        description: `Synchronous. The space may hold at most ${opts.spaceCap.toExponential(0)} candidates (422 SPACE_TOO_LARGE names the size and the cap). No feasible section is a 200 answer with an empty pareto and the nearest misses.`,
-        querystring: Query,
+        description: `Synchronous, within budgetMs (the analysis included). The space may hold at most ${spaceCap.toExponential(0)} candidates (422 SPACE_TOO_LARGE names the size and the cap). The answer's status says how it ended: exact (the whole space searched), infeasible (nothing passes: an empty pareto and the nearest misses), or aborted (the budget ran out: every point returned passes every check, but the set may be incomplete). 503 is load shedding only (POOL_SATURATED, with Retry-After).`,
+        querystring: budgetQuery(budget, 'search'),
         body: SearchInput,
         response: { 200: PublishedSearchJson, 400: ProblemDetailsJson, 422: ProblemDetailsJson, 503: ProblemDetailsJson },
         errors: ['UNPROCESSABLE', 'POOL_SATURATED', 'TIME_BUDGET_EXCEEDED', 'WORKER_FAILED'],
       },
     },
     async (req, reply) => {
-      const budgetMs = req.query.budgetMs ?? opts.defaultBudgetMs;
-      const budget = AbortSignal.timeout(budgetMs);
-      const client = clientGone(reply);
-      const result = await searchPlates(req.body, (task) => app.searcher.run(task, { client, budget, budgetMs }), opts.spaceCap);
-      req.log.info({ search: { ...result.stats, paretoPoints: result.pareto.length, lightestMass: result.lightest?.mass ?? null } }, 'search statistics');
+      const budgetMs = req.query.budgetMs ?? budget.defaultMs;
+      const result = await app.engine.search(req.body, { signal: requestSignal(reply, app.shutdownSignal), budgetMs });
+      // on the request's one log line
+      req.logExtra = { ...req.logExtra, search: { status: result.status, ...result.stats, paretoPoints: result.pareto.length, lightestMass: result.lightest?.mass ?? null } };
       return result;
     },
   );

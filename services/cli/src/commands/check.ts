@@ -1,41 +1,18 @@
-import { checkGirder } from '@platesmith/checks';
-import {
-  CAUTION,
-  SCOPE,
-  CheckEffectsInput,
-  CheckProblemInput,
-  formatIssues,
-  fromN,
-  parseWith,
-  publishVerdict,
-  runCheckJob,
-  toCheckEffects,
-  toCheckProblem,
-} from '@platesmith/schema';
+import { checkSection, parseCheckRequest } from '@platesmith/app';
+import { formatIssues } from '@platesmith/schema';
 import { EXIT, InputError, type Out } from '../io.js';
 import { caution, renderChecks } from '../render.js';
 
 /** `check`: a section under raw effects ({ effects: [...] }) or for a problem (spans and actions, or an envelope). */
 export function runCheck(input: unknown, json: boolean, io: Out, wide = false): number {
-  const raw = typeof input === 'object' && input !== null && 'effects' in input;
-  let verdict;
-  let selfWeight: number | null = null;
-  if (raw) {
-    const parsed = parseWith(CheckEffectsInput, input);
-    if (!parsed.ok) throw new InputError(formatIssues(parsed.issues));
-    const { section, effects, options } = toCheckEffects(parsed.value);
-    verdict = publishVerdict(checkGirder(section, effects, options));
-  } else {
-    const parsed = parseWith(CheckProblemInput, input);
-    if (!parsed.ok) throw new InputError(formatIssues(parsed.issues));
-    const job = toCheckProblem(parsed.value);
-    selfWeight = job.g;
-    verdict = publishVerdict(runCheckJob(job));
-  }
-  if (json) io.out(JSON.stringify({ ...verdict, ...(selfWeight === null ? {} : { selfWeight: Math.round(fromN(selfWeight) * 1e6) / 1e3 }), caution: CAUTION, scope: SCOPE }, null, 2));
+  const parsed = parseCheckRequest(input);
+  if (!parsed.ok) throw new InputError(formatIssues(parsed.issues));
+  // the same answer as the HTTP service's: the verdict, the self-weight added (problem form), caution and scope
+  const r = checkSection(parsed.value);
+  if (json) io.out(JSON.stringify(r, null, 2));
   else {
-    const sw = selfWeight === null ? '' : `self-weight added: ${(selfWeight).toFixed(3)} kN/m (web, flanges, stiffeners)\n\n`;
-    io.out(`${sw}${renderChecks(verdict, wide)}\n\n${caution()}`);
+    const sw = r.selfWeight === undefined ? '' : `self-weight added: ${r.selfWeight.toFixed(3)} kN/m (web, flanges, stiffeners)\n\n`;
+    io.out(`${sw}${renderChecks(r, wide)}\n\n${caution()}`);
   }
-  return verdict.passes ? EXIT.ok : EXIT.fails;
+  return r.passes ? EXIT.ok : EXIT.fails;
 }

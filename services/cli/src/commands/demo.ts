@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { createSearchPool, searchOnPool } from '@platesmith/search/pool';
-import { formatIssues, parseWith, publishSearch, SearchInput, toSearchTask, type PublishedSearch } from '@platesmith/schema';
+import { createEngine } from '@platesmith/app';
+import { formatIssues, parseWith, SearchInput, type PublishedSearch } from '@platesmith/schema';
 import { EXIT, InputError, type Out } from '../io.js';
 import { caution } from '../render.js';
 import { renderSearch } from './search.js';
@@ -17,7 +17,7 @@ interface DemoGirder {
 
 export async function runDemo(json: boolean, io: Out, file = DEMO_FILE): Promise<number> {
   const demo = JSON.parse(readFileSync(file, 'utf8')) as { project: string; defaults: Record<string, unknown>; girders: DemoGirder[] };
-  const pool = createSearchPool();
+  const engine = createEngine();
   const results: { mark: string; description: string; result: PublishedSearch }[] = [];
   try {
     if (!json) io.out(`${demo.project}\n`);
@@ -26,13 +26,12 @@ export async function runDemo(json: boolean, io: Out, file = DEMO_FILE): Promise
       const input = { ...demo.defaults, ...fields, options: { ...(demo.defaults['options'] as object), ...((fields['options'] as object) ?? {}) } };
       const parsed = parseWith(SearchInput, input);
       if (!parsed.ok) throw new InputError(`${mark}: ${formatIssues(parsed.issues)}`);
-      const task = toSearchTask(parsed.value);
-      const r = publishSearch(await searchOnPool(pool, task), task.objective, task.analysis.length);
+      const r = await engine.search(parsed.value);
       results.push({ mark, description, result: r });
       if (!json) io.out(`${renderSearch(r, `${mark} — ${description} (spans ${(parsed.value.spans ?? []).map((s) => s / 1000).join(' + ')} m)`)}\n`);
     }
   } finally {
-    await pool.close();
+    await engine.close();
   }
   if (json) io.out(JSON.stringify({ project: demo.project, girders: results }, null, 2));
   else {

@@ -1,4 +1,5 @@
-import { formatIssues, parseWith, ProblemJson, publishEffects } from '@platesmith/schema';
+import { effectsOf } from '@platesmith/app';
+import { formatIssues, parseWith, ProblemJson } from '@platesmith/schema';
 import { EXIT, InputError, type Out } from '../io.js';
 import { fmt, table } from '../table.js';
 import { caution } from '../render.js';
@@ -8,7 +9,7 @@ export function runEffects(input: unknown, json: boolean, io: Out): number {
   const parsed = parseWith(ProblemJson, input);
   if (!parsed.ok) throw new InputError(formatIssues(parsed.issues));
   // the same publication as the HTTP answer: units, rounding, caution and scope
-  const out = publishEffects(parsed.value);
+  const out = effectsOf(parsed.value);
   const s = out;
   if (json) io.out(JSON.stringify(out, null, 2));
   else {
@@ -18,9 +19,9 @@ export function runEffects(input: unknown, json: boolean, io: Out): number {
       table(
         ['envelope', 'value', 'governing combination'],
         [
-          ['MEd,max (kNm)', fmt(out.envelope.MEdMax, 4), s.governing.MEdMax],
-          ['MEd,min (kNm)', fmt(out.envelope.MEdMin, 4), s.governing.MEdMin],
-          ['VEd,max (kN)', fmt(out.envelope.VEdMax, 4), s.governing.VEdMax],
+          ['MEd,max (kNm)', fmt(out.envelope.MEdMax, 4), out.governing.MEdMax],
+          ['MEd,min (kNm)', fmt(out.envelope.MEdMin, 4), out.governing.MEdMin],
+          ['VEd,max (kN)', fmt(out.envelope.VEdMax, 4), out.governing.VEdMax],
         ],
         ['l', 'r', 'l'],
       ),

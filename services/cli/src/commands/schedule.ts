@@ -16,7 +16,7 @@ import {
   type ScheduleRunResult,
 } from '@platesmith/schedule';
 import { CAUTION, formatIssues, parseWith, SCOPE } from '@platesmith/schema';
-import { createSearchPool, searchOnPool } from '@platesmith/search/pool';
+import { createEngine } from '@platesmith/app';
 import { EXIT, fileProblem, InputError, writeOut, type Out } from '../io.js';
 import { caution } from '../render.js';
 import { fmt, progressBar, table } from '../table.js';
@@ -310,11 +310,11 @@ function finishProgress(p: FinishProgress, io: Out): void {
 export async function runScheduleCommand(argv: readonly string[], io: Out): Promise<number> {
   const a = parseScheduleArgs(argv);
   const schedule = loadSchedule(a);
-  const pool = createSearchPool(a.threads !== undefined ? { threads: a.threads } : {});
+  const engine = createEngine(a.threads !== undefined ? { threads: a.threads } : {});
   let result: ScheduleRunResult;
   try {
     const run = await runSchedule(schedule, {
-      search: (task, signal) => searchOnPool(pool, task, signal),
+      search: (task, signal) => engine.searchTask(task, signal),
       onProgress: (p) => {
         if (a.quiet || !p.finished) return;
         const left = p.estimateMs === null ? '' : `, about ${Math.ceil(p.estimateMs / 1000)} s left`;
@@ -326,7 +326,7 @@ export async function runScheduleCommand(argv: readonly string[], io: Out): Prom
     });
     result = await finishSchedule(schedule, run.marks, { onProgress: (p) => (a.quiet ? undefined : finishProgress(p, io)) });
   } finally {
-    await pool.close();
+    await engine.close();
   }
   if (a.out) write(a.out, JSON.stringify(result, null, 2) + '\n');
   if (a.junit) write(a.junit, toJUnit(junitCases(result), result.name ?? 'girder schedule regression'));

@@ -1,5 +1,5 @@
-import { createSearchPool, searchOnPool } from '@platesmith/search/pool';
-import { formatIssues, parseWith, publishSearch, SearchInput, toSearchTask, type PublishedSearch } from '@platesmith/schema';
+import { createEngine } from '@platesmith/app';
+import { formatIssues, parseWith, SearchInput, type PublishedSearch } from '@platesmith/schema';
 import { EXIT, InputError, type Out } from '../io.js';
 import { caution } from '../render.js';
 import { count, fmt, progressBar, table, TABLE_WIDTH } from '../table.js';
@@ -17,25 +17,33 @@ export function searchProgress(io: Out, quiet: boolean, tty = process.stderr.isT
   };
 }
 
-export async function solve(input: unknown, threads?: number, onProgress?: (done: number, total: number) => void): Promise<PublishedSearch> {
+/** The search of one input on a fresh engine (its own worker pool), within `budgetMs` when given. */
+export async function solve(input: unknown, opts: { threads?: number; budgetMs?: number; onProgress?: (done: number, total: number) => void } = {}): Promise<PublishedSearch> {
   const parsed = parseWith(SearchInput, input);
   if (!parsed.ok) throw new InputError(formatIssues(parsed.issues));
-  const task = toSearchTask(parsed.value);
-  const pool = createSearchPool(threads !== undefined ? { threads } : {});
+  const engine = createEngine(opts.threads !== undefined ? { threads: opts.threads } : {});
   try {
-    const r = await searchOnPool(pool, task, undefined, onProgress);
-    return publishSearch(r, task.objective, task.analysis.length);
+    return await engine.search(parsed.value, {
+      ...(opts.budgetMs !== undefined ? { budgetMs: opts.budgetMs } : {}),
+      ...(opts.onProgress ? { onSlice: opts.onProgress } : {}),
+    });
   } finally {
-    await pool.close();
+    await engine.close();
   }
+}
+
+/** The line a search that was not exact prints on standard error. */
+export function statusWarning(r: PublishedSearch): string | null {
+  return r.status === 'aborted' ? `warning: ${r.message}` : null;
 }
 
 export function renderSearch(r: PublishedSearch, title?: string, wide = false): string {
   const max = wide ? Infinity : TABLE_WIDTH;
   const lines: string[] = [];
   if (title) lines.push(title, '');
+  if (r.status === 'aborted') lines.push(`Search ${r.message}.`, '');
   if (r.pareto.length === 0) {
-    lines.push('No section in the space passes every check.');
+    lines.push(r.status === 'aborted' ? 'No section found before the search stopped.' : 'No section in the space passes every check.');
     if (r.nearMisses.length) {
       lines.push('', 'Nearest misses:');
       lines.push(
@@ -85,9 +93,15 @@ export function describe(s: PublishedSearch['pareto'][number]['section']): strin
   return `web ${s.web.depth}×${s.web.thickness}, ${flanges}, ${st}, ${s.endPost} end post, ${grade}`;
 }
 
-export async function runSearch(input: unknown, json: boolean, io: Out, opts: { wide?: boolean; quiet?: boolean } = {}): Promise<number> {
-  const r = await solve(input, undefined, searchProgress(io, opts.quiet ?? false));
+/**
+ * `search`: exit 0 with a Pareto set (exact, or aborted at its budget with a warning on standard
+ * error), 1 when the whole space was searched and nothing passes.
+ */
+export async function runSearch(input: unknown, json: boolean, io: Out, opts: { wide?: boolean; quiet?: boolean; budgetMs?: number } = {}): Promise<number> {
+  const r = await solve(input, { onProgress: searchProgress(io, opts.quiet ?? false), ...(opts.budgetMs !== undefined ? { budgetMs: opts.budgetMs } : {}) });
+  const warn = statusWarning(r);
+  if (warn) io.err(warn);
   if (json) io.out(JSON.stringify(r, null, 2));
   else io.out(`${renderSearch(r, undefined, opts.wide ?? false)}\n\n${caution()}`);
-  return r.pareto.length > 0 ? EXIT.ok : EXIT.fails;
+  return r.status === 'infeasible' ? EXIT.fails : EXIT.ok;
 }

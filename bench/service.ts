@@ -1,0 +1,85 @@
+/**
+ * `pnpm bench:service`: the HTTP service under load (issue 16). Figures only, never asserted.
+ * The service runs in a child process (from TypeScript source, as `pnpm platesmith serve` does);
+ * autocannon drives it from this process over loopback.
+ *  1. 64 connections for 30 s on POST /v1/checks (examples/check-demo.json), then on GET /health:
+ *     requests per second, p99 latency, errors and non-2xx answers, the service's RSS before and after.
+ *  2. Event-loop lag while a worst-case legal request runs: a check of 20 spans of 20 m with 400
+ *     grid divisions and 7 variable actions (about 1.6·10^7 units of analysis work, just under the
+ *     cap of 2·10^7), with /health sampled every 20 ms meanwhile: its latencies show whether the
+ *     loop was held (it should not be: the analysis runs on a worker thread).
+ * `--seconds=N` shortens the load phases; `--json` prints one JSON line per figure.
+ */
+import { spawn } from 'node:child_process';
+import { readFileSync } from 'node:fs';
+import autocannon from 'autocannon';
+
+const json = process.argv.includes('--json');
+const seconds = Number(process.argv.find((a) => a.startsWith('--seconds='))?.slice(10) ?? 30);
+const root = new URL('..', import.meta.url);
+
+function rssMb(pid: number): number {
+  const m = /VmRSS:\s+(\d+) kB/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'));
+  return m ? Math.round(Number(m[1]) / 1024) : Number.NaN;
+}
+
+const child = spawn(process.execPath, ['--conditions=@platesmith/source', '--import', 'tsx', 'services/cli/src/main.ts', 'serve'], {
+  cwd: root,
+  env: { ...process.env, PORT: '0', LOG_LEVEL: 'warn', PLATESMITH_DB: ':memory:', PLATESMITH_MAX_ACTIVE: '256' },
+  stdio: ['ignore', 'ignore', 'pipe'],
+});
+const url = await new Promise<string>((resolve, reject) => {
+  let out = '';
+  child.stderr.on('data', (d) => {
+    out += String(d);
+    const m = /listening on (http:\/\/[\d.:]+)/.exec(out);
+    if (m) resolve(m[1]!);
+  });
+  child.on('exit', (c) => reject(new Error(`the service exited (${c}) before listening`)));
+});
+// the first requests of a fresh pool compile the workers: warm up before measuring
+await fetch(`${url}/ready`);
+
+const report = (name: string, f: Record<string, unknown>) => {
+  if (json) process.stdout.write(JSON.stringify({ name, ...f }) + '\n');
+  else process.stdout.write(`${name}: ${Object.entries(f).map(([k, v]) => `${k} ${v}`).join(', ')}\n`);
+};
+
+const check = readFileSync(new URL('examples/check-demo.json', root), 'utf8');
+for (const [name, opts] of [
+  ['POST /v1/checks', { method: 'POST' as const, path: '/v1/checks', body: check, headers: { 'content-type': 'application/json' } }],
+  ['GET /health', { method: 'GET' as const, path: '/health' }],
+] as const) {
+  await autocannon({ url, connections: 8, duration: 2, ...opts }); // warm-up
+  const before = rssMb(child.pid!);
+  const r = await autocannon({ url, connections: 64, duration: seconds, ...opts });
+  report(name, { 'req/s': Math.round(r.requests.average), 'p99 ms': r.latency.p99, errors: r.errors, timeouts: r.timeouts, non2xx: r.non2xx, 'RSS before MB': before, 'RSS after MB': rssMb(child.pid!) });
+}
+
+// event-loop lag while a worst-case legal request runs
+const worst = {
+  spans: Array(20).fill(20000),
+  gridDivisions: 400,
+  actions: [{ kind: 'permanent', load: 'udl', value: 20 }, ...Array.from({ length: 7 }, (_, i) => ({ kind: 'variable', load: 'udl', value: 5 + i, category: 'B' }))],
+  section: JSON.parse(check).section,
+  options: { restraint: { spacing: 4000 } },
+};
+const t0 = performance.now();
+let running = true;
+const pending = fetch(`${url}/v1/checks?budgetMs=300000`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(worst) }).then(async (r) => {
+  running = false;
+  return { status: r.status, ms: performance.now() - t0, bytes: (await r.text()).length };
+});
+const lags: number[] = [];
+while (running) {
+  const s = performance.now();
+  await fetch(`${url}/health`);
+  lags.push(performance.now() - s);
+  await new Promise((r) => setTimeout(r, 20));
+}
+const w = await pending;
+lags.sort((a, b) => a - b);
+report('worst-case legal check', { status: w.status, 'wall ms': Math.round(w.ms), 'answer kB': Math.round(w.bytes / 1024), '/health samples': lags.length, '/health median ms': lags.length ? Math.round(lags[lags.length >> 1]! * 10) / 10 : NaN, '/health max ms': lags.length ? Math.round(lags[lags.length - 1]! * 10) / 10 : NaN });
+
+child.kill('SIGTERM');
+await new Promise((r) => child.once('exit', r));

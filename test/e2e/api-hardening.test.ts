@@ -1,0 +1,279 @@
+/**
+ * Regression tests of issue 16 (hostile input and slow clients against the service), one per
+ * defect, named after it. Each asserts the clear 4xx naming the field (or the guard's answer)
+ * and that the service still answers afterwards. Statuses follow RFC 9110 and RFC 9457; the
+ * limits (300 m a span, 100 mm a restraint spacing, …) are common practice, no source. No
+ * engineering value is asserted.
+ */
+import { connect } from 'node:net';
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import { main } from '../../services/cli/src/main.js';
+import { PROBLEM, SECTION, start, TINY_SPACE, type Running } from '../../services/api/test/harness.js';
+
+let srv: Running;
+beforeAll(async () => {
+  srv = await start({ threads: 2, headersTimeoutMs: 1000, requestTimeoutMs: 2000 });
+});
+afterAll(async () => {
+  await srv.close();
+});
+
+const named = (body: any): string[] => [body.field, ...(body.errors ?? []).map((e: { path: string }) => e.path)];
+const healthy = async () => expect((await srv.get('/health')).status).toBe(200);
+const checkBody = (over: Record<string, unknown> = {}) => ({ ...PROBLEM, section: SECTION, ...over });
+const effectsBody = (over: Record<string, unknown> = {}) => ({ section: SECTION, span: 12000, effects: [{ x: 0, M: 0, V: 200 }, { x: 6000, M: 600, V: 0 }], ...over });
+
+describe('1. one request wedged the server', () => {
+  test('envelope.length 9007199254740992 → 422 naming envelope.length', async () => {
+    const r = await srv.post('/v1/checks', { envelope: { length: 9007199254740992, stations: [{ x: 0, M: 0, V: 1 }] }, section: SECTION });
+    expect(r.status).toBe(422);
+    expect(named(r.body)).toContain('envelope.length');
+    await healthy();
+  });
+  test('spans [1e308] → 422 naming spans[0], on the check and on the effects', async () => {
+    for (const path of ['/v1/checks', '/v1/effects']) {
+      const r = await srv.post(path, path === '/v1/checks' ? checkBody({ spans: [1e308] }) : { ...PROBLEM, spans: [1e308] });
+      expect(r.status, path).toBe(422);
+      expect(named(r.body)).toContain('spans[0]');
+      expect(r.body.errors[0].message).toMatch(/at most 300000/);
+    }
+    await healthy();
+  });
+  test('stiffener spacing 0.01 mm → 422 naming section.stiffeners.spacing', async () => {
+    const r = await srv.post('/v1/checks', checkBody({ section: { ...SECTION, stiffeners: { spacing: 0.01, width: 100, thickness: 10 } } }));
+    expect(r.status).toBe(422);
+    expect(named(r.body)).toContain('section.stiffeners.spacing');
+  });
+  test('the CLI check with spans [1e308] exits 2 naming the field (no crash, no hang)', async () => {
+    const { mkdtempSync, writeFileSync, rmSync } = await import('node:fs');
+    const { tmpdir } = await import('node:os');
+    const { join } = await import('node:path');
+    const dir = mkdtempSync(join(tmpdir(), 'platesmith-hostile-'));
+    try {
+      const f = join(dir, 'c.json');
+      writeFileSync(f, JSON.stringify(checkBody({ spans: [1e308] })));
+      let err = '';
+      const code = await main(['check', f, '--json'], { out: () => {}, err: (s) => (err += s) });
+      expect(code).toBe(2);
+      expect(err).toMatch(/spans\[0\]/);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+});
+
+describe('2. stack overflows became 500s', () => {
+  test('options.restraint.spacing 0.01 → 422 naming it', async () => {
+    const r = await srv.post('/v1/checks', checkBody({ options: { restraint: { spacing: 0.01 } } }));
+    expect(r.status).toBe(422);
+    expect(named(r.body)).toContain('options.restraint.spacing');
+  });
+  test('restraint spacing 100 mm over 300 m (3 000 restraints) → 422 TOO_MANY_STATIONS', async () => {
+    const r = await srv.post('/v1/checks', checkBody({ spans: [300000], options: { restraint: { spacing: 100 } } }));
+    expect(r.status).toBe(422);
+    expect(r.body).toMatchObject({ code: 'TOO_MANY_STATIONS', field: 'options.restraint.spacing' });
+  });
+  test('spans [20000, 2147483648] → 422 naming spans[1]', async () => {
+    const r = await srv.post('/v1/effects', { ...PROBLEM, spans: [20000, 2147483648] });
+    expect(r.status).toBe(422);
+    expect(named(r.body)).toContain('spans[1]');
+  });
+  test('the CLI search with spans [1e9] exits 2, not 3', async () => {
+    const { mkdtempSync, writeFileSync, rmSync } = await import('node:fs');
+    const { tmpdir } = await import('node:os');
+    const { join } = await import('node:path');
+    const dir = mkdtempSync(join(tmpdir(), 'platesmith-hostile-'));
+    try {
+      const f = join(dir, 's.json');
+      writeFileSync(f, JSON.stringify({ ...PROBLEM, spans: [1e9], space: TINY_SPACE }));
+      const code = await main(['search', f], { out: () => {}, err: () => {} });
+      expect(code).toBe(2);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+});
+
+describe('3. unbounded synchronous work on the event loop', () => {
+  const actions = Array.from({ length: 40 }, (_, i) => ({ kind: 'variable', load: 'udl', value: 1 + i, category: 'B' }));
+  test('20 spans × 400 grid divisions × 40 variable actions → 422 ANALYSIS_TOO_LARGE, refused before any array', async () => {
+    const r = await srv.post('/v1/effects', { spans: Array(20).fill(20000), gridDivisions: 400, actions });
+    expect(r.status).toBe(422);
+    expect(r.body.code).toBe('ANALYSIS_TOO_LARGE');
+    expect(['actions', 'gridDivisions']).toContain(r.body.field);
+    expect(r.body.detail).toMatch(/over the cap of 2e\+7/);
+    await healthy();
+  });
+  test('101 actions → 422 naming actions', async () => {
+    const r = await srv.post('/v1/effects', { spans: [12000], actions: Array(101).fill({ kind: 'permanent', load: 'udl', value: 1 }) });
+    expect(r.status).toBe(422);
+    expect(named(r.body)).toContain('actions');
+  });
+  test('a check is answered while the event loop stays free: /health answers during it', async () => {
+    const pending = srv.post('/v1/checks', checkBody({ spans: [30000, 30000, 30000], gridDivisions: 400 }));
+    await healthy();
+    expect((await pending).status).toBe(200);
+  });
+});
+
+describe('3b. /health reflects a wedged loop', () => {
+  test('a request queued behind work that holds the loop 2 s gets 503 OVERLOADED with Retry-After, /health included', async () => {
+    const w = await start({
+      threads: 1,
+      maxEventLoopDelayMs: 100,
+      // the test's own stand-in for heavy work on the loop (the service has none left)
+      // it answers first and then holds the loop, so the /health sent after the answer waits behind it
+      routes: (app) =>
+        app.post('/_test/hold', async () => {
+          setImmediate(() => {
+            const t = Date.now();
+            while (Date.now() - t < 2000);
+          });
+          return { held: true };
+        }),
+    });
+    try {
+      expect((await w.post('/_test/hold', {})).status).toBe(200);
+      const h = await w.get('/health');
+      expect(h.status).toBe(503);
+      expect(h.headers.get('retry-after')).toBe('5');
+      expect(h.body).toMatchObject({ code: 'OVERLOADED' });
+    } finally {
+      await w.close();
+    }
+  });
+});
+
+describe('5. slow clients', () => {
+  test('a request whose headers never finish is closed by the headers timeout', async () => {
+    const url = new URL(srv.url);
+    const closed = await new Promise<string>((resolve) => {
+      const s = connect(Number(url.port), url.hostname, () => s.write('POST /v1/checks HTTP/1.1\r\nHost: x\r\n'));
+      let got = '';
+      s.on('data', (d) => (got += String(d)));
+      s.on('close', () => resolve(got));
+    });
+    expect(closed).toMatch(/^HTTP\/1\.1 408/);
+    await healthy();
+  });
+});
+
+describe('6. errors amplified input', () => {
+  test('20 000 bad stations → at most 100 issues listed, with their count', async () => {
+    const r = await srv.post('/v1/checks', effectsBody({ effects: Array.from({ length: 10_000 }, (_, i) => ({ x: i, M: 'bad', V: 'bad' })) }));
+    expect(r.status).toBe(400);
+    expect(r.body.errors).toHaveLength(100);
+    expect(r.body.issueCount).toBe(20_000);
+    expect(JSON.stringify(r.body).length).toBeLessThan(50_000);
+  });
+  test('100 000 unknown CSV columns → one 400 issue, a small body', async () => {
+    const header = ['mark', 'quantity', ...Array.from({ length: 100_000 }, (_, i) => `c${i}`)].join(',');
+    const res = await fetch(srv.url + '/v1/schedules', { method: 'POST', headers: { 'content-type': 'text/csv' }, body: `${header}\nG1,1\n` });
+    const text = await res.text();
+    expect(res.status).toBe(400);
+    expect(text.length).toBeLessThan(5_000);
+    expect(JSON.parse(text).errors[0].message).toMatch(/100002 columns, over the limit of 100/);
+  });
+});
+
+describe('7. null where a number belongs; effects and check forms disagreed', () => {
+  test('value 1e308 and M 3.6e303 → 422 naming the field', async () => {
+    const a = await srv.post('/v1/checks', checkBody({ actions: [{ kind: 'permanent', load: 'udl', value: 1e308 }] }));
+    expect(a.status).toBe(422);
+    expect(named(a.body)).toContain('actions[0].value');
+    const m = await srv.post('/v1/checks', effectsBody({ effects: [{ x: 0, M: 3.6e303, V: 1 }] }));
+    expect(m.status).toBe(422);
+    expect(named(m.body)).toContain('effects[0].M');
+  });
+  test('/v1/effects refuses a span over 300 m as the check form does', async () => {
+    const e = await srv.post('/v1/effects', { ...PROBLEM, spans: [300_001] });
+    const c = await srv.post('/v1/checks', effectsBody({ span: 300_001 }));
+    expect([e.status, c.status]).toEqual([422, 422]);
+  });
+});
+
+describe('10. headers', () => {
+  test('security headers on every answer (helmet)', async () => {
+    const r = await srv.get('/health');
+    expect(r.headers.get('x-content-type-options')).toBe('nosniff');
+    expect(r.headers.get('content-security-policy')).toBeTruthy();
+    expect(r.headers.get('strict-transport-security')).toBeTruthy();
+  });
+  test('a client x-request-id of 8 kB is not echoed: a generated id instead', async () => {
+    const long = 'a'.repeat(8 * 1024);
+    const r = await srv.get('/health', { 'x-request-id': long });
+    const id = r.headers.get('x-request-id')!;
+    expect(id).not.toBe(long);
+    expect(id).toMatch(/^[0-9a-f-]{36}$/);
+  });
+  test('a Host allow-list answers 421 to any other Host', async () => {
+    const h = await start({ threads: 1, allowedHosts: ['girders.example'] });
+    try {
+      const no = await h.get('/health');
+      expect(no.status).toBe(421);
+      expect(no.body).toMatchObject({ code: 'HOST_NOT_ALLOWED' });
+      const url = new URL(h.url);
+      const yes = await new Promise<string>((resolve) => {
+        const s = connect(Number(url.port), url.hostname, () => s.end('GET /health HTTP/1.1\r\nHost: girders.example\r\nConnection: close\r\n\r\n'));
+        let got = '';
+        s.on('data', (d) => (got += String(d)));
+        s.on('close', () => resolve(got));
+      });
+      expect(yes).toMatch(/^HTTP\/1\.1 200/);
+    } finally {
+      await h.close();
+    }
+  });
+});
+
+describe('11. smaller', () => {
+  test('budgetMs=0x1000 (and 1e3) → 400 naming budgetMs', async () => {
+    for (const v of ['0x1000', '1e3', '99']) {
+      const r = await srv.post(`/v1/checks?budgetMs=${v}`, checkBody());
+      expect(r.status, v).toBe(v === '99' ? 422 : 400);
+      expect(named(r.body)).toContain('budgetMs');
+    }
+  });
+  test('minDepth > maxDepth → 422 naming space.minDepth', async () => {
+    const r = await srv.post('/v1/searches', { ...PROBLEM, space: { ...TINY_SPACE, minDepth: 1200, maxDepth: 900 } });
+    expect(r.status).toBe(422);
+    expect(named(r.body)).toContain('space.minDepth');
+  });
+  test('unknown keys are reported with their path', async () => {
+    const r = await srv.post('/v1/checks', checkBody({ section: { ...SECTION, web: { depth: 800, thickness: 10, colour: 'red' } } }));
+    expect(r.status).toBe(400);
+    expect(named(r.body)).toContain('section.web.colour');
+  });
+  test('405 with Allow, not 404, for a known path and another method', async () => {
+    const r = await srv.get('/v1/checks');
+    expect(r.status).toBe(405);
+    expect(r.headers.get('allow')).toBe('POST');
+    expect(r.body).toMatchObject({ code: 'METHOD_NOT_ALLOWED' });
+  });
+  test('an over-long path parameter → 414 problem+json', async () => {
+    const r = await srv.get(`/v1/schedules/${'x'.repeat(2000)}`);
+    expect(r.status).toBe(414);
+    expect(r.headers.get('content-type')).toMatch(/^application\/problem\+json/);
+    expect(r.body).toMatchObject({ code: 'URI_TOO_LONG' });
+  });
+  test('a saturated 503 is logged once, at warn, without a stack', async () => {
+    const { FIXTURE_WORKER, gate } = await import('../../services/app/test/fixtures/worker.js');
+    const g = gate();
+    const one = await start({ threads: 1, maxActiveSearches: 1, workerFile: FIXTURE_WORKER, routes: (app) => app.post('/_test/gate', async () => app.engine.run({ kind: 'gate', gate: g.buffer })) });
+    try {
+      const held = one.post('/_test/gate', {});
+      await g.entered;
+      const r = await one.post('/v1/effects', PROBLEM);
+      expect(r.status).toBe(503);
+      const lines = one.logs.filter((l) => l['reqId'] === r.headers.get('x-request-id'));
+      expect(lines).toHaveLength(1);
+      expect(lines[0]).toMatchObject({ level: 40, status: 503, code: 'POOL_SATURATED' });
+      expect(JSON.stringify(lines[0])).not.toMatch(/stack/);
+      g.open();
+      await held;
+    } finally {
+      g.open();
+      await one.close();
+    }
+  });
+});

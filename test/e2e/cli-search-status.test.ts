@@ -1,0 +1,48 @@
+/**
+ * `platesmith search` in-process (main() with captured output): a search stopped by its
+ * --budget-ms exits 0 with a warning on standard error and status aborted in the JSON; an exact
+ * one prints no warning; a bad budget is bad input (exit 2). Behaviour tests; no engineering value.
+ */
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, expect, test } from 'vitest';
+import { main } from '../../services/cli/src/main.js';
+
+const dir = mkdtempSync(join(tmpdir(), 'platesmith-search-cli-'));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+async function run(...argv: string[]): Promise<{ code: number; out: string; err: string }> {
+  let out = '';
+  let err = '';
+  const code = await main(argv, { out: (s) => (out += s + '\n'), err: (s) => (err += s + '\n') });
+  return { code, out, err };
+}
+
+const actions = [{ kind: 'permanent', load: 'udl', value: 10 }, { kind: 'variable', load: 'udl', value: 15, category: 'B' }];
+
+test('a search past --budget-ms: exit 0, a warning on standard error, status aborted', async () => {
+  const file = join(dir, 'big.json');
+  // about 10^10 candidates on 24 m: seconds at best, never 200 ms
+  writeFileSync(file, JSON.stringify({ spans: [24000], actions, space: { symmetric: false } }));
+  const r = await run('search', file, '--json', '--quiet', '--budget-ms=200');
+  expect(r.code).toBe(0);
+  expect(r.err).toMatch(/^warning: aborted at its time budget of 200 ms: .*may be incomplete/m);
+  expect(JSON.parse(r.out)).toMatchObject({ status: 'aborted', abort: { reason: 'time-budget', budgetMs: 200 } });
+});
+
+test('an exact search: no warning, status exact', async () => {
+  const file = join(dir, 'small.json');
+  writeFileSync(file, JSON.stringify({ spans: [12000], actions, space: { webDepth: [700, 800, 900], webThickness: [8, 10], flangeWidth: [200, 250, 300], flangeThickness: [12, 15, 20], panels: [0], endPost: 'rigid' } }));
+  const r = await run('search', file, '--json', '--quiet', '--budget-ms', '60000');
+  expect(r.code).toBe(0);
+  expect(r.err).toBe('');
+  expect(JSON.parse(r.out).status).toBe('exact');
+});
+
+test.for(['--budget-ms=0x1000', '--budget-ms=1e3', '--budget-ms', '--budget-ms=50'])('%s is bad input (exit 2)', async (flag) => {
+  const file = join(dir, 'small.json');
+  const r = await run('search', file, flag);
+  expect(r.code).toBe(2);
+  expect(r.err).toMatch(/--budget-ms/);
+});
