@@ -47,6 +47,8 @@ export interface ReportMark {
   };
   /** free lines printed under the mark (e.g. why no section was found) */
   notes?: string[];
+  /** the defaults the mark's answer applied (field, value, note) */
+  assumptions?: readonly { field: string; value: string | number | boolean | readonly number[]; note: string }[];
 }
 
 export interface ReportTonnage {

@@ -1,7 +1,7 @@
 export { mm, Grade, Plate, Web, Stiffeners, Bearing, GradeSpec, SectionJson } from './section.js';
 export { FactorsJson, RestraintJson, CheckOptionsJson } from './options.js';
 export { SpanMm, EffectJson, SlsUdlJson, CheckEffectsInput } from './check-input.js';
-export { toSection, fromSection, toCheckOptions, toCheckEffects, assertStockThickness } from './convert.js';
+export { toSection, fromSection, toCheckOptions, resolveOptions, sectionAssumptions, toCheckEffects, assertStockThickness, type Assumption } from './convert.js';
 export { parseWith, formatIssues, pathString, type FieldIssue, type Parsed } from './parse.js';
 export { VALUE_UNITS, publishCheck, publishVerdict, type PublishedCheck, type PublishedVerdict } from './output.js';
 export { kN, kNm, toN, toNmm, fromN, fromNmm, convertValue, type ValueUnit } from './units.js';
@@ -15,6 +15,7 @@ export {
   toAnalysis,
   selfWeight,
   toCheckProblem,
+  problemAssumptions,
   runCheckJob,
   toSpace,
   toCost,
@@ -25,6 +26,7 @@ export {
 export { publishSearch, publishPoint, type PublishedSearch, type PublishedPoint, type PublishedMiss } from './search-output.js';
 export {
   PublishedCheckJson,
+  AssumptionJson,
   PublishedVerdictJson,
   PublishedPointJson,
   PublishedMissJson,

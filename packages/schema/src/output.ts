@@ -1,5 +1,6 @@
 import type { CheckResult, GirderVerdict } from '@platesmith/checks';
 import { convertValue, type ValueUnit } from './units.js';
+import type { Assumption } from './convert.js';
 
 /**
  * Units of the `values` keys as published. Forces kN, moments kNm, lengths mm, areas mm²,
@@ -67,8 +68,10 @@ export interface PublishedVerdict {
   passes: boolean;
   governing: PublishedCheck;
   checks: PublishedCheck[];
+  /** every default applied to the request (absent when the caller had none to list) */
+  assumptions?: Assumption[];
 }
 
-export function publishVerdict(v: GirderVerdict): PublishedVerdict {
-  return { passes: v.passes, governing: publishCheck(v.governing), checks: v.checks.map(publishCheck) };
+export function publishVerdict(v: GirderVerdict, assumptions?: readonly Assumption[]): PublishedVerdict {
+  return { passes: v.passes, governing: publishCheck(v.governing), checks: v.checks.map(publishCheck), ...(assumptions ? { assumptions: [...assumptions] } : {}) };
 }

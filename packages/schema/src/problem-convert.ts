@@ -4,7 +4,7 @@ import { checkGirder, girderMass, type CheckOptions, type Effects, type GirderVe
 import { DEFAULT_COST, defaultSpace, spaceSize, stiffenerStations, type CostModel, type SearchTask, type SpaceSpec } from '@platesmith/search';
 import { designEffects } from '@platesmith/actions';
 import { z } from 'zod';
-import { assertStockThickness, toCheckOptions, toSection } from './convert.js';
+import { assertStockThickness, resolveOptions, sectionAssumptions, toSection, type Assumption } from './convert.js';
 import { ProblemFields, problemShape, type ProblemJson } from './problem.js';
 import { SectionJson } from './section.js';
 import { CostJson, SpaceJson, type SpaceJson as SpaceJsonT } from './space.js';
@@ -62,7 +62,7 @@ export function toAnalysis(p: ProblemJson, extraStations: number[] = []): Analys
   return analyse({
     spans: p.spans ?? [],
     actions,
-    combination: p.combination,
+    combination: p.combination ?? '6.10',
     ...(p.factors ? { factors: p.factors } : {}),
     ...(p.deflection ? { deflection: p.deflection } : {}),
     ...(p.gridDivisions ? { gridDivisions: p.gridDivisions } : {}),
@@ -77,6 +77,28 @@ export function selfWeight(s: Section, supports: readonly number[]): number {
   return ((m.web + m.topFlange + m.bottomFlange + m.stiffeners) * G_ACC) / L;
 }
 
+/**
+ * The defaults a problem took (combination rule, load factors, deflection limits, analysis grid),
+ * as assumptions of the answer. With an envelope the user's own analysis stands: none of these.
+ */
+export function problemAssumptions(p: ProblemJson): Assumption[] {
+  if (p.envelope) return [{ field: 'envelope', value: 'given', note: 'design effects taken from your own global analysis as given (no combination, no self-weight added)' }];
+  const out: Assumption[] = [];
+  if (p.combination === undefined) out.push({ field: 'combination', value: '6.10', note: 'EN 1990 Annex A1 (buildings), eq. 6.10, each variable action leading in turn; 6.10ab for the worse of 6.10a and 6.10b' });
+  const f = p.factors ?? {};
+  const missing = (['gammaGsup', 'gammaGinf', 'gammaQ', 'xi'] as const).filter((k) => f[k] === undefined);
+  if (missing.length > 0) out.push({ field: 'factors', value: 'A1.2(B)', note: `EN 1990 Table A1.2(B) recommended ${missing.map((k) => `${k} = ${{ gammaGsup: 1.35, gammaGinf: 1.0, gammaQ: 1.5, xi: 0.85 }[k]}`).join(', ')} (buildings)` });
+  if (p.deflection === undefined) out.push({ field: 'deflection', value: 'L/250 total, L/360 variable', note: 'characteristic SLS combination (common practice, no source)' });
+  if (p.gridDivisions === undefined) out.push({ field: 'gridDivisions', value: 40, note: 'analysis stations per span (plus supports, loads, stiffeners and restraints)' });
+  for (const [i, a] of (p.actions ?? []).entries()) {
+    if (a.kind === 'variable' && a.category === undefined && (a.psi0 === undefined || a.psi1 === undefined || a.psi2 === undefined)) {
+      out.push({ field: `actions[${i}].psi`, value: 'category A', note: 'ψ factors not all given: the missing ones from EN 1990 Table A1.1 category A' });
+    }
+    if (a.load === 'point' && a.ss === undefined) out.push({ field: `actions[${i}].ss`, value: 100, note: 'stiff bearing length of the point load, mm' });
+  }
+  return out;
+}
+
 export interface CheckJob {
   section: Section;
   effects: Effects;
@@ -84,6 +106,8 @@ export interface CheckJob {
   analysis: Analysis;
   /** self-weight added, N/mm */
   g: number;
+  /** every default applied to the request */
+  assumptions: Assumption[];
 }
 
 function restraintStations(o: CheckOptions): number[] {
@@ -96,10 +120,10 @@ export function toCheckProblem(j: CheckProblemInput): CheckJob {
   assertStockThickness(section.top.t, 'section.topFlange.thickness');
   assertStockThickness(section.bot.t, 'section.bottomFlange.thickness');
   const supports = supportsOf(j);
-  const options = toCheckOptions(j.options, supports);
+  const { options, assumptions } = resolveOptions(j.options, supports);
   const analysis = toAnalysis(j, [...(section.stiffeners ? exactStiffenerXs(supports, section.stiffeners.a) : []), ...restraintStations(options)]);
   const g = analysis.kind === 'envelope' ? 0 : selfWeight(section, supports);
-  return { section, effects: designEffects(analysis, g), options, analysis, g };
+  return { section, effects: designEffects(analysis, g), options, analysis, g, assumptions: [...problemAssumptions(j), ...assumptions, ...sectionAssumptions(j.section)] };
 }
 
 export function runCheckJob(job: CheckJob): GirderVerdict {
@@ -189,15 +213,19 @@ export function toCost(j: z.output<typeof CostJson> | undefined): CostModel {
 export const DEFAULT_SPACE_CAP = 1e12;
 
 /** Public search input → plain task for the workers. The space's size is checked against the cap first. */
-export function toSearchTask(j: SearchInput, cap = DEFAULT_SPACE_CAP): SearchTask {
+export function toSearchTask(j: SearchInput, cap = DEFAULT_SPACE_CAP): SearchTask & { assumptions: Assumption[] } {
   const space = toSpace(j.space);
   const size = spaceSize(space);
   if (size > cap) {
     throw new DomainError('SPACE_TOO_LARGE', `the space holds ${size.toExponential(3)} candidates, over the cap of ${cap.toExponential(0)}`, 'narrow the grids (fewer widths, thicknesses or panel counts) or ask the operator to raise the cap', 'space', { size, cap });
   }
   const supports = supportsOf(j);
-  const options = toCheckOptions(j.options, supports);
+  const { options, assumptions } = resolveOptions(j.options, supports);
   const spans = spansOf(supports);
   const analysis = toAnalysis(j, [...stiffenerStations(spans, space.panels), ...restraintStations(options)]);
-  return { space, options, analysis, objective: j.objective, cost: toCost(j.cost) };
+  const spaceDefaults = Object.keys(SpaceJson.shape).filter((k) => (j.space as Record<string, unknown>)[k] === undefined && !['minDepth', 'maxDepth'].includes(k));
+  const all = [...problemAssumptions(j), ...assumptions];
+  if (spaceDefaults.length > 0) all.push({ field: 'space', value: spaceDefaults.join(', '), note: 'these fields of the space take the catalogue defaults (see the API schema)' });
+  // the search sizes bearing stiffeners from the flats and reports both end-post types only when asked
+  return { space, options, analysis, objective: j.objective, cost: toCost(j.cost), assumptions: all };
 }

@@ -44,7 +44,7 @@ export const FactorsGJson = z
 export const BeamProblemFields = {
   spans: z.array(num('span', 'mm')).min(1, { message: 'give at least one span' }).max(20).meta({ description: 'span lengths, mm (24000 for 24 m)' }),
   actions: z.array(ActionJson).max(500),
-  combination: z.enum(['6.10', '6.10ab']).default('6.10').meta({ description: 'EN 1990 eq. 6.10, or the worse of 6.10a and 6.10b' }),
+  combination: z.enum(['6.10', '6.10ab']).optional().meta({ description: 'EN 1990 eq. 6.10, or the worse of 6.10a and 6.10b; default 6.10' }),
   factors: FactorsGJson.optional(),
   deflection: z.array(DeflectionLimitJson).max(10).optional().meta({ description: 'default: total span/250 and variable span/360, characteristic' }),
   gridDivisions: z.number().int().min(4).max(400).optional().meta({ description: 'analysis stations per span (default 40)' }),

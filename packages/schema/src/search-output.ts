@@ -1,5 +1,5 @@
 import type { Evaluated, SearchResult } from '@platesmith/search';
-import { fromSection } from './convert.js';
+import { fromSection, type Assumption } from './convert.js';
 import { publishCheck, type PublishedCheck } from './output.js';
 import type { SectionJson } from './section.js';
 import { CAUTION, SCOPE } from './caution.js';
@@ -32,6 +32,8 @@ export interface PublishedSearch {
   lightest: PublishedPoint | null;
   nearMisses: PublishedMiss[];
   stats: SearchResult['stats'];
+  /** every default applied to the request */
+  assumptions: Assumption[];
   caution: string;
   scope: string;
 }
@@ -50,7 +52,7 @@ export function publishPoint(e: Evaluated, length: number): PublishedPoint {
   };
 }
 
-export function publishSearch(r: SearchResult, objective: 'mass' | 'cost', length: number): PublishedSearch {
+export function publishSearch(r: SearchResult, objective: 'mass' | 'cost', length: number, assumptions: readonly Assumption[] = []): PublishedSearch {
   return {
     objective,
     pareto: r.pareto.map((e) => publishPoint(e, length)),
@@ -63,6 +65,7 @@ export function publishSearch(r: SearchResult, objective: 'mass' | 'cost', lengt
       failing: e.verdict.checks.filter((c) => !c.passes).map((c) => c.id),
     })),
     stats: { ...r.stats, wallMs: Math.round(r.stats.wallMs * 10) / 10 },
+    assumptions: [...assumptions],
     caution: CAUTION,
     scope: SCOPE,
   };

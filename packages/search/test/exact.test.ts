@@ -58,7 +58,7 @@ describe('search = brute force', () => {
       maxDepth: space.maxDepth,
       rules: {},
     };
-    const options = defaultOptions(L, restrained ? {} : { restraint: { kind: 'at', at: [0, L / 2, L] } });
+    const options = defaultOptions(L, restrained ? { restraint: { kind: 'continuous' } } : { restraint: { kind: 'at', at: [0, L / 2, L] } });
     const problem = { space: sp, options, load: simpleSpanModel(L, q, P, q / 1.4), objective, cost: DEFAULT_COST };
     const fast = search(problem);
     const brute = bruteForce(problem);
@@ -78,7 +78,7 @@ describe('a search shared out over workers (SlicePart)', () => {
       hw: space.hw, tw: space.tw, bf: space.bf, tf: space.tf, symmetric: space.symmetric, panels: space.panels, flats: space.flats,
       sides: [...space.sides], endPosts: [...space.endPosts], webGrades: ['S355'], flangeGrades: space.flangeGrades, minDepth: 0, maxDepth: space.maxDepth, rules: {},
     };
-    const options = defaultOptions(L, restrained ? {} : { restraint: { kind: 'at', at: [0, L / 2, L] } });
+    const options = defaultOptions(L, restrained ? { restraint: { kind: 'continuous' } } : { restraint: { kind: 'at', at: [0, L / 2, L] } });
     const problem = { space: sp, options, load: simpleSpanModel(L, q, P, q / 1.4), objective, cost: DEFAULT_COST };
     const one = search(problem);
     const prep = prepareSearch(problem);

@@ -46,11 +46,11 @@ export type CheckResponse = PublishedVerdict & { selfWeight?: number; caution: s
 
 export function checkSection(input: CheckRequest): CheckResponse {
   if ('effects' in input) {
-    const { section, effects, options } = toCheckEffects(input);
-    return { ...publishVerdict(checkGirder(section, effects, options)), caution: CAUTION, scope: SCOPE };
+    const { section, effects, options, assumptions } = toCheckEffects(input);
+    return { ...publishVerdict(checkGirder(section, effects, options), assumptions), caution: CAUTION, scope: SCOPE };
   }
   const job = toCheckProblem(input);
-  return { ...publishVerdict(runCheckJob(job)), selfWeight: Math.round(fromN(job.g) * 1e6) / 1e3, caution: CAUTION, scope: SCOPE };
+  return { ...publishVerdict(runCheckJob(job), job.assumptions), selfWeight: Math.round(fromN(job.g) * 1e6) / 1e3, caution: CAUTION, scope: SCOPE };
 }
 
 export const analyseProblem = (p: ProblemJson) => publishEffects(p);
@@ -60,7 +60,7 @@ export type SearchFn = (task: SearchTask, signal?: AbortSignal) => Promise<Searc
 export async function searchPlates(input: SearchInput, search: SearchFn, spaceCap = DEFAULT_SPACE_CAP): Promise<PublishedSearch> {
   const task = toSearchTask(input, spaceCap);
   const r = await search(task);
-  return publishSearch(r, task.objective, task.analysis.length);
+  return publishSearch(r, task.objective, task.analysis.length, task.assumptions);
 }
 
 export function runScheduleJob(input: ScheduleJson, search: SearchFn, signal: AbortSignal, onProgress: (p: ScheduleProgress) => void, spaceCap = DEFAULT_SPACE_CAP): Promise<ScheduleResult> {

@@ -1,4 +1,4 @@
-import { CAUTION, SCOPE, type PublishedCheck, type PublishedVerdict } from '@platesmith/schema';
+import { CAUTION, SCOPE, type Assumption, type PublishedCheck, type PublishedVerdict } from '@platesmith/schema';
 import { fmt, table } from './table.js';
 
 /** The values a reader wants first for each check (others stay in --json). */
@@ -47,6 +47,13 @@ export function renderChecks(v: PublishedVerdict): string {
     '',
     `${v.passes ? 'PASSES' : 'FAILS'} — governing: ${g.id} (${g.clause}), utilisation ${g.utilisation === null ? 'inf' : g.utilisation.toFixed(3)}${g.at === null ? '' : ` at x = ${Math.round(g.at)} mm`}`,
   ].join('\n');
+}
+
+/** The defaults the answer applied, one a line (empty when none). */
+export function renderAssumptions(list: readonly Assumption[]): string {
+  if (list.length === 0) return '';
+  const v = (x: Assumption['value']) => (Array.isArray(x) ? x.join(', ') : String(x));
+  return `Assumed (not given in the input):\n${list.map((a) => `  ${a.field} = ${v(a.value)}: ${a.note}`).join('\n')}\n\n`;
 }
 
 export function caution(): string {

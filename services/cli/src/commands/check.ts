@@ -11,7 +11,7 @@ import {
   toCheckProblem,
 } from '@platesmith/schema';
 import { EXIT, InputError, type Out } from '../io.js';
-import { caution, renderChecks } from '../render.js';
+import { caution, renderAssumptions, renderChecks } from '../render.js';
 
 /** `check`: a section under raw effects ({ effects: [...] }) or for a problem (spans and actions, or an envelope). */
 export function runCheck(input: unknown, json: boolean, io: Out): number {
@@ -21,19 +21,19 @@ export function runCheck(input: unknown, json: boolean, io: Out): number {
   if (raw) {
     const parsed = parseWith(CheckEffectsInput, input);
     if (!parsed.ok) throw new InputError(formatIssues(parsed.issues));
-    const { section, effects, options } = toCheckEffects(parsed.value);
-    verdict = publishVerdict(checkGirder(section, effects, options));
+    const { section, effects, options, assumptions } = toCheckEffects(parsed.value);
+    verdict = publishVerdict(checkGirder(section, effects, options), assumptions);
   } else {
     const parsed = parseWith(CheckProblemInput, input);
     if (!parsed.ok) throw new InputError(formatIssues(parsed.issues));
     const job = toCheckProblem(parsed.value);
     selfWeight = job.g;
-    verdict = publishVerdict(runCheckJob(job));
+    verdict = publishVerdict(runCheckJob(job), job.assumptions);
   }
   if (json) io.out(JSON.stringify(selfWeight === null ? verdict : { ...verdict, selfWeight: Math.round(fromN(selfWeight) * 1e6) / 1e3 }, null, 2));
   else {
     const sw = selfWeight === null ? '' : `self-weight added: ${(selfWeight).toFixed(3)} kN/m (web, flanges, stiffeners)\n\n`;
-    io.out(`${sw}${renderChecks(verdict)}\n\n${caution()}`);
+    io.out(`${sw}${renderChecks(verdict)}\n\n${renderAssumptions(verdict.assumptions ?? [])}${caution()}`);
   }
   return verdict.passes ? EXIT.ok : EXIT.fails;
 }

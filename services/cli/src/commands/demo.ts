@@ -27,7 +27,7 @@ export async function runDemo(json: boolean, io: Out, file = DEMO_FILE): Promise
       const parsed = parseWith(SearchInput, input);
       if (!parsed.ok) throw new InputError(`${mark}: ${formatIssues(parsed.issues)}`);
       const task = toSearchTask(parsed.value);
-      const r = publishSearch(await searchOnPool(pool, task), task.objective, task.analysis.length);
+      const r = publishSearch(await searchOnPool(pool, task), task.objective, task.analysis.length, task.assumptions);
       results.push({ mark, description, result: r });
       if (!json) io.out(`${renderSearch(r, `${mark} — ${description} (spans ${(parsed.value.spans ?? []).map((s) => s / 1000).join(' + ')} m)`)}\n`);
     }

@@ -1,7 +1,7 @@
 import { createSearchPool, searchOnPool } from '@platesmith/search/pool';
 import { formatIssues, parseWith, publishSearch, SearchInput, toSearchTask, type PublishedSearch } from '@platesmith/schema';
 import { EXIT, InputError, type Out } from '../io.js';
-import { caution } from '../render.js';
+import { caution, renderAssumptions } from '../render.js';
 import { fmt, progressBar, table } from '../table.js';
 
 export async function solve(input: unknown, threads?: number): Promise<PublishedSearch> {
@@ -15,7 +15,7 @@ export async function solve(input: unknown, threads?: number): Promise<Published
     const r = await searchOnPool(pool, task, undefined, (done, total) => {
       if (tty) process.stderr.write(`\r${progressBar(done, total)} slices of the space searched` + (done === total ? '\n' : ''));
     });
-    return publishSearch(r, task.objective, task.analysis.length);
+    return publishSearch(r, task.objective, task.analysis.length, task.assumptions);
   } finally {
     await pool.close();
   }
@@ -59,6 +59,8 @@ export function renderSearch(r: PublishedSearch, title?: string): string {
     lines.push('', `Lightest${r.objective === 'cost' ? ' (cheapest)' : ''}: ${describe(l.section)} — ${fmt(l.mass, 5)} kg, depth ${l.depth} mm, governed by ${l.governing.id} (${l.governing.clause}) at ${l.governing.utilisation?.toFixed(3)}`);
   }
   const s = r.stats;
+  const assumed = renderAssumptions(r.assumptions ?? []);
+  if (assumed) lines.push('', assumed.trimEnd());
   lines.push('', `Searched ${s.spaceSize.toExponential(2)} candidates exactly: ${s.fullEvaluations} judged (${((s.fullEvaluations / Math.max(1, s.spaceSize)) * 100).toPrecision(2)} %), the rest pruned by bounds (depth ${s.pruned.depth}, shear ${s.pruned.shear}, bending ${s.pruned.bending}, flange-induced buckling ${s.pruned.flangeInducedBuckling}, deflection ${s.pruned.deflection}, patch loading ${s.pruned.patchLoading}, patch loading with bending ${s.pruned.patchBending}, lateral-torsional buckling from the moment envelope ${s.pruned.lateralTorsional}, bearing stiffener ${s.pruned.bearing}, shared with a failed candidate of the same plates ${s.pruned.sameFlanges}, stiffener layout failed on another flange ${s.pruned.webOnly}, incumbent ${s.pruned.incumbent}, rules ${s.pruned.rules}); ${s.wallMs.toFixed(0)} ms on ${s.workers} workers.`);
   return lines.join('\n');
 }
@@ -69,8 +71,9 @@ export function describe(s: PublishedSearch['pareto'][number]['section']): strin
   const same = s.topFlange.width === s.bottomFlange.width && s.topFlange.thickness === s.bottomFlange.thickness;
   const flanges = same ? `2 fl ${fl(s.topFlange)}` : `top ${fl(s.topFlange)} / bot ${fl(s.bottomFlange)}`;
   const st = s.stiffeners ? `stiff ${s.stiffeners.width}×${s.stiffeners.thickness} @${Math.round(s.stiffeners.spacing)}${s.stiffeners.sides === 1 ? ' 1-side' : ''}` : 'no stiff';
-  const grade = typeof s.grade === 'string' ? s.grade : `${s.grade.web}/${s.grade.flanges}`;
-  return `web ${s.web.depth}×${s.web.thickness}, ${flanges}, ${st}, ${s.endPost} end post, ${grade}`;
+  const gs = s.grade ?? 'S355';
+  const grade = typeof gs === 'string' ? gs : `${gs.web}/${gs.flanges}`;
+  return `web ${s.web.depth}×${s.web.thickness}, ${flanges}, ${st}, ${s.endPost ?? 'rigid'} end post, ${grade}`;
 }
 
 export async function runSearch(input: unknown, json: boolean, io: Out): Promise<number> {
