@@ -168,8 +168,11 @@ describe('ltbSetBound', () => {
       const s = sectionOf(k);
       const ctx = prepare(s, o);
       for (const t of [0, 1, ...c.t]) {
-        const u = ltbUtilisation(ctx, load.momentEnvelope!(gLo + t * (gHi - gLo)), (side) => bendingForSign(ctx, side));
+        // the check's own utilisation (converged Mcr), and the screen's (first basis), both above the bound
+        const u = ltbUtilisation(ctx, load.momentEnvelope!(gLo + t * (gHi - gLo)), (side) => bendingForSign(ctx, side), Infinity, true);
         expect(bound).toBeLessThanOrEqual(u * (1 + 1e-9));
+        const screen = ltbUtilisation(ctx, load.momentEnvelope!(gLo + t * (gHi - gLo)), (side) => bendingForSign(ctx, side));
+        expect(bound).toBeLessThanOrEqual(screen * (1 + 1e-9));
       }
     }
   });
