@@ -10,7 +10,7 @@ import type { Assumption } from './convert.js';
 export const VALUE_UNITS: Record<string, ValueUnit> = {};
 
 const groups: [ValueUnit, string[]][] = [
-  ['kNm', ['MEd', 'McRd', 'MplRd', 'MelRd', 'MeffRd', 'MfRd', 'Mcr', 'McrUniform', 'McrThreeFactor', 'MbRd', 'MyRd', 'MRd', 'MplFlangesRd']],
+  ['kNm', ['MEd', 'MEdVbf', 'McRd', 'MplRd', 'MelRd', 'MeffRd', 'MfRd', 'Mcr', 'McrUniform', 'McrThreeFactor', 'MbRd', 'MyRd', 'MRd', 'MplFlangesRd']],
   ['kN', ['VEd', 'VplRd', 'VbwRd', 'VbfRd', 'VbRd', 'NEd', 'NbRd', 'FRd', 'F', 'FEd', 'R', 'FbRd', 'Fcr', 'Ncr', 'NcrStiff', 'VEdPanel']],
   ['kN/m', ['vEd', 'FwRd', 'FwEd', 'fwEd']],
   ['MPa', ['fy', 'fyw', 'fyf', 'fyTop', 'fyBot', 'fvwd', 'fu', 'fyStiff', 'sigmaEd', 'tauEd']],
