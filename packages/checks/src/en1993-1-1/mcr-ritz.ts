@@ -315,9 +315,6 @@ function assemblePrismatic(seg: RitzSegment, N: number, sigma: number, Mmax: num
   const q = seg.pieces[0]!;
   const kMax = 2 * N;
   grow(kMax + 1);
-  if (MS.length < n) MS = new Float64Array(n);
-  for (let s = 0; s < n; s++) MS[s] = sigma * Ms[s]!;
-  cosMomentsOfDiagram(FM, xs, MS, n, L, kMax);
   if (DU.length < N) {
     DU = new Float64Array(N);
     DP = new Float64Array(N);
@@ -327,6 +324,33 @@ function assemblePrismatic(seg: RitzSegment, N: number, sigma: number, Mmax: num
     PE = new Float64Array(N * N);
   }
   const t = Math.PI / L;
+  // one pass over the inner points: Fₖ of m (cosMomentsOfDiagram, integrated by parts: the kinks
+  // Kₛ of m = σM) and Rₖ = Σ Pₛzg cos(kπxₛ/L) of the destabilising loads Pₛ = M'(x−) − M'(x+),
+  // so that Σ Pₛzg sinᵢ sinⱼ = (R|i−j| − Ri+j)/2
+  const zg = q.zg;
+  let F0 = 0;
+  for (let s = 0; s + 1 < n; s++) F0 += 0.5 * sigma * (Ms[s]! + Ms[s + 1]!) * (xs[s + 1]! - xs[s]!);
+  const first = (Ms[1]! - Ms[0]!) / (xs[1]! - xs[0]!);
+  const last = (Ms[n - 1]! - Ms[n - 2]!) / (xs[n - 1]! - xs[n - 2]!);
+  FM[0] = F0;
+  FW[0] = 0;
+  for (let k = 1; k <= kMax; k++) {
+    FM[k] = sigma * ((k & 1 ? -last : last) - first);
+    FW[k] = 0; // R here
+  }
+  let prev = first;
+  for (let s = 1; s + 1 < n; s++) {
+    const next = (Ms[s + 1]! - Ms[s]!) / (xs[s + 1]! - xs[s]!);
+    const P = prev - next;
+    prev = next;
+    if (P === 0) continue;
+    harmonics(t * xs[s]!, kMax);
+    const K = sigma * P;
+    for (let k = 1; k <= kMax; k++) FM[k] = FM[k]! + K * COS[k]!;
+    const Pz = P * zg;
+    if (Pz > 0) for (let k = 0; k <= kMax; k++) FW[k] = FW[k]! + Pz * COS[k]!;
+  }
+  for (let k = 1; k <= kMax; k++) FM[k] = FM[k]! / (k * t * k * t);
   const ek = (E * q.Iz) / (seg.k * seg.k);
   const ekw = (E * q.Iw) / (seg.kw * seg.kw);
   const git = G * q.It;
@@ -342,22 +366,11 @@ function assemblePrismatic(seg: RitzSegment, N: number, sigma: number, Mmax: num
     for (let j = 1; j <= N; j++) {
       const d = i > j ? i - j : j - i;
       const pj = j * t;
-      PB[(i - 1) * N + (j - 1)] = (pi * pi * (FM[d]! - FM[i + j]!)) / 2 / (DU[i - 1]! * DP[j - 1]!);
-      PE[(i - 1) * N + (j - 1)] = (-pi * pj * w2 * (FM[d]! + FM[i + j]!)) / 2;
+      const r = (i - 1) * N + (j - 1);
+      PB[r] = (pi * pi * (FM[d]! - FM[i + j]!)) / 2 / (DU[i - 1]! * DP[j - 1]!);
+      PE[r] = ((-pi * pj * w2 * (FM[d]! + FM[i + j]!)) / 2 + (FW[d]! - FW[i + j]!) / 2) / (DP[i - 1]! * DP[j - 1]!);
     }
   }
-  // destabilising transverse loads at the kinks: P = M'(x−) − M'(x+) (downward positive)
-  const zg = q.zg;
-  if (zg !== 0) {
-    for (let s = 1; s + 1 < n; s++) {
-      const P = (Ms[s]! - Ms[s - 1]!) / (xs[s]! - xs[s - 1]!) - (Ms[s + 1]! - Ms[s]!) / (xs[s + 1]! - xs[s]!);
-      const Pz = P * zg;
-      if (!(Pz > 0)) continue;
-      harmonics(t * xs[s]!, N);
-      for (let i = 1; i <= N; i++) for (let j = 1; j <= N; j++) PE[(i - 1) * N + (j - 1)] = PE[(i - 1) * N + (j - 1)]! + Pz * SIN[i]! * SIN[j]!;
-    }
-  }
-  for (let i = 0; i < N; i++) for (let j = 0; j < N; j++) PE[i * N + j] = PE[i * N + j]! / (DP[i]! * DP[j]!);
   return { B: PB, Em: PE, Mmax };
 }
 
