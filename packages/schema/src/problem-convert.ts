@@ -52,7 +52,7 @@ export function toAnalysis(p: ProblemJson, extraStations: number[] = []): Analys
   }
   const actions: ActionSpec[] = (p.actions ?? []).map((a) => {
     const out: ActionSpec = { kind: a.kind, load: a.load, value: a.load === 'point' ? toN(a.value) : a.value };
-    for (const k of ['at', 'from', 'to', 'ss', 'psi0', 'psi1', 'psi2', 'category', 'name'] as const) {
+    for (const k of ['at', 'from', 'to', 'ss', 'psi0', 'psi1', 'psi2', 'category', 'group', 'name'] as const) {
       if (a[k] !== undefined) (out as unknown as Record<string, unknown>)[k] = a[k];
     }
     return out;
@@ -63,6 +63,7 @@ export function toAnalysis(p: ProblemJson, extraStations: number[] = []): Analys
     spans: p.spans ?? [],
     actions,
     combination: p.combination ?? '6.10',
+    ...(p.annex ? { annex: p.annex } : {}),
     ...(p.factors ? { factors: p.factors } : {}),
     ...(p.deflection ? { deflection: p.deflection } : {}),
     ...(p.gridDivisions ? { gridDivisions: p.gridDivisions } : {}),
@@ -84,10 +85,13 @@ export function selfWeight(s: Section, supports: readonly number[]): number {
 export function problemAssumptions(p: ProblemJson): Assumption[] {
   if (p.envelope) return [{ field: 'envelope', value: 'given', note: 'design effects taken from your own global analysis as given (no combination, no self-weight added)' }];
   const out: Assumption[] = [];
-  if (p.combination === undefined) out.push({ field: 'combination', value: '6.10', note: 'EN 1990 Annex A1 (buildings), eq. 6.10, each variable action leading in turn; 6.10ab for the worse of 6.10a and 6.10b' });
+  const a2 = p.annex === 'A2-road';
+  if (p.annex === undefined) out.push({ field: 'annex', value: 'A1', note: 'EN 1990 Annex A1 (buildings); give "A2-road" for a road bridge (Table A2.4(B) factors, traffic groups)' });
+  if (p.combination === undefined) out.push({ field: 'combination', value: '6.10', note: `EN 1990 eq. 6.10, each variable action${a2 ? ' (or traffic group)' : ''} leading in turn; 6.10ab for the worse of 6.10a and 6.10b` });
   const f = p.factors ?? {};
-  const missing = (['gammaGsup', 'gammaGinf', 'gammaQ', 'xi'] as const).filter((k) => f[k] === undefined);
-  if (missing.length > 0) out.push({ field: 'factors', value: 'A1.2(B)', note: `EN 1990 Table A1.2(B) recommended ${missing.map((k) => `${k} = ${{ gammaGsup: 1.35, gammaGinf: 1.0, gammaQ: 1.5, xi: 0.85 }[k]}`).join(', ')} (buildings)` });
+  const rec = a2 ? { gammaGsup: 1.35, gammaGinf: 1.0, gammaQ: 1.5, gammaQTraffic: 1.35, xi: 0.85 } : { gammaGsup: 1.35, gammaGinf: 1.0, gammaQ: 1.5, xi: 0.85 };
+  const missing = (Object.keys(rec) as (keyof typeof rec)[]).filter((k) => (f as Record<string, unknown>)[k] === undefined);
+  if (missing.length > 0) out.push({ field: 'factors', value: a2 ? 'A2.4(B)' : 'A1.2(B)', note: `EN 1990 Table ${a2 ? 'A2.4(B)' : 'A1.2(B)'} recommended ${missing.map((k) => `${k} = ${(rec as Record<string, number>)[k]}`).join(', ')} (${a2 ? 'road bridges' : 'buildings'})` });
   if (p.deflection === undefined) out.push({ field: 'deflection', value: 'L/250 total, L/360 variable', note: 'characteristic SLS combination (common practice, no source)' });
   if (p.gridDivisions === undefined) out.push({ field: 'gridDivisions', value: 40, note: 'analysis stations per span (plus supports, loads, stiffeners and restraints)' });
   for (const [i, a] of (p.actions ?? []).entries()) {
