@@ -57,11 +57,15 @@ test('nightly round trip: --out, then --baseline with heavier loads → exit 1, 
   expect(md).toMatch(/^\| N1 \| regressed \|/m);
   expect(readFileSync(f('d2.html'), 'utf8')).toContain('id="mark-N1"');
 
-  // the same day again against day 2's result: nothing regressed (a known failure stays known)
+  // the same day again against day 2's result: the adopted section still fails, and a failing
+  // adopted section fails the nightly job with a baseline as without one (#19: it exited 0)
   writeFileSync(f('base2.json'), JSON.stringify(r2));
-  const d3 = await run('schedule', f('day2.json'), '--baseline', f('base2.json'), '--json', '--quiet', '--threads', '2');
-  expect(d3.code).toBe(0);
-  expect(JSON.parse(d3.out).comparison.counts).toMatchObject({ regressed: 0, pass: 2 });
+  const d3 = await run('schedule', f('day2.json'), '--baseline', f('base2.json'), '--junit', f('d3.xml'), '--json', '--quiet', '--threads', '2');
+  expect(d3.code).toBe(1);
+  expect(JSON.parse(d3.out).comparison.counts).toMatchObject({ regressed: 1, pass: 1 });
+  expect(readFileSync(f('d3.xml'), 'utf8')).toMatch(/<testcase [^>]*name="N1">\s*<failure message="adopted section fails/);
+  expect(readFileSync(f('d2.md'), 'utf8')).toContain('> **Caution.** Platesmith is a design aid.');
+  expect(r2).toMatchObject({ caution: expect.stringContaining('design aid'), scope: expect.stringContaining('Not covered') });
 });
 
 test('CSV schedule with --rationalise: exit 0, rationalisation per K in the result', async () => {
@@ -104,6 +108,6 @@ test('bad input: exit 2 naming the row and column, the field, the flag, or the f
 
   expect((await run('schedule', f('ok.json'), '--rationalise', '0')).code).toBe(2);
   expect((await run('schedule', f('ok.json'), '--colour')).code).toBe(2);
-  expect((await run('schedule', f('missing.json'))).err).toContain('cannot read');
+  expect((await run('schedule', f('missing.json'))).err).toContain(`cannot read ${f('missing.json')}: no such file`);
   expect((await run('schedule')).code).toBe(2);
 });

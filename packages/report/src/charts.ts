@@ -128,3 +128,102 @@ export function envelopeChart(
   const dots = pts.map((p) => `<circle class="station" cx="${n(sx(p[0]))}" cy="${n(sy(p[1]))}" r="1.6"/>`).join('');
   return svg('envelope', opts.title, f, `${xAxis(sx, f.height - m.bottom, 'x along the girder (mm)', f)}${yAxis(sy, m.left, opts.yLabel, f)}${zero}${res}<path class="effect" d="${d ?? ''}"/>${dots}`);
 }
+
+/** One line of a multi-line chart: y at each x, drawn in its own class (`s0`, `s1`, …). */
+export interface Series {
+  name: string;
+  y: readonly number[];
+}
+
+/**
+ * Several quantities along the girder (x in mm) on one pair of axes: the moment or shear
+ * envelope (the largest and the least over the combinations), or utilisations; optional
+ * horizontal reference lines (e.g. the utilisation limit 1.0) and marks at single points
+ * (e.g. a check's governing station). A legend names each line. Values in the caller's units.
+ */
+export function linesChart(
+  x: readonly number[],
+  series: readonly Series[],
+  opts: { title: string; yLabel: string; refs?: readonly { name: string; value: number }[]; marks?: readonly { x: number; y: number; label: string }[]; fill?: boolean },
+  f: Frame = FRAME,
+): string {
+  const m = f.margin;
+  const ok = series.filter((s) => s.y.length === x.length && x.length > 0);
+  if (ok.length === 0) return svg('lines empty', opts.title, f, `<text class="empty" x="${f.width / 2}" y="${f.height / 2}" text-anchor="middle">no stations</text>`);
+  const refs = (opts.refs ?? []).filter((r) => Number.isFinite(r.value));
+  const marks = (opts.marks ?? []).filter((p) => Number.isFinite(p.x) && Number.isFinite(p.y));
+  const ys = [0, ...ok.flatMap((s) => s.y.filter(Number.isFinite)), ...refs.map((r) => r.value), ...marks.map((p) => p.y)];
+  const sx = scaleLinear().domain(extent(x)).range([m.left, f.width - m.right]);
+  const sy = scaleLinear().domain(pad(extent(ys), 0.05)).nice().range([f.height - m.bottom, m.top]);
+  const paths = ok
+    .map((s, k) => {
+      const pts = x.map((xi, i) => [xi, s.y[i]!] as [number, number]).filter((p) => Number.isFinite(p[1]));
+      const d = line<[number, number]>()
+        .x((p) => sx(p[0]))
+        .y((p) => sy(p[1]))(pts);
+      const area = opts.fill ? `<path class="area s${k}" d="M${n(sx(pts[0]![0]))},${n(sy(0))}L${(d ?? '').slice(1)}L${n(sx(pts[pts.length - 1]![0]))},${n(sy(0))}Z"/>` : '';
+      return `${area}<path class="series s${k}" d="${d ?? ''}"><title>${esc(s.name)}</title></path>`;
+    })
+    .join('');
+  const refLines = refs
+    .map((r) => `<g class="ref"><line x1="${m.left}" x2="${f.width - m.right}" y1="${n(sy(r.value))}" y2="${n(sy(r.value))}"/><text x="${f.width - m.right - 4}" y="${n(sy(r.value) - 4)}" text-anchor="end">${esc(r.name)}</text></g>`)
+    .join('');
+  const dots = marks.map((p) => `<g class="mark"><circle cx="${n(sx(p.x))}" cy="${n(sy(p.y))}" r="3.5"/><title>${esc(p.label)}</title></g>`).join('');
+  const legend = ok
+    .map((s, k) => `<g class="legend-item" transform="translate(${m.left + 8 + k * 150},${m.top + 2})"><line class="series s${k}" x1="0" x2="18" y1="0" y2="0"/><text x="22" dy="0.32em">${esc(s.name)}</text></g>`)
+    .join('');
+  const zero = `<line class="zero" x1="${m.left}" x2="${f.width - m.right}" y1="${n(sy(0))}" y2="${n(sy(0))}"/>`;
+  return svg('lines', opts.title, f, `${xAxis(sx, f.height - m.bottom, 'x along the girder (mm)', f)}${yAxis(sy, m.left, opts.yLabel, f)}${zero}${paths}${refLines}${dots}<g class="legend">${legend}</g>`);
+}
+
+/** Plates of a welded I-section, mm (hw clear between the flanges). */
+export interface IPlates {
+  hw: number;
+  tw: number;
+  bTop: number;
+  tTop: number;
+  bBot: number;
+  tBot: number;
+}
+
+/**
+ * The cross-section drawn to scale with its dimensions (mm): flange widths above and below,
+ * overall depth h and clear web depth hw on the left, plate thicknesses on the right. Plates
+ * thinner than 2 px at the drawing's scale are drawn 2 px thick so they stay visible (the
+ * dimension text gives the true value); the elastic neutral axis as a dash-dot line.
+ */
+export function sectionDrawing(p: IPlates, opts: { title: string; zElastic?: number }, f: Frame = { width: 360, height: 360, margin: { top: 34, right: 96, bottom: 34, left: 96 } }): string {
+  const m = f.margin;
+  const h = p.hw + p.tTop + p.tBot;
+  const b = Math.max(p.bTop, p.bBot);
+  const s = Math.min((f.width - m.left - m.right) / b, (f.height - m.top - m.bottom) / h);
+  const cx = m.left + (f.width - m.left - m.right) / 2;
+  const y0 = m.top + (f.height - m.top - m.bottom - h * s) / 2;
+  const t = (v: number) => Math.max(2, v * s);
+  const yTop = y0;
+  const yWeb0 = y0 + t(p.tTop);
+  const yBot = y0 + h * s - t(p.tBot);
+  const yEnd = y0 + h * s;
+  const rect = (x: number, y: number, w: number, hh: number, cls: string) => `<rect class="plate ${cls}" x="${n(x)}" y="${n(y)}" width="${n(w)}" height="${n(hh)}"/>`;
+  const plates =
+    rect(cx - (p.bTop * s) / 2, yTop, p.bTop * s, t(p.tTop), 'top') +
+    rect(cx - t(p.tw) / 2, yWeb0, t(p.tw), yBot - yWeb0, 'web') +
+    rect(cx - (p.bBot * s) / 2, yBot, p.bBot * s, t(p.tBot), 'bottom');
+  const dimH = (x1: number, x2: number, y: number, label: string, above: boolean) =>
+    `<g class="dim"><line x1="${n(x1)}" x2="${n(x2)}" y1="${n(y)}" y2="${n(y)}"/><line x1="${n(x1)}" x2="${n(x1)}" y1="${n(y - 4)}" y2="${n(y + 4)}"/><line x1="${n(x2)}" x2="${n(x2)}" y1="${n(y - 4)}" y2="${n(y + 4)}"/><text x="${n((x1 + x2) / 2)}" y="${n(above ? y - 6 : y + 14)}" text-anchor="middle">${esc(label)}</text></g>`;
+  const dimV = (x: number, y1: number, y2: number, label: string, dy: number) =>
+    `<g class="dim"><line x1="${n(x)}" x2="${n(x)}" y1="${n(y1)}" y2="${n(y2)}"/><line x1="${n(x - 4)}" x2="${n(x + 4)}" y1="${n(y1)}" y2="${n(y1)}"/><line x1="${n(x - 4)}" x2="${n(x + 4)}" y1="${n(y2)}" y2="${n(y2)}"/><text x="${n(x - 4)}" y="${n((y1 + y2) / 2 + dy)}" dy="0.32em" text-anchor="end">${esc(label)}</text></g>`;
+  const note = (x: number, y: number, label: string) => `<text class="dim-note" x="${n(x)}" y="${n(y)}" dy="0.32em">${esc(label)}</text>`;
+  const xl = cx - (b * s) / 2;
+  const xr = cx + (b * s) / 2;
+  const dims =
+    dimH(cx - (p.bTop * s) / 2, cx + (p.bTop * s) / 2, yTop - 12, `bf,top = ${p.bTop}`, true) +
+    dimH(cx - (p.bBot * s) / 2, cx + (p.bBot * s) / 2, yEnd + 12, `bf,bot = ${p.bBot}`, false) +
+    dimV(xl - 44, yTop, yEnd, `h = ${h}`, -12) +
+    dimV(xl - 10, yWeb0, yBot, `hw = ${p.hw}`, 12) +
+    note(xr + 8, yTop + t(p.tTop) / 2, `tf,top = ${p.tTop}`) +
+    note(xr + 8, yBot + t(p.tBot) / 2, `tf,bot = ${p.tBot}`) +
+    note(cx + t(p.tw) / 2 + 6, (yWeb0 + yBot) / 2 - 14, `tw = ${p.tw}`);
+  const na = opts.zElastic !== undefined ? `<line class="na" x1="${n(xl - 6)}" x2="${n(xr + 6)}" y1="${n(yEnd - opts.zElastic * s)}" y2="${n(yEnd - opts.zElastic * s)}"><title>elastic neutral axis, ${esc(fmt(opts.zElastic))} mm above the underside</title></line>` : '';
+  return svg('section', opts.title, f, `${plates}${na}${dims}`);
+}

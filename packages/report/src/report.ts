@@ -1,7 +1,8 @@
 import { CAUTION, SCOPE, type PublishedSearch, type PublishedVerdict } from '@platesmith/schema';
 import { envelopeChart, paretoChart, utilisationChart } from './charts.js';
 import { esc } from './html.js';
-import type { ReportInput, ReportMark, ReportRationalisation, ReportTonnage } from './types.js';
+import type { ReportInput, ReportMark, ReportRationalisation, ReportReconciliation, ReportTonnage } from './types.js';
+import { sectionKeyInWords } from './words.js';
 
 const STYLE = `
 :root { --ink:#1b1f24; --muted:#5b6570; --rule:#c9d0d6; --accent:#1f5f8b; --ok:#2e7d4f; --bad:#b3261e; }
@@ -39,17 +40,21 @@ svg .resistance.r1 line { stroke: #a0620b; }
 svg .resistance text { fill: var(--ink); font-size: 11px; }
 svg line.zero { stroke: #999; }
 @media print {
-  @page { size: A4; margin: 22mm 12mm 20mm; }
+  @page { size: A4; margin: 12mm; }
   body { font-size: 10pt; }
-  header.page { position: fixed; top: -18mm; left: 0; right: 0; background: none; padding: 0; border: 0; }
-  footer.page { position: fixed; bottom: -16mm; left: 0; right: 0; background: none; padding: 0; border: 0; margin: 0; }
+  header.page, footer.page { background: none; padding: 0; border: 0; margin: 0; }
   header.page h1 { font-size: 11pt; }
   .caution { font-size: 7pt; }
   main { padding: 0; }
   section.mark { break-before: page; border-top: 0; }
   thead { display: table-header-group; }
   tr, svg { break-inside: avoid; }
+  table.frame > tbody > tr { break-inside: auto; }
 }
+/* the running header and footer: the head and foot of one table framing the report, repeated on every printed page */
+table.frame { width: 100%; border-collapse: collapse; margin: 0; }
+table.frame > thead > tr > td, table.frame > tfoot > tr > td, table.frame > tbody > tr > td { border: 0; padding: 0; }
+table.frame > tfoot { display: table-footer-group; }
 `;
 
 const kg = (v: number) => Math.round(v).toLocaleString('en-GB');
@@ -92,19 +97,28 @@ function markSection(m: ReportMark): string {
   const assumed = m.assumptions?.length
     ? table(`${m.mark}: assumed (not given in the input)`, ['field', 'value', 'meaning'], m.assumptions.map((a) => [esc(a.field), esc(Array.isArray(a.value) ? a.value.join(', ') : String(a.value)), esc(a.note)]), [false, false, false])
     : '';
+  const basis = m.basis?.length ? `<ul class="basis">${m.basis.map((b) => `<li>${esc(b)}</li>`).join('')}</ul>` : '';
+  const sect = m.section ? `<p class="section-words"><strong>${m.section.of === 'adopted' ? 'Adopted' : 'Lightest'} section:</strong> ${esc(m.section.words)}</p>` : '';
   const rows = m.pareto.map((p) => [String(Math.round(p.depth)), kg(p.mass), esc(p.governing ?? '')]);
-  return `<section class="mark" id="mark-${esc(m.mark)}"><h2>${esc(m.mark)}</h2><p>${facts.join(' · ')}</p>${notes}<div class="charts">${charts.join('')}</div>${assumed}${rows.length ? table(`${m.mark}: Pareto points`, ['h (mm)', 'mass (kg)', 'governing'], rows, [true, true, false]) : ''}</section>`;
+  return `<section class="mark" id="mark-${esc(m.mark)}"><h2>${esc(m.mark)}</h2><p>${facts.join(' · ')}</p>${basis}${sect}${notes}<div class="charts">${charts.join('')}</div>${assumed}${rows.length ? table(`${m.mark}: Pareto points`, ['h (mm)', 'mass (kg)', 'governing'], rows, [true, true, false]) : ''}</section>`;
 }
 
-function tonnageSection(t: ReportTonnage): string {
+function reconciliationTable(r: ReportReconciliation): string {
+  const rows = r.byMark.map((m) => [esc(m.mark), String(m.quantity), m.section, kg(m.perGirder), m.lightestPerGirder === null ? '–' : kg(m.lightestPerGirder), m.savingPerGirder === null ? '–' : kg(m.savingPerGirder), m.saving === null ? '–' : t3(m.saving)]);
+  rows.push(['<strong>total</strong>', '', '', '', '', '', `<strong>${t3(r.saving)}</strong>`]);
+  return `<p>Tonnage counted (adopted section where given, else the lightest): <strong>${t3(r.used)} t</strong> = ${t3(r.lightest)} t on the lightest sections + ${t3(r.saving)} t that adopting the lightest would save. Bearing stiffeners are counted in every figure.</p>${table('Saving of the lightest section against the section counted', ['mark', 'quantity', 'section counted', 'kg per girder', 'lightest, kg per girder', 'saving, kg per girder', 'saving (t)'], rows, [false, true, false, true, true, true, true])}`;
+}
+
+function tonnageSection(t: ReportTonnage, r?: ReportReconciliation, currency?: string | null): string {
+  const costHead = currency ? `cost (${currency})` : 'cost';
   const withCost = t.cost !== null || t.byGrade.some((g) => g.cost !== null);
   const byMark = table(
     'Tonnage by mark',
-    ['mark', 'quantity', 'length (mm)', 'kg per girder', 'kg/m', 'total (t)', ...(withCost ? ['cost'] : [])],
+    ['mark', 'quantity', 'length (mm)', 'kg per girder', 'kg/m', 'total (t)', ...(withCost ? [costHead] : [])],
     t.byMark.map((m) => [esc(m.mark), String(m.quantity), String(m.length), kg(m.perGirder.total), m.perMetre.toFixed(1), t3(m.total), ...(withCost ? [money(m.cost)] : [])]),
     [false, true, true, true, true, true, true],
   );
-  const byGrade = table('Tonnage by grade', ['grade', 'mass (t)', ...(withCost ? ['cost'] : [])], t.byGrade.map((g) => [esc(g.grade), t3(g.mass), ...(withCost ? [money(g.cost)] : [])]), [false, true, true]);
+  const byGrade = table('Tonnage by grade', ['grade', 'mass (t)', ...(withCost ? [costHead] : [])], t.byGrade.map((g) => [esc(g.grade), t3(g.mass), ...(withCost ? [money(g.cost)] : [])]), [false, true, true]);
   const byThickness = table('Tonnage by thickness', ['product', 'thickness (mm)', 'mass (t)'], t.byThickness.map((b) => [b.kind === 'plate' ? 'plate' : 'flat bar', String(b.thickness), t3(b.mass)]), [false, true, true]);
   const plates = table(
     'Plate list',
@@ -112,8 +126,9 @@ function tonnageSection(t: ReportTonnage): string {
     t.plates.map((p) => [p.kind === 'plate' ? 'plate' : 'flat bar', esc(p.grade), String(p.thickness), String(p.width), String(p.length), String(p.count), kg(p.mass), esc(p.marks.join(', '))]),
     [false, false, true, true, true, true, true, false],
   );
-  const total = `<p>Total ${t3(t.total)} t over ${t.girders} girders${t.cost !== null ? `; cost ${money(t.cost)}` : ''}. Welds, snipes and cutting allowances are not included.</p>`;
-  return `<section class="tonnage"><h2>Tonnage</h2>${total}${byMark}${byGrade}${byThickness}${plates}</section>`;
+  const cur = currency ? ` ${esc(currency)}` : ' (the rates\' currency)';
+  const total = `<p>Total ${t3(t.total)} t over ${t.girders} girders${t.cost !== null ? `; material cost ${money(t.cost)}${cur}` : ''}. Welds, snipes and cutting allowances are not included.</p>`;
+  return `<section class="tonnage"><h2>Tonnage</h2>${total}${r ? reconciliationTable(r) : ''}${byMark}${byGrade}${byThickness}${plates}</section>`;
 }
 
 function rationalisationSection(r: ReportRationalisation): string {
@@ -121,7 +136,7 @@ function rationalisationSection(r: ReportRationalisation): string {
   const val = (v: number) => (r.objective === 'mass' ? t3(v) : money(v));
   const rows = r.byK.map((k) =>
     k.feasible
-      ? [String(k.K), val(k.total), val(k.penalty), `${(k.penaltyRatio * 100).toFixed(2)} %`, esc(k.sections.join(', '))]
+      ? [String(k.K), val(k.total), val(k.penalty), `${(k.penaltyRatio * 100).toFixed(2)} %`, k.sections.map((x) => esc(sectionKeyInWords(x))).join('<br>')]
       : [String(k.K), '–', '–', '–', `<span class="fail">${esc(k.reason)}</span>`],
   );
   const base = r.unrationalised === null ? '<p class="fail">A mark has no feasible section; no rationalisation is possible.</p>' : `<p>Every mark on its own best section: ${val(r.unrationalised)} ${unit === 't' ? 't' : ''}.</p>`;
@@ -131,14 +146,14 @@ function rationalisationSection(r: ReportRationalisation): string {
 /**
  * One self-contained HTML file for a schedule result: inline CSS and SVG drawn here, nothing
  * fetched when viewed, no script. The caution and scope are printed in the header and the
- * footer (fixed on every printed page).
+ * footer, which repeat on every printed page (the head and foot of a table framing the report).
  */
 export function renderReport(input: ReportInput): string {
   const head = `<header class="page"><h1>${esc(input.title)}</h1>${input.subtitle ? `<div>${esc(input.subtitle)}</div>` : ''}${caution()}</header>`;
   const foot = `<footer class="page">${caution()}${input.generatedAt ? `<p class="caution">Generated ${esc(input.generatedAt)}.</p>` : ''}</footer>`;
   const index = input.marks.length > 1 ? `<nav><p>Marks: ${input.marks.map((m) => `<a href="#mark-${esc(m.mark)}">${esc(m.mark)}</a>`).join(' · ')}</p></nav>` : '';
-  const body = [index, ...(input.tonnage ? [tonnageSection(input.tonnage)] : []), ...(input.rationalisation ? [rationalisationSection(input.rationalisation)] : []), ...input.marks.map(markSection)].join('\n');
-  return `<!DOCTYPE html>\n<html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:"><title>${esc(input.title)}</title><style>${STYLE}</style></head><body>${head}<main>${body}</main>${foot}</body></html>\n`;
+  const body = [index, ...(input.tonnage ? [tonnageSection(input.tonnage, input.reconciliation, input.currency)] : []), ...(input.rationalisation ? [rationalisationSection(input.rationalisation)] : []), ...input.marks.map(markSection)].join('\n');
+  return `<!DOCTYPE html>\n<html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:"><title>${esc(input.title)}</title><style>${STYLE}</style></head><body><table class="frame" role="presentation"><thead><tr><td>${head}</td></tr></thead><tfoot><tr><td>${foot}</td></tr></tfoot><tbody><tr><td><main>${body}</main></td></tr></tbody></table></body></html>\n`;
 }
 
 /**

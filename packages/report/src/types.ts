@@ -11,6 +11,10 @@ export interface ReportInput {
   generatedAt?: string;
   marks: ReportMark[];
   tonnage?: ReportTonnage;
+  /** how the tonnage reconciles with the lightest sections, kg */
+  reconciliation?: ReportReconciliation;
+  /** currency of the costs (null or absent: not said) */
+  currency?: string | null;
   rationalisation?: ReportRationalisation;
 }
 
@@ -49,6 +53,17 @@ export interface ReportMark {
   notes?: string[];
   /** the defaults the mark's answer applied (field, value, note) */
   assumptions?: readonly { field: string; value: string | number | boolean | readonly number[]; note: string }[];
+  /** the design basis of the mark in words (spans, actions, options) */
+  basis?: string[];
+  /** the section counted for the mark, in words */
+  section?: { of: 'adopted' | 'lightest'; words: string };
+}
+
+export interface ReportReconciliation {
+  byMark: readonly { mark: string; quantity: number; section: 'adopted' | 'lightest'; perGirder: number; lightestPerGirder: number | null; savingPerGirder: number | null; saving: number | null }[];
+  used: number;
+  lightest: number;
+  saving: number;
 }
 
 export interface ReportTonnage {

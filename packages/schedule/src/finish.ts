@@ -1,5 +1,5 @@
 import { isDomainError, type GradeName } from '@platesmith/catalogue';
-import { CheckProblemInput, parseWith, runCheckJob, SearchInput, SectionJson, supportsOf, toCheckProblem } from '@platesmith/schema';
+import { CAUTION, CheckProblemInput, parseWith, SCOPE, runCheckJob, SearchInput, SectionJson, supportsOf, toCheckProblem } from '@platesmith/schema';
 import type { MarkResult, ScheduleResult } from './run.js';
 import { totalsOf } from './run.js';
 import { mergeGirder, type BaselineJson, type ScheduleJson } from './schema.js';
@@ -31,7 +31,33 @@ export interface ScheduleTender {
   /** marks left out of the tonnage, with the reason (failed, or no feasible section) */
   leftOut: { mark: string; reason: string }[];
   tonnage: Tonnage | null;
+  /**
+   * How the tonnage reconciles with the lightest sections, kg: per mark the section counted (its
+   * mass per girder, bearing stiffeners included, as in byMark) against the lightest the search
+   * found, and the saving if the lightest were adopted; `used` = `lightest` + `saving` in total
+   * (marks left out of the tonnage count in neither).
+   */
+  reconciliation: {
+    byMark: { mark: string; quantity: number; section: 'adopted' | 'lightest'; perGirder: number; lightestPerGirder: number | null; savingPerGirder: number | null; saving: number | null }[];
+    used: number;
+    lightest: number;
+    saving: number;
+  } | null;
+  /** currency of the rates and costs, as given (null: not said) */
+  currency: string | null;
   rationalisation: RationalisationOutcome | null;
+}
+
+/** Masses to the gram (kg, 3 decimals) and costs to the cent, without binary round-off in the JSON. */
+function rounded<T>(v: T, key = ''): T {
+  if (typeof v === 'number') {
+    if (!Number.isFinite(v) || Number.isInteger(v)) return v;
+    const d = /cost/i.test(key) ? 2 : 3;
+    return Number(v.toFixed(d)) as T;
+  }
+  if (Array.isArray(v)) return v.map((x) => rounded(x, key)) as T;
+  if (v !== null && typeof v === 'object') return Object.fromEntries(Object.entries(v).map(([k, x]) => [k, rounded(x, k)])) as T;
+  return v;
 }
 
 /**
@@ -42,6 +68,8 @@ export interface ScheduleTender {
 export interface ScheduleRunResult extends ScheduleResult {
   format: typeof RESULT_FORMAT;
   version: typeof RESULT_VERSION;
+  caution: string;
+  scope: string;
   records: MarkRecord[];
   comparison: ScheduleComparison | null;
   tender: ScheduleTender;
@@ -70,11 +98,19 @@ export function recordOf(m: MarkResult): MarkRecord {
 export function compareRun(marks: readonly MarkResult[], baseline: readonly MarkRecord[], massTolerance: number): ScheduleComparison {
   const results = compare(baseline, marks.map(recordOf), { massTolerance });
   const failed = new Map(marks.filter((m) => m.status === 'failed').map((m) => [m.mark, m]));
+  // and one more (#19): an adopted section that fails now is a regression whatever the baseline
+  // said (a nightly job must fail on it, as it does without a baseline), not a mere change
+  const adoptedFails = new Map(marks.filter((m) => m.adopted !== null && !m.adopted.passes).map((m) => [m.mark, m.adopted!]));
   for (const r of results) {
     const f = failed.get(r.mark);
     if (f && r.baseline !== null) {
       r.status = 'regressed';
       r.reasons = [`the mark could not be run: ${f.error?.message ?? 'failed'} (${f.error?.code ?? 'FAILED'})`, ...r.reasons];
+    }
+    const a = adoptedFails.get(r.mark);
+    if (a && r.status !== 'regressed') {
+      r.status = 'regressed';
+      r.reasons = [`adopted section fails (governing: ${a.governing.id}, ${a.governing.clause}, utilisation ${a.governing.utilisation ?? 'inf'})`, ...r.reasons];
     }
   }
   const counts: Record<CompareStatus, number> = { pass: 0, regressed: 0, changed: 0, new: 0, removed: 0 };
@@ -139,8 +175,22 @@ function tenderOf(schedule: ScheduleJson, marks: readonly MarkResult[], inputs: 
     }
     girders.push(tenderGirder(m.mark, m.quantity, section, supportsOf(input)));
   }
-  const t = girders.length > 0 ? tonnage(girders, opts?.rates as Partial<Record<GradeName, number>> | undefined) : null;
-  return { basis, leftOut, tonnage: t, rationalisation: opts?.rationalise !== undefined ? rationaliseRun(schedule, marks, inputs) : null };
+  const t = girders.length > 0 ? rounded(tonnage(girders, opts?.rates as Partial<Record<GradeName, number>> | undefined)) : null;
+  let reconciliation: ScheduleTender['reconciliation'] = null;
+  if (t) {
+    const used = new Map(basis.map((b) => [b.mark, b.section]));
+    const lightestOf = new Map(marks.map((m) => [m.mark, m.search?.lightest?.mass ?? null]));
+    const byMark = t.byMark.map((m) => {
+      const l = lightestOf.get(m.mark) ?? null;
+      const per = m.perGirder.total;
+      const savingPerGirder = l === null ? null : per - l;
+      return { mark: m.mark, quantity: m.quantity, section: used.get(m.mark) ?? 'lightest', perGirder: per, lightestPerGirder: l, savingPerGirder, saving: savingPerGirder === null ? null : savingPerGirder * m.quantity };
+    });
+    const usedTotal = byMark.reduce((a, m) => a + m.perGirder * m.quantity, 0);
+    const saving = byMark.reduce((a, m) => a + (m.saving ?? 0), 0);
+    reconciliation = rounded({ byMark, used: usedTotal, lightest: usedTotal - saving, saving });
+  }
+  return { basis, leftOut, tonnage: t, reconciliation, currency: opts?.currency ?? null, rationalisation: opts?.rationalise !== undefined ? rationaliseRun(schedule, marks, inputs) : null };
 }
 
 function rationaliseRun(schedule: ScheduleJson, marks: readonly MarkResult[], inputs: Map<string, SearchInput | null>): RationalisationOutcome {
@@ -184,6 +234,8 @@ export function finishSchedule(schedule: ScheduleJson, marks: readonly MarkResul
   return {
     format: RESULT_FORMAT,
     version: RESULT_VERSION,
+    caution: CAUTION,
+    scope: SCOPE,
     name: schedule.name ?? null,
     marks: [...marks],
     totals: totalsOf(marks),

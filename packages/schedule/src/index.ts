@@ -14,6 +14,7 @@ export {
   TenderOptionsJson,
   ScheduleRunResultJson,
   mergeGirder,
+  checkFieldsOf,
 } from './schema.js';
 export {
   runSchedule,

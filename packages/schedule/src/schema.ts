@@ -49,7 +49,8 @@ export const TenderOptionsJson = z
     rates: z
       .partialRecord(z.enum(GRADES as unknown as [GradeName, ...GradeName[]]), z.number().nonnegative().refine(Number.isFinite, { message: 'a rate must be finite' }))
       .optional()
-      .meta({ description: 'material cost per kg of each grade (any currency); gives the cost lines' }),
+      .meta({ description: 'material cost per kg of each grade (in `currency`); gives the cost lines' }),
+    currency: z.string().min(1).max(12).optional().meta({ description: 'currency of the rates and costs, printed beside every cost, e.g. "EUR" or "GBP"' }),
     rationalise: z
       .number()
       .int()
@@ -119,6 +120,13 @@ export function mergeGirder(defaults: Readonly<Record<string, unknown>>, girder:
   return out;
 }
 
+/** The problem fields of a mark (defaults merged, the search's own fields left out): add "section" for a check. */
+export function checkFieldsOf(defaults: Readonly<Record<string, unknown>>, girder: Readonly<Record<string, unknown>>): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  for (const [k, v] of Object.entries(mergeGirder(defaults, girder))) if (k !== 'space' && k !== 'objective' && k !== 'cost') out[k] = v;
+  return out;
+}
+
 /** Published result of a schedule run (shape of ScheduleResult). */
 export const MarkErrorJson = z.object({
   code: z.string(),
@@ -170,6 +178,8 @@ export const ScheduleProgressJson = z
 export const ScheduleRunResultJson = ScheduleResultJson.extend({
   format: z.literal('platesmith-schedule-result'),
   version: z.literal(1),
+  caution: z.string().meta({ description: 'a design aid: results to be checked by a competent engineer against the governing code and national annex' }),
+  scope: z.string().meta({ description: 'what the checks do not cover' }),
   records: z.array(MarkRecordJson).meta({ description: 'one per mark; give this document (or { records }) as the baseline of a later run' }),
   comparison: z
     .object({
@@ -192,6 +202,10 @@ export const ScheduleRunResultJson = ScheduleResultJson.extend({
     .object({
       basis: z.array(z.object({ mark: z.string(), section: z.enum(['adopted', 'lightest']) })),
       leftOut: z.array(z.object({ mark: z.string(), reason: z.string() })),
+      reconciliation: z
+        .unknown()
+        .meta({ description: 'byMark (section counted, kg per girder against the lightest, saving), used = lightest + saving, kg; null without tonnage' }),
+      currency: z.string().nullable().meta({ description: 'currency of the costs, as given in tender.currency' }),
       tonnage: z.unknown().meta({ description: 'total, byGrade, byThickness, byMark (quantity included), plates, cost; masses kg, lengths mm; null when no mark has a section' }),
       rationalisation: z.unknown().meta({ description: 'objective, unrationalised, byK (K, total, penalty kg or cost, sections, assignment), or { skipped }; null when not asked' }),
     })

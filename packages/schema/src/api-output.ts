@@ -23,6 +23,9 @@ export const PublishedCheckJson = z
     values: z
       .record(z.string(), z.union([z.number(), z.string(), z.boolean()]))
       .meta({ description: "intermediate values by the standard's symbols: forces kN, moments kNm, lengths mm, areas mm², moduli mm³, second moments mm⁴, stresses MPa" }),
+    units: z
+      .record(z.string(), z.enum(['kN', 'kNm', 'kN/m', 'mm', 'mm2', 'mm3', 'mm4', 'MPa', '-']))
+      .meta({ description: "the unit of each numeric entry of values, as published ('-' for a ratio, factor or class)" }),
   })
   .meta({ id: 'CheckResult' });
 
@@ -101,6 +104,7 @@ export const EffectsSummaryJson = z
     governing: z.object({ MEdMax: z.string(), MEdMin: z.string(), VEdMax: z.string() }).meta({ description: 'labels of the governing combinations' }),
     note: z.string(),
     caution: z.string(),
+    scope: z.string(),
   })
   .meta({ id: 'EffectsSummary', description: 'design values of the governing ULS combinations, without the girder self-weight' });
 export type EffectsSummaryJson = z.output<typeof EffectsSummaryJson>;
@@ -116,7 +120,8 @@ export function publishEffects(p: ProblemJson): EffectsSummaryJson {
     envelope: { MEdMax: round3(fromNmm(s.envelope.MEdMax)), MEdMin: round3(fromNmm(s.envelope.MEdMin)), VEdMax: round3(fromN(s.envelope.VEdMax)) },
     governing: s.governing,
     note: 'design values without the girder self-weight (check and search add each section its own)',
-    caution: `${CAUTION} ${SCOPE}`,
+    caution: CAUTION,
+    scope: SCOPE,
   };
 }
 

@@ -3,9 +3,10 @@ export { FactorsJson, RestraintJson, CheckOptionsJson } from './options.js';
 export { SpanMm, EffectJson, SlsUdlJson, CheckEffectsInput } from './check-input.js';
 export { toSection, fromSection, toCheckOptions, resolveOptions, sectionAssumptions, toCheckEffects, assertStockThickness, type Assumption } from './convert.js';
 export { parseWith, formatIssues, pathString, type FieldIssue, type Parsed } from './parse.js';
-export { VALUE_UNITS, publishCheck, publishVerdict, type PublishedCheck, type PublishedVerdict } from './output.js';
+export { VALUE_UNITS, unitOf, roundPublished, publishCheck, publishVerdict, type PublishedCheck, type PublishedVerdict } from './output.js';
 export { kN, kNm, toN, toNmm, fromN, fromNmm, convertValue, type ValueUnit } from './units.js';
 export { CAUTION, SCOPE } from './caution.js';
+export { publishRecord, parseRecordRequest, RecordTitleJson, inputHash, TOOL_VERSION, EDITIONS, TITLE_FIELDS, type RecordData, type RecordTitle, type RecordAction, type RecordRequest } from './record.js';
 export { ActionJson, DeflectionLimitJson, EnvelopeJson, ProblemJson, ProblemFields, BeamProblemFields } from './problem.js';
 export { GridJson, SpaceJson, CostJson } from './space.js';
 export {

@@ -10,7 +10,7 @@ export const mm = (what: string, max = 100_000) =>
     .refine((v) => v <= max, { message: `${what} over ${max} mm is not a girder plate; lengths are in mm` })
     .meta({ description: `${what}, mm` });
 
-export const Grade = z.enum(GRADES as unknown as [string, ...string[]]).meta({
+export const Grade = z.enum(GRADES as unknown as [string, ...string[]], { error: (i) => `unknown steel grade ${JSON.stringify(i.input)}: the grades are ${GRADES.join(', ')}` }).meta({
   description: 'steel grade (EN 10025-2: S235, S275, S355; EN 10025-4: S420, S460)',
 });
 
@@ -42,10 +42,15 @@ export const Bearing = z
   })
   .meta({ description: 'bearing stiffeners at supports (double-sided); default from the stiffener flats or the flange outstand' });
 
-export const GradeSpec = z.union([
-  Grade,
-  z.strictObject({ web: Grade, flanges: Grade, stiffeners: Grade.optional() }).meta({ description: 'hybrid girder: web and flange grades' }),
-]);
+export const GradeSpec = z.union(
+  [Grade, z.strictObject({ web: Grade, flanges: Grade, stiffeners: Grade.optional() }).meta({ description: 'hybrid girder: web and flange grades' })],
+  {
+    error: (i) =>
+      typeof i.input === 'string'
+        ? `unknown steel grade ${JSON.stringify(i.input)}: the grades are ${GRADES.join(', ')}`
+        : `a grade is one of ${GRADES.join(', ')}, or { "web", "flanges", "stiffeners" } of those for a hybrid girder`,
+  },
+);
 
 export const SectionJson = z
   .strictObject({

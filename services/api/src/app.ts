@@ -13,6 +13,7 @@ import { problemPlugin } from './plugins/problem.js';
 import { checkRoutes } from './routes/checks.js';
 import { effectsRoutes } from './routes/effects.js';
 import { healthRoutes } from './routes/health.js';
+import { recordRoutes } from './routes/records.js';
 import { scheduleRoutes } from './routes/schedules.js';
 import { searchRoutes } from './routes/searches.js';
 import { testHookRoutes } from './routes/test-hooks.js';
@@ -114,6 +115,7 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
   await app.register(effectsRoutes);
   await app.register(searchRoutes, { defaultBudgetMs: opts.defaultBudgetMs ?? 30_000, maxBudgetMs: opts.maxBudgetMs ?? 300_000, spaceCap });
   await app.register(scheduleRoutes, { jobs });
+  await app.register(recordRoutes, { jobs });
   if (opts.testHooks) await app.register(testHookRoutes);
   return app;
 }

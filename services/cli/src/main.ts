@@ -1,19 +1,24 @@
 #!/usr/bin/env node
 import { isDomainError } from '@platesmith/catalogue';
+import { parseCommand } from './args.js';
 import { EXIT, InputError, readJson, stdio, type Out } from './io.js';
 import { runCheck } from './commands/check.js';
 import { runEffects } from './commands/effects.js';
 import { runSearch } from './commands/search.js';
 import { runDemo } from './commands/demo.js';
 import { runServe } from './commands/serve.js';
+import { RECORD_OPTIONS, RECORD_USAGE, runRecord } from './commands/record.js';
 import { runScheduleCommand, SCHEDULE_USAGE } from './commands/schedule.js';
 
-const USAGE = `platesmith — the lightest welded plate girders that pass Eurocode 3
+export const USAGE = `platesmith — the lightest welded plate girders that pass Eurocode 3
 
 usage:
   platesmith check FILE.json [--json]    check a section: under given effects, or for a problem (self-weight added)
   platesmith effects FILE.json [--json]  the analysis of a problem: reactions, MEd and VEd envelopes
-  platesmith search FILE.json [--json]   exact search of the plate space: Pareto set of depth against mass or cost
+  platesmith search FILE.json [--json] [--wide] [--quiet]
+                                         exact search of the plate space: Pareto set of depth against mass or cost
+  platesmith record FILE.json [--out girder.html] [--pdf girder.pdf]
+                                         the calculation record of one girder (platesmith record --help)
   platesmith schedule FILE [options]     run a girder schedule (.json or .csv): every mark searched and its adopted
                                          section re-checked; --baseline PREV.json compares with an earlier --out;
                                          --junit, --markdown, --report, --out write files; --rationalise K
@@ -23,33 +28,59 @@ usage:
   platesmith help                        this text
 
 FILE may be - for standard input. Units: mm, kN, kN/m, kNm, MPa, kg.
-exit codes: 0 ok, 1 a check fails or no feasible section, 2 bad input`;
+--wide shows every column of a table (the default fits 120 columns).
+exit codes: 0 ok, 1 a check fails or no feasible section, 2 bad input, 3 internal error`;
+
+/** One input file and nothing else after the command. */
+function oneFile(positionals: readonly string[], usage: string): string {
+  if (positionals.length === 0) throw new InputError(`no input file given\n\n${usage}`);
+  if (positionals.length > 1) throw new InputError(`one input file, got ${positionals.length}: ${positionals.join(', ')}\n\n${usage}`);
+  return positionals[0]!;
+}
 
 export async function main(argv: string[], io: Out = stdio): Promise<number> {
-  const args = argv.filter((a) => !a.startsWith('--'));
-  const flags = new Set(argv.filter((a) => a.startsWith('--')));
-  const json = flags.has('--json');
-  const [cmd, file] = args;
+  const [cmd, ...rest] = argv;
   try {
     switch (cmd) {
-      case 'check':
-        return runCheck(readJson(file), json, io);
-      case 'effects':
-        return runEffects(readJson(file), json, io);
-      case 'search':
-        return await runSearch(readJson(file), json, io);
+      case 'check': {
+        const a = parseCommand(rest, { switches: ['json', 'wide'] }, USAGE);
+        return runCheck(readJson(oneFile(a.positionals, USAGE)), a.flags.has('json'), io, a.flags.has('wide'));
+      }
+      case 'effects': {
+        const a = parseCommand(rest, { switches: ['json'] }, USAGE);
+        return runEffects(readJson(oneFile(a.positionals, USAGE)), a.flags.has('json'), io);
+      }
+      case 'search': {
+        const a = parseCommand(rest, { switches: ['json', 'wide', 'quiet'] }, USAGE);
+        return await runSearch(readJson(oneFile(a.positionals, USAGE)), a.flags.has('json'), io, { wide: a.flags.has('wide'), quiet: a.flags.has('quiet') });
+      }
+      case 'record': {
+        if (rest.includes('--help')) {
+          io.out(RECORD_USAGE);
+          return EXIT.ok;
+        }
+        const a = parseCommand(rest, RECORD_OPTIONS, RECORD_USAGE);
+        return await runRecord(readJson(oneFile(a.positionals, RECORD_USAGE)), a.values, io);
+      }
       case 'schedule':
-        if (flags.has('--help')) {
+        if (rest.includes('--help')) {
           io.out(SCHEDULE_USAGE);
           return EXIT.ok;
         }
-        return await runScheduleCommand(argv.slice(argv.indexOf('schedule') + 1), io);
-      case 'demo':
-        return await runDemo(json, io);
-      case 'serve':
+        return await runScheduleCommand(rest, io);
+      case 'demo': {
+        const a = parseCommand(rest, { switches: ['json'] }, USAGE);
+        if (a.positionals.length) throw new InputError(`demo takes no file (it runs demo/kestrel-quay.json)\n\n${USAGE}`);
+        return await runDemo(a.flags.has('json'), io);
+      }
+      case 'serve': {
+        const a = parseCommand(rest, {}, USAGE);
+        if (a.positionals.length) throw new InputError(`serve takes no arguments (HOST and PORT come from the environment)\n\n${USAGE}`);
         return await runServe(io);
+      }
       case undefined:
       case 'help':
+      case '--help':
         io.out(USAGE);
         return EXIT.ok;
       default:
@@ -65,7 +96,7 @@ export async function main(argv: string[], io: Out = stdio): Promise<number> {
       return EXIT.badInput;
     }
     io.err(`internal error: ${(e as Error).message ?? String(e)} — please report this with the input file`);
-    return 3;
+    return EXIT.internal;
   }
 }
 

@@ -1,5 +1,5 @@
 import { CAUTION, SCOPE, type Assumption, type PublishedCheck, type PublishedVerdict } from '@platesmith/schema';
-import { fmt, table } from './table.js';
+import { fmt, table, TABLE_WIDTH } from './table.js';
 
 /** The values a reader wants first for each check (others stay in --json). */
 const KEY_VALUES: Record<string, string[]> = {
@@ -32,18 +32,20 @@ function keyValues(c: PublishedCheck): string {
     .join(', ');
 }
 
-export function renderChecks(v: PublishedVerdict): string {
+/** The checks as a table: check, clause, utilisation, result, station; --wide adds the key values. */
+export function renderChecks(v: PublishedVerdict, wide = false): string {
   const rows = v.checks.map((c) => [
     c.id,
     c.clause,
     c.applies ? (c.utilisation === null ? 'inf' : c.utilisation.toFixed(3)) : '-',
     c.applies ? (c.passes ? 'ok' : 'FAILS') : 'n/a',
     c.at === null ? '' : String(Math.round(c.at)),
-    keyValues(c),
+    ...(wide ? [keyValues(c)] : []),
   ]);
   const g = v.governing;
+  const head = ['check', 'clause', 'util.', 'result', 'at x (mm)', ...(wide ? ['key values (kN, kNm, mm)'] : [])];
   return [
-    table(['check', 'clause', 'util.', 'result', 'at x (mm)', 'key values (kN, kNm, mm)'], rows, ['l', 'l', 'r', 'l', 'r', 'l']),
+    table(head, rows, ['l', 'l', 'r', 'l', 'r', 'l'], wide ? Infinity : TABLE_WIDTH),
     '',
     `${v.passes ? 'PASSES' : 'FAILS'} — governing: ${g.id} (${g.clause}), utilisation ${g.utilisation === null ? 'inf' : g.utilisation.toFixed(3)}${g.at === null ? '' : ` at x = ${Math.round(g.at)} mm`}`,
   ].join('\n');

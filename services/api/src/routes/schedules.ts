@@ -1,4 +1,4 @@
-import { scheduleReport } from '@platesmith/report';
+import { plateListCsv, scheduleReport } from '@platesmith/report';
 import { ProblemDetailsJson, type FieldIssue } from '@platesmith/schema';
 import { parseScheduleCsv, ScheduleJson, ScheduleProgressJson, ScheduleResultJson, ScheduleRunResultJson, type ScheduleRunResult } from '@platesmith/schedule';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
@@ -198,9 +198,26 @@ export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async
     },
     async (req, reply) => {
       const j = await finished(req.params.id);
-      const html = reportOf(j.result, { subtitle: `schedule job ${j.id}`, ...(j.finishedAt ? { generatedAt: j.finishedAt } : {}) });
+      const html = reportOf(j.result, { subtitle: `schedule job ${j.id}`, schedule: j.input, ...(j.finishedAt ? { generatedAt: j.finishedAt } : {}) });
       // a string with a non-JSON type is sent as it is (no response schema for 200)
       return reply.type('text/html; charset=utf-8').send(html as never);
+    },
+  );
+
+  app.get(
+    '/v1/schedules/:id/plates.csv',
+    {
+      schema: {
+        tags: ['schedules'],
+        summary: 'The plate list of a finished schedule job as CSV (product, grade, thickness_mm, width_mm, length_mm, count, unit_mass_kg, mass_kg, marks, parts)',
+        params: Params,
+        produces: ['text/csv'],
+        response: { 404: ProblemDetailsJson, 409: ProblemDetailsJson },
+      },
+    },
+    async (req, reply) => {
+      const j = await finished(req.params.id);
+      return reply.type('text/csv; charset=utf-8').send(plateListCsv(j.result.tender.tonnage?.plates ?? []) as never);
     },
   );
 

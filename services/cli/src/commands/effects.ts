@@ -1,5 +1,4 @@
-import { summarise } from '@platesmith/actions';
-import { formatIssues, fromN, fromNmm, parseWith, ProblemJson, toAnalysis } from '@platesmith/schema';
+import { formatIssues, parseWith, ProblemJson, publishEffects } from '@platesmith/schema';
 import { EXIT, InputError, type Out } from '../io.js';
 import { fmt, table } from '../table.js';
 import { caution } from '../render.js';
@@ -8,15 +7,9 @@ import { caution } from '../render.js';
 export function runEffects(input: unknown, json: boolean, io: Out): number {
   const parsed = parseWith(ProblemJson, input);
   if (!parsed.ok) throw new InputError(formatIssues(parsed.issues));
-  const a = toAnalysis(parsed.value);
-  const s = summarise(a, 0);
-  const out = {
-    reactions: s.reactions.map((r) => ({ x: r.x, R: round(fromN(r.R)) })),
-    stations: s.stations.map((st) => ({ x: round(st.x), MEd: round(fromNmm(st.MEd)), VEd: round(fromN(st.VEd)) })),
-    envelope: { MEdMax: round(fromNmm(s.envelope.MEdMax)), MEdMin: round(fromNmm(s.envelope.MEdMin)), VEdMax: round(fromN(s.envelope.VEdMax)) },
-    governing: s.governing,
-    note: 'design values without the girder self-weight (check and search add each section its own)',
-  };
+  // the same publication as the HTTP answer: units, rounding, caution and scope
+  const out = publishEffects(parsed.value);
+  const s = out;
   if (json) io.out(JSON.stringify(out, null, 2));
   else {
     io.out(table(['support x (mm)', 'R (kN)'], out.reactions.map((r) => [r.x, fmt(r.R, 4)]), ['r', 'r']));
@@ -36,5 +29,3 @@ export function runEffects(input: unknown, json: boolean, io: Out): number {
   }
   return EXIT.ok;
 }
-
-const round = (v: number) => Math.round(v * 1000) / 1000;

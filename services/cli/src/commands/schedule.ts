@@ -1,5 +1,5 @@
-import { readFileSync, writeFileSync } from 'node:fs';
-import { scheduleReport } from '@platesmith/report';
+import { readFileSync } from 'node:fs';
+import { plateListCsv, scheduleReport } from '@platesmith/report';
 import {
   BaselineJson,
   finishSchedule,
@@ -11,9 +11,9 @@ import {
   type ScheduleJson,
   type ScheduleRunResult,
 } from '@platesmith/schedule';
-import { formatIssues, parseWith } from '@platesmith/schema';
+import { CAUTION, formatIssues, parseWith, SCOPE } from '@platesmith/schema';
 import { createSearchPool, searchOnPool } from '@platesmith/search/pool';
-import { EXIT, InputError, type Out } from '../io.js';
+import { EXIT, fileProblem, InputError, writeOut, type Out } from '../io.js';
 import { caution } from '../render.js';
 import { fmt, progressBar, table } from '../table.js';
 
@@ -25,6 +25,7 @@ export const SCHEDULE_USAGE = `platesmith schedule FILE [options]
   --junit out.xml        write JUnit XML, one test case per mark
   --markdown out.md      write a Markdown summary
   --report out.html      write the HTML report
+  --plates plates.csv    write the plate list as CSV (product, grade, thickness, width, length, count, masses)
   --rationalise K        rationalise to at most K distinct sections (MILP, K = 1 … K)
   --mass-tolerance R     relative change of the lightest mass reported as a change (default 0.01)
   --threads N            search worker threads (default: the cores)
@@ -41,6 +42,7 @@ export interface ScheduleArgs {
   junit?: string;
   markdown?: string;
   report?: string;
+  plates?: string;
   rationalise?: number;
   massTolerance?: number;
   threads?: number;
@@ -48,7 +50,7 @@ export interface ScheduleArgs {
   quiet: boolean;
 }
 
-const VALUED = new Set(['--format', '--baseline', '--out', '--junit', '--markdown', '--report', '--rationalise', '--mass-tolerance', '--threads']);
+const VALUED = new Set(['--format', '--baseline', '--out', '--junit', '--markdown', '--report', '--plates', '--rationalise', '--mass-tolerance', '--threads']);
 const SWITCHES = new Set(['--json', '--quiet']);
 
 function numberArg(flag: string, v: string, opts: { integer?: boolean; min: number; max: number }): number {
@@ -85,7 +87,7 @@ export function parseScheduleArgs(argv: readonly string[]): ScheduleArgs {
     if (f !== 'json' && f !== 'csv') throw new InputError(`--format must be json or csv, got '${f}'`);
     out.format = f;
   }
-  for (const [flag, key] of [['--baseline', 'baseline'], ['--out', 'out'], ['--junit', 'junit'], ['--markdown', 'markdown'], ['--report', 'report']] as const) {
+  for (const [flag, key] of [['--baseline', 'baseline'], ['--out', 'out'], ['--junit', 'junit'], ['--markdown', 'markdown'], ['--report', 'report'], ['--plates', 'plates']] as const) {
     const v = values.get(flag);
     if (v !== undefined) out[key] = v;
   }
@@ -102,17 +104,12 @@ function readText(file: string): string {
   try {
     return file === '-' ? readFileSync(0, 'utf8') : readFileSync(file, 'utf8');
   } catch (e) {
-    throw new InputError(`cannot read ${file}: ${(e as NodeJS.ErrnoException).code ?? 'error'}`);
+    throw new InputError(fileProblem(file, e));
   }
 }
 
-function write(file: string, text: string): void {
-  try {
-    writeFileSync(file, text);
-  } catch (e) {
-    throw new InputError(`cannot write ${file}: ${(e as NodeJS.ErrnoException).code ?? 'error'}`);
-  }
-}
+/** Writes an output, creating missing folders (`--report reports/harbour.html` on a fresh clone). */
+const write = writeOut;
 
 /** The schedule of FILE with the command line's baseline and options applied; bad input is an InputError listing every issue. */
 export function loadSchedule(a: ScheduleArgs): ScheduleJson {
@@ -155,10 +152,8 @@ export function junitCases(r: ScheduleRunResult): CompareResult[] {
 /** A Markdown summary: the comparison (or the per-mark verdicts), then tonnage and rationalisation lines. */
 export function markdownOf(r: ScheduleRunResult): string {
   const lines = [toMarkdown(junitCases(r), { title: `${r.name ?? 'Girder schedule'}: ${r.comparison ? 'regression against the baseline' : 'verdicts (no baseline)'}` })];
-  const t = r.tender.tonnage;
-  if (t) {
-    lines.push(`Tonnage: ${(t.total / 1000).toFixed(3)} t over ${t.girders} girders (${r.tender.basis.filter((b) => b.section === 'adopted').length} marks on the adopted section, the rest on the lightest)${t.cost !== null ? `; cost ${t.cost.toFixed(2)}` : ''}.`, '');
-  }
+  const tl = tonnageLines(r);
+  if (tl.length) lines.push(...tl, '');
   const rat = r.tender.rationalisation;
   if (rat && rat.skipped !== undefined) lines.push(`Rationalisation skipped: ${rat.skipped}.`, '');
   else if (rat) {
@@ -169,12 +164,27 @@ export function markdownOf(r: ScheduleRunResult): string {
     }
     lines.push('');
   }
+  lines.push(`> **Caution.** ${r.caution ?? CAUTION}`, '>', `> ${r.scope ?? SCOPE}`, '');
   return lines.join('\n');
 }
 
 /** The HTML report of a result (the report package draws it). */
-export function htmlOf(r: ScheduleRunResult, generatedAt: string): string {
-  return scheduleReport(r, { generatedAt });
+export function htmlOf(r: ScheduleRunResult, generatedAt: string, schedule?: ScheduleJson): string {
+  return scheduleReport(r, { generatedAt, ...(schedule ? { schedule } : {}) });
+}
+
+/** Tonnage lines a tender estimator reads: the total counted, how it reconciles with the lightest sections, the cost with its currency. */
+function tonnageLines(r: ScheduleRunResult): string[] {
+  const t = r.tender.tonnage;
+  if (!t) return [];
+  const cur = r.tender.currency ? ` ${r.tender.currency}` : " (the rates' currency)";
+  const lines = [`Tonnage counted (adopted where given, else lightest; bearing stiffeners included): ${(t.total / 1000).toFixed(3)} t over ${t.girders} girders${t.cost !== null ? `; material cost ${t.cost.toFixed(2)}${cur}` : ''}.`];
+  const rec = r.tender.reconciliation;
+  if (rec) {
+    lines.push(`  = ${(rec.lightest / 1000).toFixed(3)} t on the lightest sections + ${(rec.saving / 1000).toFixed(3)} t that adopting the lightest would save.`);
+    for (const m of rec.byMark) if (m.section === 'adopted' && m.saving !== null) lines.push(`  ${m.mark}: adopted ${m.perGirder.toFixed(1)} kg, lightest ${m.lightestPerGirder?.toFixed(1)} kg per girder; saving ${(m.saving / 1000).toFixed(3)} t for ${m.quantity}.`);
+  }
+  return lines;
 }
 
 function summary(r: ScheduleRunResult): string {
@@ -190,8 +200,8 @@ function summary(r: ScheduleRunResult): string {
   ]);
   const lines = [table(['mark', 'qty', 'run', 'lightest (kg)', 'governing', 'adopted', 'vs baseline'], rows, ['l', 'r', 'l', 'r', 'l', 'l', 'l'])];
   const tt = r.totals;
-  lines.push('', `${tt.marks} marks (${tt.marksFailed} failed), ${tt.girders} girders, ${tt.tonnage.toFixed(3)} t on the lightest sections.`);
-  if (r.tender.tonnage) lines.push(`Tender tonnage (adopted where given, else lightest): ${(r.tender.tonnage.total / 1000).toFixed(3)} t${r.tender.tonnage.cost !== null ? `, cost ${r.tender.tonnage.cost.toFixed(2)}` : ''}.`);
+  lines.push('', `${tt.marks} marks (${tt.marksFailed} failed), ${tt.girders} girders.`);
+  lines.push(...tonnageLines(r));
   if (r.comparison) {
     const c = r.comparison.counts;
     lines.push(`Against the baseline: ${c.regressed} regressed, ${c.changed} changed, ${c.new} new, ${c.removed} removed, ${c.pass} unchanged.`);
@@ -236,7 +246,8 @@ export async function runScheduleCommand(argv: readonly string[], io: Out): Prom
   if (a.out) write(a.out, JSON.stringify(result, null, 2) + '\n');
   if (a.junit) write(a.junit, toJUnit(junitCases(result), result.name ?? 'girder schedule regression'));
   if (a.markdown) write(a.markdown, markdownOf(result));
-  if (a.report) write(a.report, htmlOf(result, new Date().toISOString()));
+  if (a.report) write(a.report, htmlOf(result, new Date().toISOString(), schedule));
+  if (a.plates) write(a.plates, result.tender.tonnage ? plateListCsv(result.tender.tonnage.plates) : plateListCsv([]));
   if (a.json) io.out(JSON.stringify(result, null, 2));
   else io.out(`${summary(result)}\n\n${caution()}`);
   return failsRun(result) ? EXIT.fails : EXIT.ok;

@@ -2,26 +2,36 @@ import { createSearchPool, searchOnPool } from '@platesmith/search/pool';
 import { formatIssues, parseWith, publishSearch, SearchInput, toSearchTask, type PublishedSearch } from '@platesmith/schema';
 import { EXIT, InputError, type Out } from '../io.js';
 import { caution, renderAssumptions } from '../render.js';
-import { fmt, progressBar, table } from '../table.js';
+import { count, fmt, progressBar, table, TABLE_WIDTH } from '../table.js';
 
-export async function solve(input: unknown, threads?: number): Promise<PublishedSearch> {
+/** Progress of a search on standard error: a bar on a terminal, one plain line per step otherwise. */
+export function searchProgress(io: Out, quiet: boolean, tty = process.stderr.isTTY === true): (done: number, total: number) => void {
+  const t0 = performance.now();
+  return (done, total) => {
+    if (quiet) return;
+    const s = (performance.now() - t0) / 1000;
+    const left = done < total ? `, about ${Math.ceil((s / done) * (total - done))} s left` : '';
+    const line = `${done}/${total} parts of the space searched (${s.toFixed(1)} s${left})`;
+    if (tty) process.stderr.write(`\r${progressBar(done, total)} ${line}`.padEnd(100) + (done === total ? '\n' : ''));
+    else io.err(`[search] ${line}`);
+  };
+}
+
+export async function solve(input: unknown, threads?: number, onProgress?: (done: number, total: number) => void): Promise<PublishedSearch> {
   const parsed = parseWith(SearchInput, input);
   if (!parsed.ok) throw new InputError(formatIssues(parsed.issues));
   const task = toSearchTask(parsed.value);
   const pool = createSearchPool(threads !== undefined ? { threads } : {});
   try {
-    // a progress bar on a terminal (slices of the space finished)
-    const tty = process.stderr.isTTY === true;
-    const r = await searchOnPool(pool, task, undefined, (done, total) => {
-      if (tty) process.stderr.write(`\r${progressBar(done, total)} slices of the space searched` + (done === total ? '\n' : ''));
-    });
+    const r = await searchOnPool(pool, task, undefined, onProgress);
     return publishSearch(r, task.objective, task.analysis.length, task.assumptions);
   } finally {
     await pool.close();
   }
 }
 
-export function renderSearch(r: PublishedSearch, title?: string): string {
+export function renderSearch(r: PublishedSearch, title?: string, wide = false): string {
+  const max = wide ? Infinity : TABLE_WIDTH;
   const lines: string[] = [];
   if (title) lines.push(title, '');
   if (r.pareto.length === 0) {
@@ -33,6 +43,7 @@ export function renderSearch(r: PublishedSearch, title?: string): string {
           ['depth (mm)', 'mass (kg)', 'section', 'governing', 'util.', 'failing'],
           r.nearMisses.map((m) => [m.depth, fmt(m.mass, 5), describe(m.section), m.governing.id, m.governing.utilisation?.toFixed(3) ?? 'inf', m.failing.join(', ')]),
           ['r', 'r', 'l', 'l', 'r', 'l'],
+          max,
         ),
       );
     }
@@ -41,7 +52,7 @@ export function renderSearch(r: PublishedSearch, title?: string): string {
     lines.push(`Pareto set: overall depth against ${r.objective} (each row: nothing shallower or as shallow is lighter)`);
     lines.push(
       table(
-        ['depth (mm)', 'mass (kg)', 'kg/m', ...(r.objective === 'cost' ? [unit] : []), 'section', 'governing check', 'clause', 'util.'],
+        ['depth (mm)', 'mass (kg)', 'kg/m', ...(r.objective === 'cost' ? [unit] : []), 'section', 'governing check', ...(wide ? ['clause'] : []), 'util.'],
         r.pareto.map((p) => [
           p.depth,
           fmt(p.mass, 5),
@@ -49,10 +60,11 @@ export function renderSearch(r: PublishedSearch, title?: string): string {
           ...(r.objective === 'cost' ? [fmt(p.value, 5)] : []),
           describe(p.section),
           p.governing.id,
-          p.governing.clause,
+          ...(wide ? [p.governing.clause] : []),
           p.governing.utilisation?.toFixed(3) ?? 'inf',
         ]),
-        ['r', 'r', 'r', ...(r.objective === 'cost' ? ['r' as const] : []), 'l', 'l', 'l', 'r'],
+        ['r', 'r', 'r', ...(r.objective === 'cost' ? ['r' as const] : []), 'l', 'l', ...(wide ? ['l' as const] : []), 'r'],
+        max,
       ),
     );
     const l = r.lightest!;
@@ -61,7 +73,7 @@ export function renderSearch(r: PublishedSearch, title?: string): string {
   const s = r.stats;
   const assumed = renderAssumptions(r.assumptions ?? []);
   if (assumed) lines.push('', assumed.trimEnd());
-  lines.push('', `Searched ${s.spaceSize.toExponential(2)} candidates exactly: ${s.fullEvaluations} judged (${((s.fullEvaluations / Math.max(1, s.spaceSize)) * 100).toPrecision(2)} %), the rest pruned by bounds (depth ${s.pruned.depth}, shear ${s.pruned.shear}, bending ${s.pruned.bending}, flange-induced buckling ${s.pruned.flangeInducedBuckling}, deflection ${s.pruned.deflection}, patch loading ${s.pruned.patchLoading}, patch loading with bending ${s.pruned.patchBending}, lateral-torsional buckling from the moment envelope ${s.pruned.lateralTorsional}, bearing stiffener ${s.pruned.bearing}, shared with a failed candidate of the same plates ${s.pruned.sameFlanges}, stiffener layout failed on another flange ${s.pruned.webOnly}, incumbent ${s.pruned.incumbent}, rules ${s.pruned.rules}); ${s.wallMs.toFixed(0)} ms on ${s.workers} workers.`);
+  lines.push('', `Searched ${count(s.spaceSize)} candidates exactly: ${count(s.fullEvaluations)} judged (${((s.fullEvaluations / Math.max(1, s.spaceSize)) * 100).toPrecision(2)} %), the rest pruned by bounds (depth ${s.pruned.depth}, shear ${s.pruned.shear}, bending ${s.pruned.bending}, flange-induced buckling ${s.pruned.flangeInducedBuckling}, deflection ${s.pruned.deflection}, patch loading ${s.pruned.patchLoading}, patch loading with bending ${s.pruned.patchBending}, lateral-torsional buckling from the moment envelope ${s.pruned.lateralTorsional}, bearing stiffener ${s.pruned.bearing}, shared with a failed candidate of the same plates ${s.pruned.sameFlanges}, stiffener layout failed on another flange ${s.pruned.webOnly}, incumbent ${s.pruned.incumbent}, rules ${s.pruned.rules}); ${s.wallMs.toFixed(0)} ms on ${s.workers} workers.`);
   return lines.join('\n');
 }
 
@@ -76,9 +88,9 @@ export function describe(s: PublishedSearch['pareto'][number]['section']): strin
   return `web ${s.web.depth}×${s.web.thickness}, ${flanges}, ${st}, ${s.endPost ?? 'rigid'} end post, ${grade}`;
 }
 
-export async function runSearch(input: unknown, json: boolean, io: Out): Promise<number> {
-  const r = await solve(input);
+export async function runSearch(input: unknown, json: boolean, io: Out, opts: { wide?: boolean; quiet?: boolean } = {}): Promise<number> {
+  const r = await solve(input, undefined, searchProgress(io, opts.quiet ?? false));
   if (json) io.out(JSON.stringify(r, null, 2));
-  else io.out(`${renderSearch(r)}\n\n${caution()}`);
+  else io.out(`${renderSearch(r, undefined, opts.wide ?? false)}\n\n${caution()}`);
   return r.pareto.length > 0 ? EXIT.ok : EXIT.fails;
 }

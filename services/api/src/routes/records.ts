@@ -1,0 +1,98 @@
+import { chromiumPath, htmlToPdf, PdfUnavailable, renderRecord } from '@platesmith/report';
+import { checkFieldsOf } from '@platesmith/schedule';
+import { parseRecordRequest, parseWith, ProblemDetailsJson, publishRecord, RecordTitleJson, CheckProblemInput, type RecordRequest, type RecordTitle } from '@platesmith/schema';
+import type { FastifyReply, FastifyRequest } from 'fastify';
+import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
+import { z } from 'zod';
+import { ApiError } from '../errors.js';
+import type { JobManager } from '../jobs/manager.js';
+import { withParser } from '../validate.js';
+
+/** Body of POST /v1/records, as documented (validated by parseRecordRequest: a check body and its title). */
+const RecordBody = withParser(
+  z
+    .looseObject({ title: RecordTitleJson.optional() })
+    .meta({ id: 'RecordRequest', description: 'a check body exactly as for POST /v1/checks (CheckRequest: with "effects", or a problem with "section"), plus an optional "title" block (RecordTitle); issues name the check\'s fields' }),
+  parseRecordRequest,
+);
+
+/** Prints at once; more answer 503 PRINT_FAILED with Retry-After (each print is a chromium process of ~100 MB). */
+const MAX_PRINTS = 2;
+
+export const recordRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async (app, { jobs }) => {
+  let printing = 0;
+
+  /** HTML, or the PDF when the client asks for it (Accept: application/pdf). */
+  async function answer(req: FastifyRequest, reply: FastifyReply, html: string, name: string): Promise<FastifyReply> {
+    const accept = String(req.headers.accept ?? '');
+    if (!/application\/pdf/.test(accept)) return reply.type('text/html; charset=utf-8').send(html as never);
+    if (!chromiumPath()) throw new ApiError('NOT_ACCEPTABLE', 'a PDF needs chromium, which is not installed on this service; ask for text/html');
+    if (printing >= MAX_PRINTS) throw new ApiError('PRINT_FAILED', `${MAX_PRINTS} records are being printed`, { retryAfter: 5 });
+    printing++;
+    let pdf: Buffer;
+    try {
+      pdf = await htmlToPdf(html);
+    } catch (e) {
+      if (e instanceof PdfUnavailable) {
+        req.log.error({ err: e }, 'record printing failed');
+        throw new ApiError('PRINT_FAILED', 'chromium did not print the record', { retryAfter: 5, cause: e });
+      }
+      throw e;
+    } finally {
+      printing--;
+    }
+    return reply.type('application/pdf').header('content-disposition', `inline; filename="${name.replace(/[^A-Za-z0-9._-]+/g, '_')}.pdf"`).send(pdf as never);
+  }
+
+  app.post(
+    '/v1/records',
+    {
+      schema: {
+        tags: ['records'],
+        summary: 'The calculation record of one girder (text/html; application/pdf where chromium is installed)',
+        description:
+          'Title block, design basis with every default taken, moment and shear diagrams, the section drawn with its properties and class, every check with its clause, formula, values and utilisation, utilisation along the span; the caution and scope on every printed page. Ask for the PDF with Accept: application/pdf (406 where chromium is not installed).',
+        body: RecordBody,
+        produces: ['text/html', 'application/pdf'],
+        response: { 400: ProblemDetailsJson, 406: ProblemDetailsJson, 422: ProblemDetailsJson, 503: ProblemDetailsJson },
+      },
+    },
+    async (req, reply) => {
+      // the validator has parsed the body with parseRecordRequest: the check, its title and the raw input
+      const r = req.body as unknown as RecordRequest;
+      const html = renderRecord(publishRecord(r.check, r.raw, r.title));
+      return answer(req, reply, html, r.title.mark ?? 'record');
+    },
+  );
+
+  app.get(
+    '/v1/schedules/:id/marks/:mark/record',
+    {
+      schema: {
+        tags: ['schedules', 'records'],
+        summary: 'The calculation record of a finished mark: its adopted section, else its lightest (text/html; application/pdf where chromium is installed)',
+        params: z.object({ id: z.string().min(1).max(100), mark: z.string().min(1).max(200) }),
+        produces: ['text/html', 'application/pdf'],
+        response: { 404: ProblemDetailsJson, 406: ProblemDetailsJson, 409: ProblemDetailsJson, 503: ProblemDetailsJson },
+      },
+    },
+    async (req, reply) => {
+      const j = await jobs.store.get(req.params.id);
+      if (!j) throw new ApiError('JOB_NOT_FOUND', `no schedule job ${req.params.id}`);
+      const girder = j.input.girders.find((g) => g.mark === req.params.mark);
+      if (!girder) throw new ApiError('MARK_NOT_FOUND', `schedule job ${j.id} has no mark ${req.params.mark}`);
+      const done = (await jobs.store.marks(j.id)).find((m) => m.mark.mark === girder.mark)?.mark;
+      if (!done) throw new ApiError('JOB_NOT_FINISHED', `mark ${girder.mark} of schedule job ${j.id} is not finished`, { retryAfter: 1 });
+      const section = girder.adopted ?? done.search?.lightest?.section;
+      if (!section) throw new ApiError('NO_SECTION', `mark ${girder.mark} has no adopted section and no feasible section to record`);
+      const raw = { ...checkFieldsOf(j.input.defaults, girder), section };
+      const parsed = parseWith(CheckProblemInput, raw);
+      if (!parsed.ok) throw new ApiError('NO_SECTION', `mark ${girder.mark} has no valid problem to record (${parsed.issues[0]?.message ?? 'invalid'})`);
+      const title: Partial<RecordTitle> = { mark: girder.mark };
+      if (j.input.name) title.project = j.input.name;
+      if (j.finishedAt) title.date = j.finishedAt.slice(0, 10);
+      const html = renderRecord(publishRecord(parsed.value, raw, title));
+      return answer(req, reply, html, girder.mark);
+    },
+  );
+};
