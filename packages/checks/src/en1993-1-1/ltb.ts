@@ -4,7 +4,10 @@ import type { CheckContext, CheckResult, CheckValue, Effects, Station } from '..
 import { notApplicable, verdict } from '../result.js';
 import { bracket, envelopeOf, firstAbove, type SignBending } from './bending.js';
 import { perSide } from '../context.js';
-import { MCR_FIRST_TERMS, mcrConverged, mcrRitz, mcrUniform, type RitzSegment } from './mcr-ritz.js';
+import { MCR_FIRST_TERMS, mcrConverged, mcrOneTerm, mcrRitz, mcrUniform, type RitzSegment } from './mcr-ritz.js';
+
+/** The screen keeps the one-term Mcr of a segment whose utilisation with it is below this (a lower bound either way; more terms only where they may decide). */
+const SCREEN_ONE_TERM_BELOW = 0.8;
 
 /**
  * Lateral-torsional buckling of a welded (mono-)symmetric I-beam, EN 1993-1-1:2005 6.3.2.
@@ -341,6 +344,11 @@ function ltbCore(
   const curve = ltbCurveWelded(g.h, Math.min(s.top.b, s.bot.b));
   const zg = loadHeightZg(ctx);
   const ends = o.ltbEnds ?? FORK;
+  /** χLT at λ̄LT without the modification f (1 where the reduction is ignored): the screen's */
+  const chiOf = (lambdaLT: number, MEdOverMcr: number): number => {
+    if (lambdaLT <= lambda0 || MEdOverMcr <= lambda0 * lambda0) return 1;
+    return rolled ? chiLT({ lambdaLT, alphaLT: ALPHA[curve], lambdaLT0: 0.4, beta: 0.75 }).chiLT : chiLTGeneral(lambdaLT, curve).chiLT;
+  };
   // the largest |MEd| of any station: the largest sagging or hogging value of the envelope
   let tiny = 0;
   let maxSag = 0;
@@ -392,7 +400,19 @@ function ltbCore(
     const seg: RitzSegment = { E: o.E, G: o.G, L, xs: RX, Ms: PM, n, pieces: [{ x0: 0, x1: L, Iz: g.Iz, It: g.It, Iw: g.Iw, zj, zg }], k: ends.k, kw: ends.kw };
     // the verdict: Mcr converged in the number of terms; the screen (utilisation only, no f):
     // the first basis alone, whose Mcr is at least the converged one (nested bases)
-    const ritz = exact || o.ltbModification ? mcrConverged(seg) : { ...mcrRitz(seg, MCR_FIRST_TERMS), change: Number.NaN, converged: false };
+    const Mk0 = b.McRd * o.factors.gammaM0;
+    let ritz: { Mcr: number; terms: number; change: number; converged: boolean };
+    if (exact || o.ltbModification) ritz = mcrConverged(seg);
+    else {
+      // the screen: one sine term first (closed form, never a lower Mcr than more terms); where
+      // that alone shows the segment failing, or well within its resistance, no more terms
+      const M1 = mcrOneTerm(seg);
+      const u1 = MEd / ((chiOf(Math.sqrt(Mk0 / M1), MEd / M1) * Mk0) / o.factors.gammaM1);
+      ritz =
+        u1 > stopAbove || u1 < SCREEN_ONE_TERM_BELOW
+          ? { Mcr: M1, terms: 1, change: Number.NaN, converged: false }
+          : { ...mcrRitz(seg, MCR_FIRST_TERMS), change: Number.NaN, converged: false };
+    }
     const Mcr = ritz.Mcr;
     const McrUniform = mcrUniform(o.E, o.G, g.Iz, g.It, g.Iw, L, zj, ends.k, ends.kw);
     // 6.3.2.3(2): kc = 1/√C1 with C1 = Mcr/Mcr,uniform (common practice, no source), at most 1

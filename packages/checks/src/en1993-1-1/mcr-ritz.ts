@@ -657,3 +657,49 @@ export function ritzTrialMcr(E: number, G: number, Iz: number, It: number, Iw: n
   const kp = G * It * bt + ((E * Iw) / (kw * kw)) * bw;
   return (Mmax * (ku * h + Math.sqrt(ku * ku * h * h + 4 * c2 * ku * kp))) / (2 * c2);
 }
+
+/**
+ * mcrRitz(seg, 1) in closed form for a prismatic segment whose points run from 0 to L: one half
+ * sine for u and φ, det[[ku, λc], [λc, kφ + λh]] = 0, λ = [ku h + √(ku²h² + 4c²ku kφ)]/(2c²). At
+ * least the Mcr of any basis holding that sine (a cheap first screen; Infinity when c = 0).
+ */
+export function mcrOneTerm(seg: RitzSegment): number {
+  const { xs, Ms, n, L, E, G } = seg;
+  const q = seg.pieces[0]!;
+  let gov = 0;
+  for (let s = 1; s < n; s++) if (Math.abs(Ms[s]!) > Math.abs(Ms[gov]!)) gov = s;
+  const sigma = Ms[gov]! < 0 ? -1 : 1;
+  const Mmax = Math.abs(Ms[gov]!);
+  if (!(Mmax > 0) || seg.pieces.length !== 1 || n < 2 || xs[0] !== 0 || xs[n - 1] !== L) return Number.NaN;
+  const t = Math.PI / L;
+  // F0, F2 of m = σM (integrated by parts as cosMomentsOfDiagram) and Q11 of the destabilising loads
+  let F0 = 0;
+  for (let s = 0; s + 1 < n; s++) F0 += 0.5 * sigma * (Ms[s]! + Ms[s + 1]!) * (xs[s + 1]! - xs[s]!);
+  const first = (Ms[1]! - Ms[0]!) / (xs[1]! - xs[0]!);
+  const last = (Ms[n - 1]! - Ms[n - 2]!) / (xs[n - 1]! - xs[n - 2]!);
+  let F2 = sigma * (last - first);
+  let Q = 0;
+  let prev = first;
+  for (let s = 1; s + 1 < n; s++) {
+    const next = (Ms[s + 1]! - Ms[s]!) / (xs[s + 1]! - xs[s]!);
+    const P = prev - next;
+    prev = next;
+    if (P === 0) continue;
+    const th = t * xs[s]!;
+    F2 += sigma * P * Math.cos(2 * th);
+    const Pz = P * q.zg;
+    if (Pz > 0) {
+      const sn = Math.sin(th);
+      Q += Pz * sn * sn;
+    }
+  }
+  F2 /= 4 * t * t;
+  const c = (-t * t * (F0 - F2)) / 2;
+  const h = (2 * q.zj * t * t * (F0 + F2)) / 2 - Q;
+  const p4 = t * t * t * t;
+  const ku = ((E * q.Iz) / (seg.k * seg.k)) * p4 * (L / 2);
+  const kp = (G * q.It * t * t + ((E * q.Iw) / (seg.kw * seg.kw)) * p4) * (L / 2);
+  const c2 = c * c;
+  if (!(c2 > 0)) return Infinity;
+  return (Mmax * (ku * h + Math.sqrt(ku * ku * h * h + 4 * c2 * ku * kp))) / (2 * c2);
+}
