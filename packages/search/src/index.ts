@@ -1,7 +1,7 @@
 export { defaultSpace, spaceSize, assertSpace, webConfigs, WebTable, flangeGroups, type SpaceSpec, type FabricationRules, type WebConfig, type FlangeOption, type FlangeGroup } from './space.js';
 export { DEFAULT_COST, C2, costOf, type CostModel, type WeldProcess } from './objective.js';
 export { fixedLoadModel, affineDemandBound, analysisLoadModel, analysisDemandBound, analysisMomentEnvelope, momentEnvelopeFor, type LoadModel, type DemandBound, type AffineDemand } from './load.js';
-export { searchSlice, unitSlot, type OuterBound, type SlicePart } from './best-first.js';
+export { searchSlice, unitSlot, type OuterBound, type SlicePart } from './slice/best-first.js';
 export { prepareSearch, better, type SearchProblem, type Objective, type Evaluated, type CandidateKey, type SliceResult, type PruneStats, type Prepared } from './core.js';
 export { paretoFront } from './pareto.js';
 export { bruteForce } from './brute.js';

@@ -1,6 +1,6 @@
 import { assertSpace, spaceSize } from './space.js';
 import { prepareSearch, type Evaluated, type PruneStats, type SearchProblem, type SliceResult } from './core.js';
-import { searchSlice } from './best-first.js';
+import { searchSlice } from './slice/best-first.js';
 import { paretoFront } from './pareto.js';
 
 export interface SearchResult {
@@ -27,6 +27,10 @@ export function mergeSlices(slices: SliceResult[], wallMs: number, workers: numb
   const pareto = paretoFront(slices.flatMap((s) => s.front));
   const pruned: PruneStats = { depth: 0, rules: 0, shear: 0, bending: 0, flangeInducedBuckling: 0, deflection: 0, patchLoading: 0, patchBending: 0, lateralTorsional: 0, bearing: 0, sameFlanges: 0, webOnly: 0, incumbent: 0 };
   for (const s of slices) for (const k of Object.keys(pruned) as (keyof PruneStats)[]) pruned[k] += s.pruned[k];
+  // the slices hold the candidates the fabrication rules leave (bf/tf limits filter the flange
+  // options, flats thinner than the web the layouts): the rest of the space the user was shown
+  // is pruned by the rules, so that every candidate counts once
+  pruned.rules += size - slices.reduce((n, s) => n + s.spaceSize, 0);
   const failedBy: Record<string, number> = {};
   for (const s of slices) for (const [k, v] of Object.entries(s.failedBy)) failedBy[k] = (failedBy[k] ?? 0) + v;
   const nearMisses = slices

@@ -1,4 +1,4 @@
-import type { OuterBound } from './best-first.js';
+import type { OuterBound } from './slice/best-first.js';
 import type { FlangeGroup, SpaceSpec } from './space.js';
 
 /**

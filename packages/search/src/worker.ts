@@ -1,5 +1,5 @@
 import { prepareSearch, type Prepared, type SliceResult } from './core.js';
-import { searchSlice, type SlicePart } from './best-first.js';
+import { searchSlice, type SlicePart } from './slice/best-first.js';
 import { problemOf, type SearchTask } from './task.js';
 import { SharedStairs, type SharedStairsData } from './shared-bound.js';
 

@@ -1,31 +1,19 @@
-import { describe, expect } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { fc, test } from '@fast-check/vitest';
-import { FLAT_BARS, type GradeName } from '@platesmith/catalogue';
+import { FLAT_BARS } from '@platesmith/catalogue';
 import { defaultOptions } from '@platesmith/checks';
 import { analyse } from '@platesmith/actions';
 import { analysisLoadModel, bruteForce, DEFAULT_COST, mergeSlices, prepareSearch, search, searchSlice, spaceSize, stiffenerStations, type Evaluated, type SpaceSpec } from '../src/index.js';
 import { simpleSpanModel } from './fixtures.js';
+import { rulesArb, SMALL_LISTS, spaceArb as spaceOver, spaceOf } from './spaces.js';
 
 /**
  * Exactness: on randomly drawn small spaces the search returns the same Pareto set (depth, value,
  * section) as exhaustive enumeration with the same check library and objective. This is the
- * property the product stands on; no tolerance.
+ * property the product stands on; no tolerance. Every space comes from the one builder
+ * (spaces.ts): plate lists, fabrication rules, hybrid web/flange grades, least and greatest depth.
  */
-const pick = <T,>(xs: readonly T[]) => fc.subarray([...xs], { minLength: 1, maxLength: Math.min(3, xs.length) });
-
-const spaceArb = fc.record({
-  hw: pick([500, 700, 900, 1100, 1300, 1500]),
-  tw: pick([6, 8, 10, 12, 15]),
-  bf: pick([150, 200, 250, 300, 400, 500]),
-  tf: pick([10, 12, 15, 20, 25, 30, 45]),
-  symmetric: fc.boolean(),
-  panels: pick([0, 2, 3, 5]),
-  flats: fc.subarray([...FLAT_BARS].slice(0, 6), { minLength: 1, maxLength: 2 }),
-  sides: fc.subarray([1, 2] as const, { minLength: 1 }),
-  endPosts: fc.subarray(['rigid', 'non-rigid'] as const, { minLength: 1 }),
-  flangeGrades: fc.subarray(['S275', 'S355'] as GradeName[], { minLength: 1 }),
-  maxDepth: fc.constantFrom(Infinity, 1200, 1400),
-});
+const spaceArb = spaceOver(SMALL_LISTS);
 
 const problemArb = fc.record({
   space: spaceArb,
@@ -42,22 +30,7 @@ function frontKey(f: Evaluated[]) {
 
 describe('search = brute force', () => {
   test.prop([problemArb], { numRuns: 200 })('Pareto set and optimum equal exhaustive enumeration', ({ space, L, q, P, objective, restrained }) => {
-    const sp: SpaceSpec = {
-      hw: space.hw,
-      tw: space.tw,
-      bf: space.bf,
-      tf: space.tf,
-      symmetric: space.symmetric,
-      panels: space.panels,
-      flats: space.flats,
-      sides: [...space.sides],
-      endPosts: [...space.endPosts],
-      webGrades: ['S355'],
-      flangeGrades: space.flangeGrades,
-      minDepth: 0,
-      maxDepth: space.maxDepth,
-      rules: {},
-    };
+    const sp = spaceOf(space);
     const options = defaultOptions(L, restrained ? { restraint: { kind: 'continuous' } } : { restraint: { kind: 'at', at: [0, L / 2, L] } });
     const problem = { space: sp, options, load: simpleSpanModel(L, q, P, q / 1.4), objective, cost: DEFAULT_COST };
     const fast = search(problem);
@@ -74,18 +47,20 @@ describe('search = brute force', () => {
 describe('a search shared out over workers (SlicePart)', () => {
   // consistency property: the parts divide the space (sizes add up) and their merged fronts are the whole search's
   test.prop([problemArb, fc.integer({ min: 2, max: 4 })], { numRuns: 60 })('the merged parts give the same answer as one search', ({ space, L, q, P, objective, restrained }, of) => {
-    const sp: SpaceSpec = {
-      hw: space.hw, tw: space.tw, bf: space.bf, tf: space.tf, symmetric: space.symmetric, panels: space.panels, flats: space.flats,
-      sides: [...space.sides], endPosts: [...space.endPosts], webGrades: ['S355'], flangeGrades: space.flangeGrades, minDepth: 0, maxDepth: space.maxDepth, rules: {},
-    };
+    const sp = spaceOf(space);
     const options = defaultOptions(L, restrained ? { restraint: { kind: 'continuous' } } : { restraint: { kind: 'at', at: [0, L / 2, L] } });
     const problem = { space: sp, options, load: simpleSpanModel(L, q, P, q / 1.4), objective, cost: DEFAULT_COST };
     const one = search(problem);
     const prep = prepareSearch(problem);
     const parts = Array.from({ length: of }, (_, slot) => searchSlice(prep, [[0, prep.webs.length]], undefined, undefined, { slot, of }));
-    expect(parts.reduce((n, r) => n + r.spaceSize, 0)).toBe(spaceSize(sp));
+    // the parts divide the slice's candidates (those the fabrication rules leave) between them
+    expect(parts.reduce((n, r) => n + r.spaceSize, 0)).toBe(searchSlice(prep, [[0, prep.webs.length]]).spaceSize);
     const merged = mergeSlices(parts, 0, of, prep.webs.length, spaceSize(sp));
     expect(frontKey(merged.pareto)).toEqual(frontKey(one.pareto));
+    // the rules' share is decided run by run and plate by plate, however the runs are dealt
+    expect(merged.stats.pruned.rules).toBe(one.stats.pruned.rules);
+    const counted = Object.values(merged.stats.pruned).reduce((a, b) => a + b, 0) + merged.stats.fullEvaluations;
+    expect(counted).toBe(spaceSize(sp));
   });
 });
 
@@ -110,10 +85,7 @@ describe('search = brute force, with loads analysed by the actions package (poin
       combination: '6.10',
       extraStations: stiffenerStations(spans, space.panels),
     });
-    const sp: SpaceSpec = {
-      hw: space.hw, tw: space.tw, bf: space.bf, tf: space.tf, symmetric: space.symmetric, panels: space.panels, flats: space.flats,
-      sides: [...space.sides], endPosts: [...space.endPosts], webGrades: ['S355'], flangeGrades: space.flangeGrades, minDepth: 0, maxDepth: space.maxDepth, rules: {},
-    };
+    const sp = spaceOf(space);
     const supports = [0, ...spans.map((_, i) => spans.slice(0, i + 1).reduce((s, x) => s + x, 0))];
     const options = defaultOptions(L, { supports, restraint: { kind: 'at', at: [0, L / 2, L] } });
     const problem = { space: sp, options, load: analysisLoadModel(a), objective, cost: DEFAULT_COST };
@@ -129,18 +101,30 @@ describe('search = brute force on mono-symmetric spaces with many flange widths'
   // Checked by mutation: declaring every second stretch dead unbounded, or leaving the widest
   // member of each stretch out of its bound, each fails this test (300 runs; 100 caught only the latter)
   const arb = fc.record({
-    hw: fc.subarray([600, 800, 1000, 1200], { minLength: 1, maxLength: 2 }),
-    tw: fc.subarray([6, 8, 10, 12], { minLength: 1, maxLength: 2 }),
-    bf: fc.subarray([150, 175, 200, 225, 250, 300, 350, 400, 450], { minLength: 5, maxLength: 7 }),
-    tf: fc.subarray([10, 12, 15, 20, 25], { minLength: 1, maxLength: 2 }),
-    panels: fc.subarray([0, 2, 4], { minLength: 1, maxLength: 2 }),
+    space: spaceOver({
+      hw: [600, 800, 1000, 1200],
+      tw: [6, 8, 10, 12],
+      bf: [150, 175, 200, 225, 250, 300, 350, 400, 450],
+      bfCount: [5, 7],
+      tf: [10, 12, 15, 20, 25],
+      panels: [0, 2, 4],
+      max: 2,
+      symmetric: false,
+      flats: [...FLAT_BARS].slice(0, 2),
+      sides: [2],
+      endPosts: ['rigid'],
+      webGradeCount: 1,
+      flangeGradeCount: 1,
+      // rules off on two draws in three: the rows keep the 5-7 columns the stretches need above
+      rules: fc.oneof({ arbitrary: fc.constant({}), weight: 2 }, { arbitrary: rulesArb, weight: 1 }),
+    }),
     span: fc.constantFrom(9000, 12000, 15000, 20000),
     restraints: fc.constantFrom(1, 2, 3, 4, 6),
     g: fc.double({ min: 5, max: 20, noNaN: true }),
     q: fc.double({ min: 5, max: 30, noNaN: true }),
     P: fc.constantFrom(0, 100, 250, 500),
   });
-  test.prop([arb], { numRuns: 300 })('Pareto set and optimum equal exhaustive enumeration', ({ hw, tw, bf, tf, panels, span, restraints, g, q, P }) => {
+  test.prop([arb], { numRuns: 300 })('Pareto set and optimum equal exhaustive enumeration', ({ space, span, restraints, g, q, P }) => {
     const a = analyse({
       spans: [span],
       actions: [
@@ -149,12 +133,9 @@ describe('search = brute force on mono-symmetric spaces with many flange widths'
         ...(P > 0 ? [{ kind: 'variable' as const, load: 'point' as const, value: P * 1e3, at: span / 3, ss: 150, category: 'E' }] : []),
       ],
       combination: '6.10',
-      extraStations: stiffenerStations([span], panels),
+      extraStations: stiffenerStations([span], space.panels),
     });
-    const sp: SpaceSpec = {
-      hw, tw, bf, tf, symmetric: false, panels, flats: [...FLAT_BARS].slice(0, 2),
-      sides: [2], endPosts: ['rigid'], webGrades: ['S355'], flangeGrades: ['S355'], minDepth: 0, maxDepth: Infinity, rules: {},
-    };
+    const sp = spaceOf(space);
     const at = Array.from({ length: restraints + 1 }, (_, i) => (i * span) / restraints);
     const options = defaultOptions(span, { supports: [0, span], restraint: { kind: 'at', at } });
     const problem = { space: sp, options, load: analysisLoadModel(a), objective: 'mass' as const, cost: DEFAULT_COST };
@@ -163,5 +144,27 @@ describe('search = brute force on mono-symmetric spaces with many flange widths'
     expect(frontKey(fast.pareto)).toEqual(frontKey(brute.front));
     const pruned = Object.values(fast.stats.pruned).reduce((s, x) => s + x, 0);
     expect(pruned + fast.stats.fullEvaluations).toBe(fast.stats.spaceSize);
+  });
+});
+
+describe('fabrication rules that leave nothing to search', () => {
+  // regression: the search used to throw (a self-weight of Infinity from the lightest of no flanges)
+  const problemWith = (rules: SpaceSpec['rules'], panels: number[]) => {
+    const sp: SpaceSpec = {
+      hw: [900], tw: [12], bf: [300], tf: [40], symmetric: false, panels, flats: [...FLAT_BARS].slice(0, 1),
+      sides: [2], endPosts: ['rigid'], webGrades: ['S355'], flangeGrades: ['S355'], minDepth: 0, maxDepth: Infinity, rules,
+    };
+    return { space: sp, options: defaultOptions(10000), load: simpleSpanModel(10000, 20, 0, 14), objective: 'mass' as const, cost: DEFAULT_COST };
+  };
+  it.for([
+    ['bf/tf leaves no flange option (300/40 = 7.5 < 8)', { bfOverTfMin: 8 }, [0]],
+    ['flats thinner than the web leave no stiffened layout', { stiffenerAtLeastWeb: true }, [2]],
+  ] as const)('%s: an empty answer, every candidate pruned by the rules', ([, rules, panels]) => {
+    const problem = problemWith(rules, [...panels]);
+    expect(bruteForce(problem).front).toEqual([]);
+    const r = search(problem);
+    expect(r.pareto).toEqual([]);
+    expect(r.stats.pruned.rules).toBe(spaceSize(problem.space));
+    expect(r.stats.fullEvaluations).toBe(0);
   });
 });

@@ -5,7 +5,7 @@ import { analyse } from '@platesmith/actions';
 import { analysisLoadModel } from '../src/index.js';
 import { grossProps, material, wagnerZj } from '@platesmith/checks';
 import { ltbSetBound, stackProps, wyFyBound, zjOf } from '../src/ltb-bound.js';
-import { plateStackMel } from '../src/best-first.js';
+import { plateStackMel } from '../src/slice/plate-tables.js';
 
 /**
  * Soundness of the lateral-torsional-buckling bound over a set of sections (consistency

@@ -1,0 +1,205 @@
+/**
+ * Judging: a set of plates is screened for lateral-torsional buckling, then its stiffener layouts
+ * are judged by the check library in ascending lower bound. The checks that read no layout are
+ * judged once per set of plates; a failure that depends only on the panels (and end post), or
+ * only on the web and its stiffeners, is shared with the layouts it also fails. A candidate that
+ * passes gets checkGirder's verdict (assembleVerdict joins the two parts; a property test keeps
+ * them equal), so it is never judged again.
+ */
+import { assembleVerdict, CHECK_ORDER, firstFailureAmong, inJudgeOrder, type CheckResult, type Judged } from '@platesmith/checks';
+import { priceCost, settle, type CandidateKey } from '../core.js';
+import { buildSection, flangeMass } from '../objective.js';
+import { ltbFails } from './ltb.js';
+import { bearingFloorFor, bearingFloorOf, bearingFlatCount, flatFailsTorsion, panelOk, partOf } from './plate-tables.js';
+import { admit, keepMiss, prunes } from './staircase.js';
+import { doubles, KG_PER_MM3, type LayoutsNode, type PlatesNode, type SliceState } from './state.js';
+
+/**
+ * Checks that read nothing of the intermediate stiffeners, the end post or the bearing
+ * stiffeners: judged once per set of plates (web plate and flanges). With the self-weight
+ * convention of selfWeightOf every stiffener layout of those plates has the same effects, so the
+ * verdict of these checks is the same for all of them.
+ */
+const PLATE_IDS = inJudgeOrder(['deflection', 'lateral-torsional-buckling', 'bending', 'shear', 'flange-induced-buckling', 'web-flange-weld', 'classification']);
+/** The other checks: judged per stiffener layout. PLATE_IDS and LAYOUT_IDS together are CHECK_ORDER. */
+const LAYOUT_IDS = (() => {
+  // stiffener stiffness first: cheap, and its failure is shared by every flange on the web
+  const rest = inJudgeOrder(CHECK_ORDER.filter((id) => !PLATE_IDS.includes(id) && id !== 'stiffener-stiffness'));
+  return ['stiffener-stiffness' as const, ...rest];
+})();
+/**
+ * Layout checks that read the panel layout (stiffener positions, end-post type) but not the flats
+ * (EN 1993-1-5 5.2–5.5 with Table 5.1, 6, 7.1, 7.2): a failure fails every flat and every number
+ * of sides with the same panels and end post, on the same plates.
+ */
+const PANEL_ONLY: ReadonlySet<string> = new Set(['shear-buckling', 'bending-shear', 'patch-loading', 'patch-bending']);
+
+/**
+ * A failed check whose inputs are the web and its intermediate stiffeners only fails every flange
+ * on that web: stiffener stiffness (EN 1993-1-5 9.3.3(3): a, hw, tw, the flats and 15εtw of web)
+ * and the torsional requirement of the intermediate flats (9.2.1(8)). The torsion of the bearing
+ * flats is not web-only: they are sized to fit the flanges.
+ */
+function failsWebOnly(c: CheckResult): boolean {
+  return !c.passes && (c.id === 'stiffener-stiffness' || (c.id === 'stiffener-torsion' && c.values['stiffener'] === 'intermediate'));
+}
+
+/** The LTB screen for a set of plates, then a node for its layouts in ascending lower bound. */
+export function judgePlates(s: SliceState, nd: PlatesNode): void {
+  const { p, webs, pruned, L } = s;
+  const { ps } = nd;
+  const { plate, T, B, d } = ps;
+  const nL = plate.layouts.length;
+  if (prunes(s, d, nd.lb)) {
+    pruned.incumbent += nL;
+    return;
+  }
+  const section = buildSection(webs.at(plate.layouts[0]!), partOf(s, plate, 0), T, B);
+  if (ltbFails(s, section, ps.g)) {
+    pruned.lateralTorsional += nL;
+    keepMiss(s, { key: [plate.layouts[0]!, ps.ti, ps.bi], section, depth: d, g: ps.g, lb: nd.lb });
+    return;
+  }
+  if (ps.fit && !p.load.maxReaction) {
+    const effects = (ps.effects = p.load.effects(ps.g));
+    // a load model without maxReaction: the bearing floor from the reactions of the effects
+    let R = 0;
+    for (const r of effects.reactions) R = Math.max(R, Math.abs(r.R));
+    const fit = bearingFloorFor(s, plate, Math.min(T.b, B.b), R);
+    if (fit === 'none') {
+      pruned.bearing += nL;
+      return;
+    }
+    ps.fit = fit;
+  }
+  // the layout-free checks wait until a layout has passed the others (judgeLayouts): past the
+  // bounds and the LTB screen they rarely fail, and most sets never get that far; the effects
+  // wait for the first layout judged (tens of kB each, which the collector would copy and keep)
+  ps.section = section;
+  // a plain array: read on every return of the node from the heap, with the node (no separate buffer)
+  const lbs = doubles(nL);
+  const kgPlates = flangeMass(T, L) + flangeMass(B, L);
+  let order: Int32Array;
+  if (s.isMass) {
+    // the order of the layouts depends on the plates only through the bearing floor: cached
+    const minB = Math.min(T.b, B.b);
+    const key = ps.fit ? `${ps.fit.bs}x${ps.fit.ts}` : `none:${minB}`;
+    let hit = plate.orders.get(key);
+    if (!hit) {
+      const add = new Float64Array(nL);
+      for (let j = 0; j < nL; j++) {
+        const w = webs.at(plate.layouts[j]!);
+        const b = bearingFloorOf(s, ps, j);
+        add[j] = partOf(s, plate, j).stiffMass + bearingFlatCount(s, w.endPost) * b.bs * b.ts * w.hw * KG_PER_MM3;
+      }
+      const idx = Array.from({ length: nL }, (_, j) => j);
+      idx.sort((x, y) => add[x]! - add[y]! || plate.layouts[x]! - plate.layouts[y]!);
+      hit = { order: Int32Array.from(idx), add };
+      plate.orders.set(key, hit);
+    }
+    // a lower bound by a hair (summed in another order than the exact mass): never above it
+    const base = plate.webMass + kgPlates;
+    for (let j = 0; j < nL; j++) lbs[j] = (base + hit.add[j]!) * (1 - 1e-12);
+    order = hit.order;
+  } else {
+    const idx: number[] = [];
+    for (let j = 0; j < nL; j++) {
+      const w = webs.at(plate.layouts[j]!);
+      lbs[j] = priceCost(s.prep, w, partOf(s, plate, j), T, B, bearingFloorOf(s, ps, j), s.minThroat);
+      idx.push(j);
+    }
+    idx.sort((x, y) => lbs[x]! - lbs[y]! || plate.layouts[x]! - plate.layouts[y]!);
+    order = Int32Array.from(idx);
+  }
+  ps.order = order;
+  ps.lbs = lbs;
+  if (order.length > 0) s.heap.push({ kind: 2, lb: lbs[order[0]!]!, seq: s.seq++, ps });
+}
+
+/** How far (relative) a layout's bound may pass the heap's least before its set goes back to the heap: fewer returns, each a cache miss on the set (only the order changes). */
+const LAYOUT_SLACK = 0.01;
+
+/** The layout checks for the next layouts of a set of plates, in ascending lower bound. */
+export function judgeLayouts(s: SliceState, nd: LayoutsNode): void {
+  const { p, o, webs, pruned, heap, L, failedBy } = s;
+  const { ps } = nd;
+  const { plate, T, B, d } = ps;
+  const order = ps.order!;
+  const lbs = ps.lbs!;
+  while (ps.k < order.length) {
+    const j = order[ps.k]!;
+    const lb = lbs[j]!;
+    if (prunes(s, d, lb)) {
+      pruned.incumbent += order.length - ps.k;
+      ps.k = order.length;
+      return;
+    }
+    if (lb > heap.peekLb() * (1 + LAYOUT_SLACK)) {
+      nd.lb = lb;
+      heap.push(nd);
+      return;
+    }
+    ps.k++;
+    const wi = plate.layouts[j]!;
+    const w = webs.at(wi);
+    if (s.webDead.has(wi) || flatFailsTorsion(s, w)) {
+      pruned.webOnly++;
+      continue;
+    }
+    if (!panelOk(s, ps, w.panels)) {
+      pruned.patchLoading++;
+      continue;
+    }
+    // panels and end post (the panel-only checks read nothing else of the layout)
+    const panelKey = 2 * w.panels + (w.endPost === 'rigid' ? 1 : 0);
+    if (ps.panelDead?.has(panelKey)) {
+      pruned.sameFlanges++;
+      continue;
+    }
+    const parts = partOf(s, plate, j);
+    const section = buildSection(w, parts, T, B);
+    const judged: Judged = { results: [] };
+    const known = ps.panelPassed?.get(panelKey);
+    const effects = (ps.effects ??= p.load.effects(ps.g));
+    const fail = firstFailureAmong(section, effects, o, LAYOUT_IDS, judged, known);
+    // the panel-only checks that passed here pass, with the same results, on every flat and side
+    for (const r of judged.results) {
+      if (!PANEL_ONLY.has(r.id) || !r.passes || known?.has(r.id)) continue;
+      const panelMap = (ps.panelPassed ??= new Map());
+      let got = panelMap.get(panelKey);
+      if (!got) panelMap.set(panelKey, (got = new Map()));
+      got.set(r.id, r);
+    }
+    // each layout judged completes a judgement (the plates' part was judged once for all of them);
+    // layouts dropped before it are counted under their reason, so every candidate counts once
+    ps.layoutCalls++;
+    s.fullEvaluations++;
+    const key: CandidateKey = [wi, ps.ti, ps.bi];
+    if (fail === null && !ps.plateResults) {
+      // the layout-free checks, once for these plates, now that a layout needs their verdict
+      const pj: Judged = { results: [] };
+      const plateFail = firstFailureAmong(ps.section!, effects, o, PLATE_IDS, pj);
+      if (plateFail) {
+        // it fails every layout of these plates: the rest are dropped with this one
+        failedBy[plateFail.id] = (failedBy[plateFail.id] ?? 0) + 1;
+        keepMiss(s, { key, section, depth: d, g: ps.g, lb });
+        pruned.sameFlanges += order.length - ps.k;
+        ps.k = order.length;
+        return;
+      }
+      ps.plateResults = pj.results;
+    }
+    if (fail === null) {
+      // both parts passed: together they are checkGirder's verdict (a property test keeps them equal)
+      const verdict = assembleVerdict([...ps.plateResults!, ...judged.results], judged.bearing!, judged.bearingSized!);
+      const plates = parts.webMass + parts.stiffMass + (flangeMass(T, L) + flangeMass(B, L));
+      const { mass, value } = settle(s.prep, w, parts, T, B, plates, verdict, s.throat0);
+      admit(s, { key, section: { ...section, bearing: verdict.bearing }, depth: d, mass, value, verdict });
+      continue;
+    }
+    failedBy[fail.id] = (failedBy[fail.id] ?? 0) + 1;
+    keepMiss(s, { key, section, depth: d, g: ps.g, lb });
+    if (failsWebOnly(fail)) s.webDead.add(wi);
+    else if (PANEL_ONLY.has(fail.id)) (ps.panelDead ??= new Set()).add(panelKey);
+  }
+}

@@ -1,0 +1,184 @@
+/**
+ * Per web plate tables, made when first asked for and shared by every run and set of plates on the
+ * plate: the quantities of its layouts, the torsion of its flats, patch loading (6.4 and the 7.2
+ * floor) per top flange and panel count, Mel,Rd, and the bearing flats the sizing can return.
+ */
+import { bearingCandidates, flatTorsion, lightestFittingBearing, patchBendingMelNeed, patchEta2s, type BearingCandidates, type EndPost } from '@platesmith/checks';
+import { fy } from '@platesmith/catalogue';
+import { defaultBearing, type BearingFlat } from '../core.js';
+import { bearingPairs, buildSection, flangeMass, webPartsWith, type WebParts } from '../objective.js';
+import type { FlangeOption, WebConfig } from '../space.js';
+import type { Plate, Plates, SliceState } from './state.js';
+
+/** The quantities of layout j of a plate, made when first asked for. */
+export function partOf(s: SliceState, plate: Plate, j: number): WebParts {
+  let hit = plate.parts[j];
+  if (!hit) {
+    const w = s.webs.at(plate.layouts[j]!);
+    hit = webPartsWith(w, s.L, s.stiffCount.get(w.panels) ?? 0, s.Lmax);
+    plate.parts[j] = hit;
+  }
+  return hit;
+}
+
+/** The torsional requirement of intermediate flats (EN 1993-1-5 9.2.1(8)) reads the flat alone: once per flat. */
+export function flatFailsTorsion(s: SliceState, w: WebConfig): boolean {
+  if (!w.flat || w.panels === 0) return false;
+  let byFlat = s.torsionFails.get(w.grade);
+  if (!byFlat) s.torsionFails.set(w.grade, (byFlat = new Map()));
+  let fails = byFlat.get(w.flat);
+  if (fails === undefined) {
+    const t = flatTorsion(w.flat.b, w.flat.t, fy(w.grade, w.flat.t, s.prep.fySource), s.o.E);
+    fails = t.limit / t.ItOverIp > 1 + 1e-9;
+    byFlat.set(w.flat, fails);
+  }
+  return fails;
+}
+
+/**
+ * Patch loading on a plate under top flange option ti with n panels: the largest η2 (6.4, exact),
+ * and the least Mel,Rd with which the 7.2 floor passes (patchBendingMelNeed; a table per plate,
+ * NaN until computed). Returns the tables' key.
+ */
+export function patchTables(s: SliceState, plate: Plate, ti: number, n: number): number {
+  const slots = s.panelSlots.size;
+  const table = (plate.patch ??= new Float64Array(s.nFlange * slots).fill(Number.NaN));
+  const need = (plate.patchNeed ??= new Float64Array(s.nFlange * slots));
+  const key = ti * slots + s.slotOf[n]!;
+  if (Number.isNaN(table[key]!)) {
+    const etas = patchEta2s(s.forces, plate.w, s.flanges[ti]!, s.panelsByCount.get(n)!, s.o.E, s.o.factors.gammaM1);
+    let u = 0;
+    for (const e of etas) u = Math.max(u, e);
+    table[key] = u;
+    need[key] = s.anySag ? patchBendingMelNeed(etas, s.sagAtForces, 1 + 1e-9) : 0;
+  }
+  return key;
+}
+
+/** The patch-loading utilisation (6.4) of a plate under top flange option ti with n panels. */
+export function patchOf(s: SliceState, plate: Plate, ti: number, n: number): number {
+  const key = patchTables(s, plate, ti, n);
+  return plate.patch![key]!;
+}
+
+/**
+ * Patch loading of top option ti on a plate, over its panel counts: the least Mel,Rd the 7.2 floor
+ * needs on the counts that pass 6.4; −1 when none passes 6.4, −2 when none that does leaves room
+ * for the floor. Once per plate and option (the runs of every bottom thickness share it).
+ */
+export function rowPatchNeed(s: SliceState, plate: Plate, ti: number): number {
+  const memo = (plate.rowNeed ??= new Float64Array(s.nFlange).fill(Number.NaN));
+  let need = memo[ti]!;
+  if (Number.isNaN(need)) {
+    need = Infinity;
+    let any = false;
+    for (const np of plate.panelCounts) {
+      const key = patchTables(s, plate, ti, np);
+      if (plate.patch![key]! <= 1 + 1e-9) {
+        any = true;
+        need = Math.min(need, plate.patchNeed![key]!);
+      }
+    }
+    if (need === Infinity) need = any ? -2 : -1;
+    memo[ti] = need;
+  }
+  return need;
+}
+
+/** Mel,Rd of the plates' gross section: grossProps(·).Mel of the same three rectangles at the plates' own fy, over γM0 (to round-off). */
+export function melRd(s: SliceState, w: WebConfig, T: FlangeOption, B: FlangeOption): number {
+  return plateStackMel(w, T, B) / s.o.factors.gammaM0;
+}
+
+/** melRd of a set of plates, kept on it. */
+export function melRdOf(s: SliceState, ps: Plates): number {
+  if (ps.MelRd === 0) ps.MelRd = melRd(s, ps.plate.w, ps.T, ps.B);
+  return ps.MelRd;
+}
+
+/** Whether a panel count passes the patch-loading bounds on these plates: 6.4 and the 7.2 floor (from the plate's tables). */
+export function panelOk(s: SliceState, ps: Plates, np: number): boolean {
+  if (s.forces.length === 0) return true;
+  // the plate's tables hold the per-flange work; only Mel,Rd is the pair's own (kept on it)
+  const key = patchTables(s, ps.plate, ps.ti, np);
+  if (!(ps.plate.patch![key]! <= 1 + 1e-9)) return false;
+  // the 7.2 floor: Mel,Rd at least its need (a hair of margin: only a clear failure drops it)
+  const need = ps.plate.patchNeed![key]!;
+  return !(need > 0) || melRdOf(s, ps) >= need * (1 - 1e-9);
+}
+
+/** Per stiffener grade: the bearing flats the sizing can accept (torsion, crushing under a reaction). */
+function bearingOf(s: SliceState, grade: WebConfig['grade']): BearingCandidates {
+  let hit = s.bearingByGrade.get(grade);
+  if (!hit) {
+    const fySource = s.prep.fySource;
+    hit = bearingCandidates(s.o.bearingFlats, (t) => fy(grade, t, fySource), s.o);
+    s.bearingByGrade.set(grade, hit);
+  }
+  return hit;
+}
+
+/**
+ * The bearing floor of a set of plates under a largest support reaction R: null when no stock
+ * flat fits the flanges (the sizing keeps the section's default), 'none' when flats fit but
+ * none of them can pass (every layout of these plates fails), else the lightest that can.
+ */
+export function bearingFloorFor(s: SliceState, plate: Plate, minB: number, R: number): BearingFlat | null | 'none' {
+  if (!fitOf(s, plate, minB)) return null;
+  const f = bearingOf(s, plate.w.grade).lightestFor(minB, plate.w.tw, R);
+  return f ? { bs: f.b, ts: f.t } : 'none';
+}
+
+function fitOf(s: SliceState, plate: Plate, minB: number): BearingFlat | null {
+  let hit = plate.fit.get(minB);
+  if (hit === undefined) {
+    const f = lightestFittingBearing(s.o.bearingFlats, minB, plate.w.tw);
+    hit = f ? { bs: f.b, ts: f.t } : null;
+    plate.fit.set(minB, hit);
+  }
+  return hit;
+}
+
+/** The least bearing flats a layout's sizing can return: the plates' bearing floor (bearingFloorFor), or the section's default when no stock flat fits. */
+export function bearingFloorOf(s: SliceState, ps: Plates, j: number): BearingFlat {
+  if (ps.fit) return ps.fit;
+  const w = s.webs.at(ps.plate.layouts[j]!);
+  return defaultBearing(s.prep, buildSection(w, partOf(s, ps.plate, j), ps.T, ps.B));
+}
+
+/** The least bearing-flat area (mm²) the sizing can return on a web of thickness tw (a stock flat, or a default of resolveBearing). */
+export function bearingAreaFloor(s: SliceState, tw: number): number {
+  let a = Math.min(s.minStockBearing, 40 * tw);
+  for (const f of s.sp.flats) a = Math.min(a, f.b * Math.max(f.t, tw));
+  return a;
+}
+
+/** Bearing-stiffener flats with this end post (double-sided pairs × 2). */
+export function bearingFlatCount(s: SliceState, ep: EndPost): number {
+  return bearingPairs(ep, s.supports) * 2;
+}
+
+/** The masses of a group's flange options, kg (widths ascending, so masses ascending). */
+export function groupMass(s: SliceState, gi: number): Float64Array {
+  return (s.massOfGroup[gi] ??= Float64Array.from(s.groups[gi]!.options, (f) => flangeMass(f, s.L)));
+}
+
+/**
+ * Mel (N·mm, no partial factor) of the gross section of a web plate and two flanges, each plate at
+ * its own fy: the first yield of any plate's farthest fibre, as grossProps(·).Mel computes it from
+ * the same three rectangles (to round-off; a property test keeps them equal).
+ */
+export function plateStackMel(w: Pick<WebConfig, 'hw' | 'tw' | 'fyw'>, T: Pick<FlangeOption, 'b' | 't' | 'fy'>, B: Pick<FlangeOption, 'b' | 't' | 'fy'>): number {
+  const z1 = B.t;
+  const z2 = B.t + w.hw;
+  const h = z2 + T.t;
+  const A0 = B.b * B.t;
+  const A1 = w.tw * w.hw;
+  const A2 = T.b * T.t;
+  const zc = (A0 * (z1 / 2) + A1 * ((z1 + z2) / 2) + A2 * ((z2 + h) / 2)) / (A0 + A1 + A2);
+  const d0 = z1 / 2 - zc;
+  const d1 = (z1 + z2) / 2 - zc;
+  const d2 = (z2 + h) / 2 - zc;
+  const I = (A0 * B.t * B.t) / 12 + A0 * d0 * d0 + (A1 * w.hw * w.hw) / 12 + A1 * d1 * d1 + (A2 * T.t * T.t) / 12 + A2 * d2 * d2;
+  return Math.min((B.fy * I) / Math.max(zc, Math.abs(z1 - zc)), (w.fyw * I) / Math.max(Math.abs(z1 - zc), Math.abs(z2 - zc)), (T.fy * I) / Math.max(Math.abs(z2 - zc), h - zc));
+}
