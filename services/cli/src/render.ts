@@ -55,7 +55,20 @@ export function renderChecks(v: PublishedVerdict, wide = false): string {
 export function renderAssumptions(list: readonly Assumption[]): string {
   if (list.length === 0) return '';
   const v = (x: Assumption['value']) => (Array.isArray(x) ? x.join(', ') : String(x));
-  return `Assumed (not given in the input):\n${list.map((a) => `  ${a.field} = ${v(a.value)}: ${a.note}`).join('\n')}\n\n`;
+  // each line wrapped at the tables' width, continued under its text
+  const wrap = (text: string): string => {
+    const out: string[] = [];
+    let line = '';
+    for (const word of text.split(' ')) {
+      if (line && line.length + 1 + word.length > TABLE_WIDTH) {
+        out.push(line);
+        line = `      ${word}`;
+      } else line = line ? `${line} ${word}` : word;
+    }
+    out.push(line);
+    return out.join('\n');
+  };
+  return `Assumed (not given in the input):\n${list.map((a) => wrap(`  ${a.field} = ${v(a.value)}: ${a.note}`)).join('\n')}\n\n`;
 }
 
 export function caution(): string {
