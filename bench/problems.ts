@@ -15,7 +15,8 @@ const INDUSTRIAL_20M = {
     { kind: 'permanent', load: 'point', value: 260, at: 13000, ss: 200 },
     { kind: 'variable', load: 'point', value: 310, at: 13000, ss: 200, category: 'E' },
   ],
-  options: { restraint: { spacing: 5000 } },
+  // restraints pinned: each problem keeps the meaning it had when its figures were first taken
+  options: { restraint: { spacing: 5000 }, bottomRestraint: 'supports' },
 };
 
 export const PROBLEMS: { name: string; input: Record<string, unknown>; small: Record<string, unknown> }[] = [
@@ -45,7 +46,7 @@ export const PROBLEMS: { name: string; input: Record<string, unknown>; small: Re
         { kind: 'variable', load: 'udl', value: 3.0, category: 'H' },
       ],
       combination: '6.10ab',
-      options: { restraint: { spacing: 4000 } },
+      options: { restraint: { spacing: 4000 }, bottomRestraint: 'supports' },
       space: {
         webDepth: range(1200, 2800, 50),
         webThickness: [8, 10, 12, 15, 20],

@@ -32,6 +32,7 @@ function solve(): Evaluated[] {
       actions: [{ kind: 'permanent', load: 'udl', value: w }],
       factors: { gammaGsup: 1, gammaGinf: 1 },
       deflection: [],
+      options: { restraint: 'continuous' },
       space: {
         webDepth: [hw],
         webThickness: [hw / lambda],

@@ -27,7 +27,14 @@ function toBeamLoad(a: ResolvedAction): BeamLoad {
 }
 
 function variablesOf(rp: ResolvedProblem): VariableInfo[] {
-  return rp.actions.filter((a) => a.kind === 'variable').map((a) => ({ name: a.name, psi: a.psi }));
+  const vars = rp.actions.filter((a) => a.kind === 'variable');
+  // Annex A2: a traffic group's actions lead together; road traffic at its own γQ
+  const first = new Map<string, number>();
+  return vars.map((a, j) => {
+    const unit = a.group !== undefined ? (first.get(a.group) ?? (first.set(a.group, j), j)) : j;
+    const gammaQ = rp.annex === 'A2-road' && a.traffic ? rp.factors.gammaQTraffic : undefined;
+    return { name: a.name, psi: a.psi, unit, ...(gammaQ !== undefined ? { gammaQ } : {}) };
+  });
 }
 
 /**

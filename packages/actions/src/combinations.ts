@@ -4,6 +4,21 @@ import type { PsiFactors } from './psi.js';
 export interface VariableInfo {
   name: string;
   psi: PsiFactors;
+  /** the variable action it leads with: actions of one traffic group share it (default its own index) */
+  unit?: number;
+  /** its own γQ where it differs from the set's (road traffic in Annex A2) */
+  gammaQ?: number;
+}
+
+/** The leading units (a traffic group's actions lead together): unit → its actions' indices, in order. */
+function unitsOf(variables: readonly VariableInfo[]): number[][] {
+  const by = new Map<number, number[]>();
+  variables.forEach((v, j) => {
+    const u = v.unit ?? j;
+    if (!by.has(u)) by.set(u, []);
+    by.get(u)!.push(j);
+  });
+  return [...by.values()];
 }
 
 /**
@@ -12,14 +27,20 @@ export interface VariableInfo {
  * - '6.10':   γG·G + γQ·Q_lead + Σ γQ·ψ0,i·Q_i, each variable action leading in turn;
  * - '6.10ab': 6.10a γG·G + Σ γQ·ψ0,i·Q_i, and 6.10b ξ·γG,sup·G + γQ·Q_lead + Σ γQ·ψ0,i·Q_i
  *             (γG,inf is not reduced by ξ); the envelope of all of them is the less favourable.
+ * Annex A2 (road bridges): the actions of one traffic group are one variable action (they lead
+ * together, each at its own ψ0 when accompanying), and road traffic takes its own γQ (Table A2.4(B):
+ * 1.35; other variable actions 1.50).
  * Permanent actions are all at γG,sup or all at γG,inf (single source, 6.4.3.1(4)); both are
  * listed. A variable action that is favourable is taken as 0: that is done station by station
  * by the analysis (each factor here is the value used where the action is unfavourable).
  */
 export function ulsCombinations(variables: readonly VariableInfo[], equation: '6.10' | '6.10ab', f: CombinationFactors): Combination[] {
   const out: Combination[] = [];
-  const nQ = variables.length;
-  const acc = (lead: number | null): number[] => variables.map((v, j) => (j === lead ? f.gammaQ : f.gammaQ * v.psi.psi0));
+  const units = unitsOf(variables);
+  const nQ = units.length;
+  // a unit's actions at γQ when it leads, at γQ·ψ0 when it accompanies (each with its own γQ)
+  const acc = (lead: number | null): number[] => variables.map((v, j) => (lead !== null && units[lead]!.includes(j) ? (v.gammaQ ?? f.gammaQ) : (v.gammaQ ?? f.gammaQ) * v.psi.psi0));
+  const unitName = (i: number): string => (units[i]!.length === 1 ? variables[units[i]![0]!]!.name : units[i]!.map((j) => variables[j]!.name).join(' + '));
   const levels: { tag: string; sup: boolean }[] = [
     { tag: 'G sup', sup: true },
     { tag: 'G inf', sup: false },
@@ -29,7 +50,7 @@ export function ulsCombinations(variables: readonly VariableInfo[], equation: '6
     if (equation === '6.10') {
       if (nQ === 0) out.push({ label: `6.10 ${lv.tag}`, limitState: 'ULS', equation: '6.10', gammaG: gG, factors: [], leading: null });
       for (let i = 0; i < nQ; i++) {
-        out.push({ label: `6.10 ${lv.tag} + ${variables[i]!.name} lead`, limitState: 'ULS', equation: '6.10', gammaG: gG, factors: acc(i), leading: i });
+        out.push({ label: `6.10 ${lv.tag} + ${unitName(i)} lead`, limitState: 'ULS', equation: '6.10', gammaG: gG, factors: acc(i), leading: units[i]![0]! });
       }
     } else {
       out.push({
@@ -44,7 +65,7 @@ export function ulsCombinations(variables: readonly VariableInfo[], equation: '6
       const tagB = lv.sup ? 'ξ·G sup' : 'G inf';
       if (nQ === 0) out.push({ label: `6.10b ${tagB}`, limitState: 'ULS', equation: '6.10b', gammaG: gB, factors: [], leading: null });
       for (let i = 0; i < nQ; i++) {
-        out.push({ label: `6.10b ${tagB} + ${variables[i]!.name} lead`, limitState: 'ULS', equation: '6.10b', gammaG: gB, factors: acc(i), leading: i });
+        out.push({ label: `6.10b ${tagB} + ${unitName(i)} lead`, limitState: 'ULS', equation: '6.10b', gammaG: gB, factors: acc(i), leading: units[i]![0]! });
       }
     }
   }
@@ -62,7 +83,8 @@ export function slsCombinations(
   include: 'all' | 'variable',
 ): Combination[] {
   const gG = include === 'all' ? 1 : 0;
-  const nQ = variables.length;
+  const units = unitsOf(variables);
+  const nQ = units.length;
   const pre = include === 'all' ? '' : ' (variable only)';
   if (kind === 'quasi-permanent' || nQ === 0) {
     const fac = variables.map((v) => (kind === 'quasi-permanent' ? v.psi.psi2 : 0));
@@ -70,10 +92,12 @@ export function slsCombinations(
   }
   const out: Combination[] = [];
   for (let i = 0; i < nQ; i++) {
+    const lead = (j: number) => units[i]!.includes(j);
     const fac = variables.map((v, j) =>
-      kind === 'characteristic' ? (j === i ? 1 : v.psi.psi0) : j === i ? v.psi.psi1 : v.psi.psi2,
+      kind === 'characteristic' ? (lead(j) ? 1 : v.psi.psi0) : lead(j) ? v.psi.psi1 : v.psi.psi2,
     );
-    out.push({ label: `${kind}${pre}, ${variables[i]!.name} lead`, limitState: 'SLS', equation: kind, gammaG: gG, factors: fac, leading: i });
+    const name = units[i]!.map((j) => variables[j]!.name).join(' + ');
+    out.push({ label: `${kind}${pre}, ${name} lead`, limitState: 'SLS', equation: kind, gammaG: gG, factors: fac, leading: units[i]![0]! });
   }
   return out;
 }

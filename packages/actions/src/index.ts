@@ -19,5 +19,5 @@ export type {
 export { analyse, analyseEnvelope, designEffects, designReaction, summarise, combinationsFor, ANALYSIS_WORK_CAP } from './analyse.js';
 export { continuousBeam, type BeamLoad, type BeamSolution, type PointLoad, type DistributedLoad, type Side } from './beam.js';
 export { ulsCombinations, slsCombinations, type VariableInfo } from './combinations.js';
-export { psiFor, TABLE_A1_1, PSI_CATEGORIES, type PsiFactors } from './psi.js';
-export { RECOMMENDED_FACTORS, DEFAULT_DEFLECTION_LIMITS, MIN_SPAN, DEFAULT_SS, DEFAULT_GRID } from './validate.js';
+export { psiFor, TABLE_A1_1, TABLE_A2_1, isRoadTraffic, PSI_CATEGORIES, type PsiFactors } from './psi.js';
+export { RECOMMENDED_FACTORS, RECOMMENDED_FACTORS_A2_ROAD, DEFAULT_DEFLECTION_LIMITS, MIN_SPAN, DEFAULT_SS, DEFAULT_GRID } from './validate.js';

@@ -30,18 +30,43 @@ export const TABLE_A1_1: Readonly<Record<string, Readonly<PsiFactors>>> = Object
   temperature: { psi0: 0.6, psi1: 0.5, psi2: 0.0 },
 });
 
-export const PSI_CATEGORIES: readonly string[] = Object.freeze(Object.keys(TABLE_A1_1));
+/**
+ * EN 1990:2002/A1:2005 Annex A2, Table A2.1, recommended ψ values for road bridges (from memory):
+ * group gr1a (load model 1 with the footway combination value): tandem system TS 0.75/0.75/0,
+ * uniformly distributed load UDL 0.40/0.40/0, pedestrian and cycle-track loads 0.40/0.40/0;
+ * gr1b (single axle) 0/0.75/0; wind on the bridge (persistent design situations) 0.6/0.2/0;
+ * thermal actions 0.6/0.6/0.5. Road traffic takes γQ = 1.35 in Table A2.4(B) (see isRoadTraffic).
+ */
+export const TABLE_A2_1: Readonly<Record<string, Readonly<PsiFactors>>> = Object.freeze({
+  'road-TS': { psi0: 0.75, psi1: 0.75, psi2: 0.0 },
+  'road-UDL': { psi0: 0.4, psi1: 0.4, psi2: 0.0 },
+  'road-footway': { psi0: 0.4, psi1: 0.4, psi2: 0.0 },
+  'road-single-axle': { psi0: 0.0, psi1: 0.75, psi2: 0.0 },
+  'bridge-wind': { psi0: 0.6, psi1: 0.2, psi2: 0.0 },
+  'bridge-temperature': { psi0: 0.6, psi1: 0.6, psi2: 0.5 },
+});
+
+/** Whether a category is road traffic of EN 1990 Table A2.1 (γQ of Table A2.4(B) for road traffic). */
+export function isRoadTraffic(category: string | undefined): boolean {
+  return category === 'road-TS' || category === 'road-UDL' || category === 'road-footway' || category === 'road-single-axle';
+}
+
+export const PSI_CATEGORIES: readonly string[] = Object.freeze([...Object.keys(TABLE_A1_1), ...Object.keys(TABLE_A2_1)]);
 
 /**
  * ψ0, ψ1, ψ2 of an EN 1990 Table A1.1 category ('A'…'H', 'snow', 'snow-high-altitude', 'wind',
  * 'temperature'). Throws DomainError UNKNOWN_CATEGORY for anything else.
  */
 export function psiFor(category: string, field = 'category'): PsiFactors {
-  const row = Object.prototype.hasOwnProperty.call(TABLE_A1_1, category) ? TABLE_A1_1[category] : undefined;
+  const row = Object.prototype.hasOwnProperty.call(TABLE_A1_1, category)
+    ? TABLE_A1_1[category]
+    : Object.prototype.hasOwnProperty.call(TABLE_A2_1, category)
+      ? TABLE_A2_1[category]
+      : undefined;
   if (row === undefined) {
     throw new DomainError(
       'UNKNOWN_CATEGORY',
-      `unknown EN 1990 Table A1.1 category "${category}"`,
+      `unknown EN 1990 Table A1.1 / A2.1 category "${category}"`,
       `use one of ${PSI_CATEGORIES.join(', ')}, or give psi0, psi1 and psi2 yourself`,
       field,
       { category },

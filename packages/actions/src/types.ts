@@ -23,16 +23,20 @@ export interface ActionSpec {
   psi0?: number;
   psi1?: number;
   psi2?: number;
-  /** EN 1990 Table A1.1 row: 'A'…'H', 'snow', 'snow-high-altitude', 'wind', 'temperature' */
+  /** EN 1990 Table A1.1 row: 'A'…'H', 'snow', 'snow-high-altitude', 'wind', 'temperature'; Table A2.1 (road bridges): 'road-TS', 'road-UDL', 'road-footway', 'road-single-axle', 'bridge-wind', 'bridge-temperature' */
   category?: string;
+  /** traffic group (EN 1991-2 4.5, e.g. 'gr1a'): the actions of one group are one variable action, leading together */
+  group?: string;
   name?: string;
 }
 
-/** EN 1990 Table A1.2(B) partial factors (recommended 1.35, 1.00, 1.50, 0.85). */
+/** EN 1990 Table A1.2(B) partial factors (recommended 1.35, 1.00, 1.50, 0.85); Table A2.4(B) for road bridges adds γQ = 1.35 for road traffic. */
 export interface CombinationFactors {
   gammaGsup: number;
   gammaGinf: number;
   gammaQ: number;
+  /** γQ of road traffic (Annex A2 only; recommended 1.35) */
+  gammaQTraffic?: number;
   /** reduction factor ξ of eq. 6.10b, applied to γG,sup only */
   xi: number;
 }
@@ -52,6 +56,8 @@ export interface BeamProblem {
   actions: ActionSpec[];
   /** EN 1990 6.4.3.2(3): eq. 6.10, or the less favourable of 6.10a and 6.10b */
   combination: '6.10' | '6.10ab';
+  /** EN 1990 Annex A1 (buildings, default) or A2 for road bridges (Table A2.4(B) factors, traffic groups) */
+  annex?: 'A1' | 'A2-road';
   factors?: Partial<CombinationFactors>;
   /** default: total L/250 and variable L/360, characteristic (common practice, no source) */
   deflection?: DeflectionLimitSpec[];

@@ -1,5 +1,5 @@
 import { DomainError } from '@platesmith/catalogue';
-import { psiFor, type PsiFactors } from './psi.js';
+import { isRoadTraffic, psiFor, type PsiFactors } from './psi.js';
 import type { ActionSpec, BeamProblem, CombinationFactors, DeflectionLimitSpec } from './types.js';
 
 /** EN 1990:2002 Table A1.2(B) recommended values (ξ from the note to that table). */
@@ -34,6 +34,10 @@ export interface ResolvedAction {
   ss: number;
   psi: PsiFactors;
   name: string;
+  /** traffic group (actions of one group lead together) */
+  group?: string;
+  /** EN 1990 Table A2.1 road traffic (γQ of road traffic under Annex A2) */
+  traffic: boolean;
 }
 
 export function finite(v: unknown, field: string, unit: string): number {
@@ -137,14 +141,26 @@ export function resolveActions(actions: unknown, length: number): ResolvedAction
     } else if (name === '') {
       name = `G${i + 1}`;
     }
-    return { index: i, kind: a.kind, load: a.load, value, from, to, at, ss, psi, name };
+    if (a.group !== undefined && (typeof a.group !== 'string' || a.group.length === 0 || a.kind !== 'variable')) {
+      throw new DomainError('BAD_GROUP', `${f}.group must be a non-empty name on a variable action`, "e.g. 'gr1a' on each of the tandem system, the UDL and the footway load", `${f}.group`);
+    }
+    return { index: i, kind: a.kind, load: a.load, value, from, to, at, ss, psi, name, ...(a.group !== undefined ? { group: a.group } : {}), traffic: isRoadTraffic(a.category) };
   });
 }
 
-export function resolveFactors(f: Partial<CombinationFactors> | undefined): CombinationFactors {
-  const out = { ...RECOMMENDED_FACTORS };
+/** EN 1990:2002/A1:2005 Table A2.4(B) recommended values for road bridges (from memory): γG 1.35 / 1.00, γQ 1.35 for road traffic and 1.50 for other variable actions, ξ 0.85. */
+export const RECOMMENDED_FACTORS_A2_ROAD: Readonly<CombinationFactors> = Object.freeze({
+  gammaGsup: 1.35,
+  gammaGinf: 1.0,
+  gammaQ: 1.5,
+  gammaQTraffic: 1.35,
+  xi: 0.85,
+});
+
+export function resolveFactors(f: Partial<CombinationFactors> | undefined, annex: 'A1' | 'A2-road' = 'A1'): CombinationFactors {
+  const out = { ...(annex === 'A2-road' ? RECOMMENDED_FACTORS_A2_ROAD : RECOMMENDED_FACTORS) };
   if (f === undefined) return out;
-  for (const k of ['gammaGsup', 'gammaGinf', 'gammaQ', 'xi'] as const) {
+  for (const k of ['gammaGsup', 'gammaGinf', 'gammaQ', 'gammaQTraffic', 'xi'] as const) {
     const v = f[k];
     if (v === undefined) continue;
     const x = finite(v, `factors.${k}`, 'dimensionless');
@@ -178,6 +194,7 @@ export interface ResolvedProblem {
   length: number;
   actions: ResolvedAction[];
   combination: '6.10' | '6.10ab';
+  annex: 'A1' | 'A2-road';
   factors: CombinationFactors;
   deflection: DeflectionLimitSpec[];
   grid: number;
@@ -202,12 +219,15 @@ export function resolveProblem(p: BeamProblem): ResolvedProblem {
     }
   }
   const extra = (p.extraStations ?? []).map((x, i) => position(x, `extraStations[${i}]`, length));
+  const annex = p.annex ?? 'A1';
+  if (annex !== 'A1' && annex !== 'A2-road') throw new DomainError('BAD_ANNEX', "annex must be 'A1' or 'A2-road'", "use 'A1' (buildings) or 'A2-road' (road bridges)", 'annex');
   return {
     spans,
     length,
     actions: resolveActions(p.actions, length),
     combination: p.combination,
-    factors: resolveFactors(p.factors),
+    annex,
+    factors: resolveFactors(p.factors, annex),
     deflection: resolveDeflection(p.deflection),
     grid,
     extra,

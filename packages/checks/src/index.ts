@@ -106,6 +106,7 @@ export { bendingForSign, bracket, firstAbove, envelopeAt, wplDoublySymmetric, iy
 export { kSigmaInternal, kSigmaOutstand, lambdaP, rhoInternal, rhoOutstand, internalEffectiveWidths, effectiveSection, effectiveMeff } from './en1993-1-5/effective-section.js';
 export { kF, patchResistance, patchBendingInteraction, patchUtilisation, patchEta2s, patchBendingMelNeed, patchBendingFloor, type PatchType, type PatchInput, type PatchResult } from './en1993-1-5/patch-loading.js';
 export { fibLimit, kFibFor, kFibMax } from './en1993-1-5/flange-induced.js';
+export { mcrRitz, mcrConverged, mcrUniform, ritzTrial, ritzTrialMcr, MCR_FIRST_TERMS, MCR_TOLERANCE, type RitzSegment, type RitzPiece, type RitzTrial } from './en1993-1-1/mcr-ritz.js';
 export { mcr, mcrOf, chiLT, chiLTGeneral, momentFactors, c1EndMoments, kcEndMoments, ltbCurveWelded, ltbUtilisation, momentEnvelopeOf, wagnerZj, loadHeightZg, zgOf, c3EndMoments, type MomentEnvelope } from './en1993-1-1/ltb.js';
 export { fvwd, fwRd, shearFlow, pickThroat } from './en1993-1-8/weld.js';
 export { deflection, unitLoadIntegrals, minIyForDeflection, minIyForDeflectionAt, pointIyNeed, iyNeedRange, type IyNeedRange, spanAt } from './sls/deflection.js';

@@ -24,7 +24,7 @@ export function defaultOptions(L: number, overrides: Partial<CheckOptions> = {})
     fySource: 'product',
     kFib: 'auto',
     supports: [0, L],
-    restraint: { kind: 'continuous' },
+    restraint: { kind: 'at', at: [] },
     restraintBottom: { kind: 'at', at: [] },
     loadHeight: 'top-flange',
     ltbMethod: 'general',

@@ -120,6 +120,8 @@ export interface CheckOptions {
   ltbMethod: 'general' | 'rolled-equivalent';
   /** EN 1993-1-1 6.3.2.3(2) modification factor f (only with 'rolled-equivalent') */
   ltbModification: boolean;
+  /** effective length factors of each lateral-torsional buckling segment (lateral bending k, warping kw); absent: fork ends, k = kw = 1 */
+  ltbEnds?: { k: number; kw: number } | undefined;
   /** fillet throat sizes a (mm) to choose from, ascending */
   weldThroats: number[];
   /** MPa */

@@ -21,10 +21,12 @@ const udl = (w: number): Effects => ({
 
 describe('bendingChecks contract', () => {
   test('one result per id, in order; not-applicable checks say why', () => {
-    const r = bendingChecks(prepare(s, defaultOptions(L)), udl(60));
+    const r = bendingChecks(prepare(s, defaultOptions(L, { restraint: { kind: 'continuous' } })), udl(60));
     expect(r.map((c) => c.id)).toEqual(['classification', 'bending', 'flange-induced-buckling', 'patch-loading', 'patch-bending', 'lateral-torsional-buckling', 'deflection', 'web-flange-weld']);
     for (const c of r.filter((q) => !q.applies)) expect(c.reason).toBeTruthy();
     expect(r.find((c) => c.id === 'lateral-torsional-buckling')!.applies).toBe(false);
+    // the library's default restraint is at the supports only (issue 17): the check applies
+    expect(bendingChecks(prepare(s, defaultOptions(L)), udl(60)).find((c) => c.id === 'lateral-torsional-buckling')!.applies).toBe(true);
     const cls = r[0]!;
     expect(cls).toMatchObject({ utilisation: 0, passes: true, applies: true });
     expect(cls.values.sectionClass).toBe(4);

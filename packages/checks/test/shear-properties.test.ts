@@ -116,9 +116,16 @@ const girderArb = fc
     return { s, L, e };
   });
 
-/** MEd is reported with its sign; compare magnitudes when the sign of M is reversed on purpose. */
+/** MEd (and MEdVbf) are reported with their sign; compare magnitudes when the sign of M is reversed on purpose. */
 const unsign = (rs: CheckResult[]) =>
-  rs.map((r) => ({ ...r, values: { ...r.values, ...(typeof r.values['MEd'] === 'number' ? { MEd: Math.abs(r.values['MEd']) } : {}) } }));
+  rs.map((r) => ({
+    ...r,
+    values: {
+      ...r.values,
+      ...(typeof r.values['MEd'] === 'number' ? { MEd: Math.abs(r.values['MEd']) } : {}),
+      ...(typeof r.values['MEdVbf'] === 'number' ? { MEdVbf: Math.abs(r.values['MEdVbf']) } : {}),
+    },
+  }));
 
 /** Deep equality with numbers to 1e-9 relative (the plastic neutral-axis search sums in stack order). */
 function expectSame(b: unknown, a: unknown, path = ''): void {

@@ -95,10 +95,13 @@ function markSection(m: ReportMark): string {
     ...(m.utilisation ? [`${m.utilisation.of} section ${m.utilisation.passes ? 'passes' : '<span class="fail">fails</span>'}`] : []),
   ];
   const notes = (m.notes ?? []).map((s) => `<p${m.failed ? ' class="fail"' : ''}>${esc(s)}</p>`).join('');
+  const assumed = m.assumptions?.length
+    ? table(`${m.mark}: assumed (not given in the input)`, ['field', 'value', 'meaning'], m.assumptions.map((a) => [esc(a.field), esc(Array.isArray(a.value) ? a.value.join(', ') : String(a.value)), esc(a.note)]), [false, false, false])
+    : '';
   const basis = m.basis?.length ? `<ul class="basis">${m.basis.map((b) => `<li>${esc(b)}</li>`).join('')}</ul>` : '';
   const sect = m.section ? `<p class="section-words"><strong>${m.section.of === 'adopted' ? 'Adopted' : 'Lightest'} section:</strong> ${esc(m.section.words)}</p>` : '';
   const rows = m.pareto.map((p) => [String(Math.round(p.depth)), kg(p.mass), esc(p.governing ?? '')]);
-  return `<section class="mark" id="mark-${esc(m.mark)}"><h2>${esc(m.mark)}</h2><p>${facts.join(' · ')}</p>${basis}${sect}${notes}<div class="charts">${charts.join('')}</div>${rows.length ? table(`${m.mark}: Pareto points`, ['h (mm)', 'mass (kg)', 'governing'], rows, [true, true, false]) : ''}</section>`;
+  return `<section class="mark" id="mark-${esc(m.mark)}"><h2>${esc(m.mark)}</h2><p>${facts.join(' · ')}</p>${basis}${sect}${notes}<div class="charts">${charts.join('')}</div>${assumed}${rows.length ? table(`${m.mark}: Pareto points`, ['h (mm)', 'mass (kg)', 'governing'], rows, [true, true, false]) : ''}</section>`;
 }
 
 function reconciliationTable(r: ReportReconciliation): string {
@@ -199,6 +202,8 @@ export function markFromSearch(mark: string, quantity: number, search: Published
     const checks = [...worst.values()].sort((a, b) => (b.utilisation ?? 0) - (a.utilisation ?? 0)).slice(0, top);
     out.utilisation = { of: src.of, passes: src.passes, checks };
   }
+  const assumptions = search?.assumptions ?? adopted?.assumptions;
+  if (assumptions?.length) out.assumptions = assumptions;
   if (search && search.pareto.length === 0) {
     const miss = search.nearMisses[0];
     out.notes = [

@@ -67,6 +67,8 @@ export interface ReportMark {
   notes?: string[];
   /** the mark failed (no section, or it could not be run): shown as a failure, with `notes` */
   failed?: boolean;
+  /** the defaults the mark's answer applied (field, value, note) */
+  assumptions?: readonly { field: string; value: string | number | boolean | readonly number[]; note: string }[];
   /** the design basis of the mark in words (spans, actions, options) */
   basis?: string[];
   /** the section counted for the mark, in words */

@@ -6,8 +6,9 @@ export function sectionInWords(s: SectionJson): string {
   const same = s.topFlange.width === s.bottomFlange.width && s.topFlange.thickness === s.bottomFlange.thickness;
   const flanges = same ? `flanges ${fl(s.topFlange)}` : `top flange ${fl(s.topFlange)}, bottom flange ${fl(s.bottomFlange)}`;
   const st = s.stiffeners ? `stiffeners ${s.stiffeners.width} × ${s.stiffeners.thickness} at ${s.stiffeners.spacing}${s.stiffeners.sides === 1 ? ' one side' : ''}` : 'no intermediate stiffeners';
-  const grade = typeof s.grade === 'string' ? s.grade : `web ${s.grade.web}, flanges ${s.grade.flanges}`;
-  return `web ${s.web.depth} × ${s.web.thickness}, ${flanges}, ${st}, ${s.endPost} end post, ${grade ?? 'S355'}`;
+  const gs = s.grade ?? 'S355';
+  const grade = typeof gs === 'string' ? gs : `web ${gs.web}, flanges ${gs.flanges}`;
+  return `web ${s.web.depth} × ${s.web.thickness}, ${flanges}, ${st}, ${s.endPost ?? 'rigid'} end post, ${grade}`;
 }
 
 /**

@@ -57,7 +57,7 @@ test('empty inputs draw a labelled empty chart, not a crash', () => {
 test('markFromSearch: worst station per check, most utilised first', () => {
   const c = (id: string, u: number | null, applies = true) => ({ id, clause: '', applies, utilisation: u, passes: (u ?? 0) <= 1, at: 0, values: {}, units: {} });
   const point = { depth: 1500, mass: 5000, massPerMetre: 250, value: 5000, section: {} as never, governing: c('bending', 0.9), checks: [c('bending', 0.9), c('shear', 0.5), c('shear', 0.7), c('patch-loading', null, false)] };
-  const m = markFromSearch('G', 3, { status: 'exact', message: '', objective: 'mass', pareto: [point], lightest: point, nearMisses: [], stats: {} as never, caution: '', scope: '' });
+  const m = markFromSearch('G', 3, { status: 'exact', message: '', objective: 'mass', pareto: [point], lightest: point, nearMisses: [], stats: {} as never, assumptions: [], caution: '', scope: '' });
   expect(m.utilisation).toEqual({ of: 'lightest', passes: true, checks: [{ id: 'bending', clause: '', utilisation: 0.9, passes: true }, { id: 'shear', clause: '', utilisation: 0.7, passes: true }] });
   expect(m.pareto).toEqual([{ depth: 1500, mass: 5000, governing: 'bending' }]);
 });

@@ -165,7 +165,7 @@ async function runMark(defaults: Record<string, unknown>, g: ScheduleJson['girde
   try {
     const task = toSearchTask(parsed.value, deps.spaceCap ?? DEFAULT_SPACE_CAP);
     const r = await deps.search(task, signal);
-    search = publishSearch(r, task.objective, task.analysis.length);
+    search = publishSearch(r, task.objective, task.analysis.length, undefined, task.assumptions);
   } catch (e) {
     if (signal?.aborted) throw abortReason(signal);
     return failed(asError(e));
@@ -175,7 +175,7 @@ async function runMark(defaults: Record<string, unknown>, g: ScheduleJson['girde
   if (adoptedInput) {
     try {
       const job = toCheckProblem(adoptedInput);
-      adopted = { ...publishVerdict(runCheckJob(job)), selfWeight: Math.round(fromN(job.g) * 1e6) / 1e3 };
+      adopted = { ...publishVerdict(runCheckJob(job), job.assumptions), selfWeight: Math.round(fromN(job.g) * 1e6) / 1e3 };
     } catch (e) {
       const err = asError(e);
       if (err.field?.startsWith('section')) err.field = 'adopted' + err.field.slice('section'.length);

@@ -19,6 +19,7 @@ const withMiss: PublishedSearch = {
   lightest: null,
   nearMisses: [{ depth: 1040, mass: 1234.5, section, governing, failing: ['bending', 'lateral-torsional-buckling'] }],
   stats,
+  assumptions: [],
   caution: '',
   scope: '',
 };

@@ -34,8 +34,6 @@ describe('a good file', () => {
         topFlange: { width: 450, thickness: 30 },
         bottomFlange: { width: 450, thickness: 30 },
         stiffeners: { spacing: 2500, width: 120, thickness: 12, sides: 2 },
-        endPost: 'rigid',
-        grade: 'S355',
       },
       note: 'roof, line A',
     });

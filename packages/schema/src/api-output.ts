@@ -24,12 +24,21 @@ export const PublishedCheckJson = z
   })
   .meta({ id: 'CheckResult' });
 
+export const AssumptionJson = z
+  .object({
+    field: z.string().meta({ description: 'the request field the default stands for, e.g. "options.restraint"' }),
+    value: z.union([z.string(), z.number(), z.boolean(), z.array(z.number())]).meta({ description: 'the value applied' }),
+    note: z.string().meta({ description: 'what the value means for the result' }),
+  })
+  .meta({ id: 'Assumption', description: 'a value the answer used because the request did not give it' });
+
 export const PublishedVerdictJson = z
   .object({
     passes: z.boolean(),
     governing: PublishedCheckJson,
     checks: z.array(PublishedCheckJson),
     selfWeight: z.number().optional().meta({ description: 'self-weight added to the actions, kN/m (problem form only)' }),
+    assumptions: z.array(AssumptionJson).optional().meta({ description: 'every default applied to the request' }),
     caution: z.string().optional(),
     scope: z.string().optional(),
   })
@@ -77,6 +86,7 @@ export const PublishedSearchJson = z
     lightest: PublishedPointJson.nullable(),
     nearMisses: z.array(PublishedMissJson),
     stats: SearchStatsJson,
+    assumptions: z.array(AssumptionJson).meta({ description: 'every default applied to the request' }),
     caution: z.string(),
     scope: z.string(),
   })

@@ -28,20 +28,33 @@ export const RestraintJson = z.union([
   }),
 ]);
 
+/**
+ * Every field is optional: a field left out takes the default named in its description, applied
+ * by resolveOptions (convert.ts), which lists each default it applied as an assumption of the
+ * answer. No default removes or weakens a check: a flange whose restraint is not given is
+ * restrained at the supports only.
+ */
 export const CheckOptionsJson = z
   .strictObject({
-    factors: FactorsJson.default('buildings'),
-    eta: positive('eta', 1.2).refine((v) => v <= 1.2, { message: 'eta is at most 1.2 (EN 1993-1-5 5.1(2))' }).default(1.2),
-    fySource: z.enum(['product', 'table3.1']).default('product').meta({ description: 'fy by the product standard bands (default) or EN 1993-1-1 Table 3.1' }),
-    kFib: z.union([z.literal('auto'), z.literal(0.3), z.literal(0.4), z.literal(0.55)]).default('auto').meta({ description: 'EN 1993-1-5 8(1) k' }),
-    restraint: RestraintJson.default('continuous').meta({ description: 'lateral restraint of the top flange (in compression under sagging): continuous, supports, equal spacing or positions (mm)' }),
-    bottomRestraint: RestraintJson.default('supports').meta({ description: 'lateral restraint of the bottom flange (in compression under hogging); default: at the supports only' }),
-    loadHeight: z.enum(['top-flange', 'shear-centre', 'bottom-flange']).default('top-flange'),
-    ltbMethod: z.enum(['general', 'rolled-equivalent']).default('general').meta({ description: 'EN 1993-1-1 6.3.2.2 or 6.3.2.3' }),
-    ltbModification: z.boolean().default(false).meta({ description: 'EN 1993-1-1 6.3.2.3(2) factor f' }),
-    weldThroats: z.array(positive('weld throat', 50)).min(1).max(20).optional().meta({ description: 'fillet throat sizes a to choose from, mm' }),
-    supportBearingLength: positive('supportBearingLength', LIMITS.bearingLengthMm).default(100).meta({ description: 'stiff bearing length at supports, mm' }),
-    snipe: bounded('snipe', 'mm', 0, 500).default(20).meta({ description: 'corner snipe of stiffeners, mm' }),
+    factors: FactorsJson.optional().meta({ description: 'partial factors γM; default "buildings" (γM0 = γM1 = 1.0, γM2 = 1.25), not the bridge set' }),
+    eta: positive('eta', 1.2).refine((v) => v <= 1.2, { message: 'eta is at most 1.2 (EN 1993-1-5 5.1(2))' }).optional().meta({ description: 'EN 1993-1-5 5.1(2) η; default 1.2' }),
+    fySource: z.enum(['product', 'table3.1']).optional().meta({ description: 'fy by the product standard bands or EN 1993-1-1 Table 3.1; default product' }),
+    kFib: z.union([z.literal('auto'), z.literal(0.3), z.literal(0.4), z.literal(0.55)]).optional().meta({ description: 'EN 1993-1-5 8(1) k; default auto' }),
+    restraint: RestraintJson.optional().meta({ description: 'lateral restraint of the top flange (in compression under sagging): continuous, supports, equal spacing or positions (mm); default: at the supports only' }),
+    bottomRestraint: RestraintJson.optional().meta({ description: 'lateral restraint of the bottom flange (in compression under hogging); default: at the supports only' }),
+    loadHeight: z.enum(['top-flange', 'shear-centre', 'bottom-flange']).optional().meta({ description: 'where gravity loads act, for lateral-torsional buckling; default top-flange (destabilising)' }),
+    ltbMethod: z.enum(['general', 'rolled-equivalent']).optional().meta({ description: 'EN 1993-1-1 6.3.2.2 or 6.3.2.3; default general' }),
+    ltbModification: z.boolean().optional().meta({ description: 'EN 1993-1-1 6.3.2.3(2) factor f (kc = 1/√C1, C1 = Mcr/Mcr of uniform moment); default false' }),
+    ltbEnds: z
+      .strictObject({
+        k: z.number().min(0.5).max(1).meta({ description: 'effective length factor for lateral bending, -' }),
+        kw: z.number().min(0.5).max(1).meta({ description: 'effective length factor for warping, -' }),
+      })
+      .optional()
+      .meta({ description: 'end conditions of each lateral-torsional buckling segment; default fork ends, k = kw = 1' }),
+    weldThroats: z.array(positive('weld throat', 50)).min(1).max(20).optional().meta({ description: 'fillet throat sizes a to choose from, mm; default the catalogue range' }),
+    supportBearingLength: positive('supportBearingLength', LIMITS.bearingLengthMm).optional().meta({ description: 'stiff bearing length at supports, mm; default 100' }),
+    snipe: bounded('snipe', 'mm', 0, 500).optional().meta({ description: 'corner snipe of stiffeners, mm; default 20' }),
   })
   .meta({ id: 'CheckOptions' });
 

@@ -1,5 +1,6 @@
 import { CHECKS, type CheckId, type CheckResult, type GirderVerdict, type ReportedUnit } from '@platesmith/checks';
 import { convertValue, type ValueUnit } from './units.js';
+import type { Assumption } from './convert.js';
 
 /** The published unit of each unit the check library reports in (the registry's `values`). */
 const PUBLIC_UNIT: Record<Exclude<ReportedUnit, 'text'>, ValueUnit> = {
@@ -108,8 +109,10 @@ export interface PublishedVerdict {
   passes: boolean;
   governing: PublishedCheck;
   checks: PublishedCheck[];
+  /** every default applied to the request (absent when the caller had none to list) */
+  assumptions?: Assumption[];
 }
 
-export function publishVerdict(v: GirderVerdict): PublishedVerdict {
-  return { passes: v.passes, governing: publishCheck(v.governing), checks: v.checks.map(publishCheck) };
+export function publishVerdict(v: GirderVerdict, assumptions?: readonly Assumption[]): PublishedVerdict {
+  return { passes: v.passes, governing: publishCheck(v.governing), checks: v.checks.map(publishCheck), ...(assumptions ? { assumptions: [...assumptions] } : {}) };
 }

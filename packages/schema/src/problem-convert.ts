@@ -4,7 +4,7 @@ import { checkGirder, girderMass, type CheckOptions, type Effects, type GirderVe
 import { DEFAULT_COST, defaultSpace, spaceSize, stiffenerStations, type CostModel, type SearchTask, type SpaceSpec } from '@platesmith/search';
 import { designEffects } from '@platesmith/actions';
 import { z } from 'zod';
-import { assertStockThickness, toCheckOptions, toSection } from './convert.js';
+import { assertStockThickness, resolveOptions, sectionAssumptions, toSection, type Assumption } from './convert.js';
 import { ProblemFields, problemShape, type ProblemJson } from './problem.js';
 import { SectionJson } from './section.js';
 import { CostJson, SpaceJson, type SpaceJson as SpaceJsonT } from './space.js';
@@ -50,7 +50,7 @@ export function toAnalysis(p: ProblemJson, extraStations: number[] = []): Analys
   }
   const actions: ActionSpec[] = (p.actions ?? []).map((a) => {
     const out: ActionSpec = { kind: a.kind, load: a.load, value: a.load === 'point' ? toN(a.value) : a.value };
-    for (const k of ['at', 'from', 'to', 'ss', 'psi0', 'psi1', 'psi2', 'category', 'name'] as const) {
+    for (const k of ['at', 'from', 'to', 'ss', 'psi0', 'psi1', 'psi2', 'category', 'group', 'name'] as const) {
       if (a[k] !== undefined) (out as unknown as Record<string, unknown>)[k] = a[k];
     }
     return out;
@@ -60,7 +60,8 @@ export function toAnalysis(p: ProblemJson, extraStations: number[] = []): Analys
   return analyse({
     spans: p.spans ?? [],
     actions,
-    combination: p.combination,
+    combination: p.combination ?? '6.10',
+    ...(p.annex ? { annex: p.annex } : {}),
     ...(p.factors ? { factors: p.factors } : {}),
     ...(p.deflection ? { deflection: p.deflection } : {}),
     ...(p.gridDivisions ? { gridDivisions: p.gridDivisions } : {}),
@@ -75,6 +76,31 @@ export function selfWeight(s: Section, supports: readonly number[]): number {
   return ((m.web + m.topFlange + m.bottomFlange + m.stiffeners) * G_ACC) / L;
 }
 
+/**
+ * The defaults a problem took (combination rule, load factors, deflection limits, analysis grid),
+ * as assumptions of the answer. With an envelope the user's own analysis stands: none of these.
+ */
+export function problemAssumptions(p: ProblemJson): Assumption[] {
+  if (p.envelope) return [{ field: 'envelope', value: 'given', note: 'design effects taken from your own global analysis as given (no combination, no self-weight added)' }];
+  const out: Assumption[] = [];
+  const a2 = p.annex === 'A2-road';
+  if (p.annex === undefined) out.push({ field: 'annex', value: 'A1', note: 'EN 1990 Annex A1 (buildings); give "A2-road" for a road bridge (Table A2.4(B) factors, traffic groups)' });
+  if (p.combination === undefined) out.push({ field: 'combination', value: '6.10', note: `EN 1990 eq. 6.10, each variable action${a2 ? ' (or traffic group)' : ''} leading in turn; 6.10ab for the worse of 6.10a and 6.10b` });
+  const f = p.factors ?? {};
+  const rec = a2 ? { gammaGsup: 1.35, gammaGinf: 1.0, gammaQ: 1.5, gammaQTraffic: 1.35, xi: 0.85 } : { gammaGsup: 1.35, gammaGinf: 1.0, gammaQ: 1.5, xi: 0.85 };
+  const missing = (Object.keys(rec) as (keyof typeof rec)[]).filter((k) => (f as Record<string, unknown>)[k] === undefined);
+  if (missing.length > 0) out.push({ field: 'factors', value: a2 ? 'A2.4(B)' : 'A1.2(B)', note: `EN 1990 Table ${a2 ? 'A2.4(B)' : 'A1.2(B)'} recommended ${missing.map((k) => `${k} = ${(rec as Record<string, number>)[k]}`).join(', ')} (${a2 ? 'road bridges' : 'buildings'})` });
+  if (p.deflection === undefined) out.push({ field: 'deflection', value: 'L/250 total, L/360 variable', note: 'characteristic SLS combination (common practice, no source)' });
+  if (p.gridDivisions === undefined) out.push({ field: 'gridDivisions', value: 40, note: 'analysis stations per span (plus supports, loads, stiffeners and restraints)' });
+  for (const [i, a] of (p.actions ?? []).entries()) {
+    if (a.kind === 'variable' && a.category === undefined && (a.psi0 === undefined || a.psi1 === undefined || a.psi2 === undefined)) {
+      out.push({ field: `actions[${i}].psi`, value: 'category A', note: 'ψ factors not all given: the missing ones from EN 1990 Table A1.1 category A' });
+    }
+    if (a.load === 'point' && a.ss === undefined) out.push({ field: `actions[${i}].ss`, value: 100, note: 'stiff bearing length of the point load, mm' });
+  }
+  return out;
+}
+
 export interface CheckJob {
   section: Section;
   effects: Effects;
@@ -82,6 +108,8 @@ export interface CheckJob {
   analysis: Analysis;
   /** self-weight added, N/mm */
   g: number;
+  /** every default applied to the request */
+  assumptions: Assumption[];
 }
 
 function restraintStations(o: CheckOptions): number[] {
@@ -102,7 +130,8 @@ export function toCheckProblem(j: CheckProblemInput): CheckJob {
  */
 export function checkProblemsFor(j: Omit<CheckProblemInput, 'section'>): (s: SectionJson) => CheckJob {
   const supports = supportsOf(j);
-  const options = toCheckOptions(j.options, supports);
+  const { options, assumptions } = resolveOptions(j.options, supports);
+  const general = [...problemAssumptions(j), ...assumptions];
   const restraint = restraintStations(options);
   const analyses = new Map<number, Analysis>();
   return (s) => {
@@ -116,7 +145,7 @@ export function checkProblemsFor(j: Omit<CheckProblemInput, 'section'>): (s: Sec
       analyses.set(a, analysis);
     }
     const g = analysis.kind === 'envelope' ? 0 : selfWeight(section, supports);
-    return { section, effects: designEffects(analysis, g), options, analysis, g };
+    return { section, effects: designEffects(analysis, g), options, analysis, g, assumptions: [...general, ...sectionAssumptions(s)] };
   };
 }
 
@@ -213,14 +242,14 @@ export function toCost(j: z.output<typeof CostJson> | undefined): CostModel {
 export const DEFAULT_SPACE_CAP = 1e12;
 
 /** Public search input → plain task for the workers. The space's size is checked against the cap first. */
-export function toSearchTask(j: SearchInput, cap = DEFAULT_SPACE_CAP): SearchTask {
+export function toSearchTask(j: SearchInput, cap = DEFAULT_SPACE_CAP): SearchTask & { assumptions: Assumption[] } {
   const space = toSpace(j.space);
   const size = spaceSize(space);
   if (size > cap) {
     throw new DomainError('SPACE_TOO_LARGE', `the space holds ${size.toExponential(3)} candidates, over the cap of ${cap.toExponential(0)}`, 'narrow the grids (fewer widths, thicknesses or panel counts) or ask the operator to raise the cap', 'space', { size, cap });
   }
   const supports = supportsOf(j);
-  const options = toCheckOptions(j.options, supports);
+  const { options, assumptions } = resolveOptions(j.options, supports);
   const spans = spansOf(supports);
   // the stations at every layout's stiffeners, counted before they are made
   const Lmax = Math.max(0, ...spans);
@@ -230,5 +259,9 @@ export function toSearchTask(j: SearchInput, cap = DEFAULT_SPACE_CAP): SearchTas
     throw new DomainError('TOO_MANY_STATIONS', `space.panels gives ${count} stiffener stations over the spans, over the limit of ${LIMITS.stiffenerStations}`, 'ask for fewer or smaller panel counts (e.g. { "min": 0, "max": 16 })', 'space.panels', { count, limit: LIMITS.stiffenerStations });
   }
   const analysis = toAnalysis(j, [...stiffenerStations(spans, space.panels), ...restraintStations(options)]);
-  return { space, options, analysis, objective: j.objective, cost: toCost(j.cost) };
+  const spaceDefaults = Object.keys(SpaceJson.shape).filter((k) => (j.space as Record<string, unknown>)[k] === undefined && !['minDepth', 'maxDepth'].includes(k));
+  const all = [...problemAssumptions(j), ...assumptions];
+  if (spaceDefaults.length > 0) all.push({ field: 'space', value: spaceDefaults.join(', '), note: 'these fields of the space take the catalogue defaults (see the API schema)' });
+  // the search sizes bearing stiffeners from the flats and reports both end-post types only when asked
+  return { space, options, analysis, objective: j.objective, cost: toCost(j.cost), assumptions: all };
 }

@@ -21,9 +21,10 @@ export const ActionJson = z
     psi1: psi('psi1').optional(),
     psi2: psi('psi2').optional(),
     category: z
-      .enum(['A', 'B', 'C', 'D', 'E', 'F', 'G', 'H', 'snow', 'snow-high-altitude', 'wind', 'temperature'])
+      .enum(['A', 'B', 'C', 'D', 'E', 'F', 'G', 'H', 'snow', 'snow-high-altitude', 'wind', 'temperature', 'road-TS', 'road-UDL', 'road-footway', 'road-single-axle', 'bridge-wind', 'bridge-temperature'])
       .optional()
-      .meta({ description: 'EN 1990 Table A1.1 category giving ψ0, ψ1, ψ2' }),
+      .meta({ description: 'EN 1990 Table A1.1 category giving ψ0, ψ1, ψ2; or Table A2.1 (road bridges): road-TS, road-UDL, road-footway, road-single-axle, bridge-wind, bridge-temperature' }),
+    group: z.string().min(1).max(40).optional().meta({ description: "traffic group (EN 1991-2 4.5, e.g. 'gr1a'): variable actions of one group lead together as one action" }),
     name: z.string().max(80).optional(),
   })
   .meta({ id: 'Action', description: 'a characteristic action on the girder' });
@@ -40,6 +41,7 @@ export const FactorsGJson = z
     gammaGsup: factor('gammaGsup').optional(),
     gammaGinf: factor('gammaGinf').optional(),
     gammaQ: factor('gammaQ').optional(),
+    gammaQTraffic: factor('gammaQTraffic').optional().meta({ description: 'γQ of road traffic under annex A2-road (recommended 1.35)' }),
     xi: num('xi', '-', 0, 1).optional(),
   })
   .meta({ description: 'EN 1990 Table A1.2(B) factors (recommended 1.35, 1.00, 1.50, ξ 0.85)' });
@@ -53,7 +55,8 @@ export const BeamProblemFields = {
     .max(LIMITS.spans, { message: `at most ${LIMITS.spans} spans` })
     .meta({ description: `span lengths, mm (24000 for 24 m), each at most ${LIMITS.spanMm}` }),
   actions: z.array(ActionJson).max(LIMITS.actions, { message: `at most ${LIMITS.actions} actions` }),
-  combination: z.enum(['6.10', '6.10ab']).default('6.10').meta({ description: 'EN 1990 eq. 6.10, or the worse of 6.10a and 6.10b' }),
+  combination: z.enum(['6.10', '6.10ab']).optional().meta({ description: 'EN 1990 eq. 6.10, or the worse of 6.10a and 6.10b; default 6.10' }),
+  annex: z.enum(['A1', 'A2-road']).optional().meta({ description: 'EN 1990 Annex A1 (buildings, default) or A2 for road bridges: Table A2.4(B) factors (γQ 1.35 road traffic, 1.50 others), traffic groups' }),
   factors: FactorsGJson.optional(),
   deflection: z.array(DeflectionLimitJson).max(10).optional().meta({ description: 'default: total span/250 and variable span/360, characteristic' }),
   gridDivisions: z.number().int().min(4).max(400).optional().meta({ description: 'analysis stations per span (default 40)' }),
@@ -87,6 +90,7 @@ export const ProblemFields = {
   spans: BeamProblemFields.spans.optional(),
   actions: BeamProblemFields.actions.optional(),
   combination: BeamProblemFields.combination,
+  annex: BeamProblemFields.annex,
   factors: BeamProblemFields.factors,
   deflection: BeamProblemFields.deflection,
   gridDivisions: BeamProblemFields.gridDivisions,

@@ -191,7 +191,7 @@ export function inputHash(input: unknown): string {
 
 const r = roundPublished;
 
-function restraintText(j: CheckOptionsJson['restraint']): string {
+function restraintText(j: CheckOptionsJson['restraint'] = 'supports'): string {
   if (j === 'continuous') return 'continuous (no lateral-torsional buckling for the sign that compresses this flange)';
   if (j === 'supports') return 'at the supports only';
   if ('spacing' in j) return `at ${j.spacing} mm spacing from the left end`;
@@ -215,7 +215,7 @@ function defaultsTaken(rawOptions: unknown, parsed: CheckOptionsJson, o: CheckOp
     kFib: () => 'k of EN 1993-1-5 8(1) from the moment resistance used (0.4 plastic, 0.55 elastic)',
     restraint: () => `top flange restraint: ${restraintText(parsed.restraint)}`,
     bottomRestraint: () => `bottom flange restraint: ${restraintText(parsed.bottomRestraint)}`,
-    loadHeight: () => `load height: ${LOAD_HEIGHT[parsed.loadHeight] ?? parsed.loadHeight}`,
+    loadHeight: () => `load height: ${LOAD_HEIGHT[parsed.loadHeight ?? 'top-flange'] ?? parsed.loadHeight}`,
     ltbMethod: () => 'lateral-torsional buckling by EN 1993-1-1 6.3.2.2 (general case)',
     ltbModification: () => 'no modification factor f (EN 1993-1-1 6.3.2.3(2))',
     weldThroats: () => `fillet weld throats chosen from ${o.weldThroats.join(', ')} mm`,
@@ -430,7 +430,7 @@ export function publishRecord(input: CheckEffectsInput | CheckProblemInput, raw:
       eta: options.eta,
       restraintTop: restraintText(parsedOptions.restraint),
       restraintBottom: restraintText(parsedOptions.bottomRestraint),
-      loadHeight: LOAD_HEIGHT[parsedOptions.loadHeight] ?? parsedOptions.loadHeight,
+      loadHeight: LOAD_HEIGHT[parsedOptions.loadHeight ?? 'top-flange'] ?? parsedOptions.loadHeight ?? 'top-flange',
       ltbMethod: options.ltbMethod === 'general' ? 'EN 1993-1-1 6.3.2.2 (general case)' : `EN 1993-1-1 6.3.2.3 (rolled sections or equivalent welded)${options.ltbModification ? ' with f' : ''}`,
       grades,
       fySource: fyName,

@@ -1,5 +1,5 @@
 import type { Evaluated, SearchResult, SearchStatus } from '@platesmith/search';
-import { fromSection } from './convert.js';
+import { fromSection, type Assumption } from './convert.js';
 import { publishCheck, type PublishedCheck } from './output.js';
 import type { SectionJson } from './section.js';
 import { CAUTION, SCOPE } from './caution.js';
@@ -41,6 +41,8 @@ export interface PublishedSearch {
   lightest: PublishedPoint | null;
   nearMisses: PublishedMiss[];
   stats: SearchResult['stats'];
+  /** every default applied to the request */
+  assumptions: Assumption[];
   caution: string;
   scope: string;
 }
@@ -68,7 +70,7 @@ export function searchMessage(r: Pick<SearchResult, 'status' | 'pareto' | 'stats
   return `aborted ${why}: each of the ${n} point(s) found passes every check, but the set may be incomplete (a lighter section may exist at some depth); narrow the space or raise the budget for the exact set`;
 }
 
-export function publishSearch(r: SearchResult, objective: 'mass' | 'cost', length: number, abort?: SearchAbort): PublishedSearch {
+export function publishSearch(r: SearchResult, objective: 'mass' | 'cost', length: number, abort?: SearchAbort, assumptions: readonly Assumption[] = []): PublishedSearch {
   return {
     status: r.status,
     message: searchMessage(r, abort),
@@ -84,6 +86,7 @@ export function publishSearch(r: SearchResult, objective: 'mass' | 'cost', lengt
       failing: e.verdict.checks.filter((c) => !c.passes).map((c) => c.id),
     })),
     stats: { ...r.stats, wallMs: Math.round(r.stats.wallMs * 10) / 10 },
+    assumptions: [...assumptions],
     caution: CAUTION,
     scope: SCOPE,
   };

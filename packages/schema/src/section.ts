@@ -60,10 +60,10 @@ export const SectionJson = z
     web: Web,
     topFlange: Plate('top flange'),
     bottomFlange: Plate('bottom flange'),
-    stiffeners: Stiffeners.nullable().default(null),
-    endPost: z.enum(['rigid', 'non-rigid']).default('rigid').meta({ description: 'EN 1993-1-5 5.3 / 9.3.1 end-post type' }),
+    stiffeners: Stiffeners.nullable().optional().meta({ description: 'intermediate transverse stiffeners; default none (null)' }),
+    endPost: z.enum(['rigid', 'non-rigid']).optional().meta({ description: 'EN 1993-1-5 5.3 / 9.3.1 end-post type; default rigid' }),
     bearing: Bearing.optional(),
-    grade: GradeSpec.default('S355'),
+    grade: GradeSpec.optional().meta({ description: 'default S355' }),
   })
   .meta({ id: 'Section', description: 'welded I-girder section; all dimensions mm' });
 

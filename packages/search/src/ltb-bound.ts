@@ -7,8 +7,7 @@ import {
   zgOf,
   webClass2Limit,
   webClass3Limit,
-  c1EndMoments,
-  c3EndMoments,
+  ritzTrial,
   chiLT,
   chiValue,
   ltbCurveWelded,
@@ -31,14 +30,13 @@ import type { MomentRange } from './load.js';
  * - MEd of a segment [max |M| over the segment's points]: at least the largest lower end of the
  *   envelope bounds over the self-weight range (MomentRange), interpolated at the segment ends as
  *   the check interpolates the envelope (a positive combination, so bounds carry over).
- * - C1, C2, C3 [momentFactors of the envelope diagram]: the shapes the diagram can take anywhere
- *   in the range are a subset of {end moments, uniform load, central point load, other}; a shape
- *   is left out only when some station rules it out for every diagram within the bounds (its
- *   deviation from the chord, its end moments or its fit exceed the check's tolerances beyond the
- *   band). For end moments ψ ≥ ψlo (both ends of one sign), C1 ≤ C1(ψlo) and C3 ≥ C3(ψlo) — the
- *   tabulated C1 falls and C3 rises as ψ goes from 0 to 1. Mcr is taken as the largest over the
- *   shapes left: Mcr grows with C1 and falls as C2·zg − C3·zj grows (so C3 is taken at whichever
- *   end of its range lowers that term).
+ * - Mcr [the Ritz value of the segment's diagram, converged in the number of terms, mcrConverged]:
+ *   at most the Ritz value in a two-amplitude subspace of the check's first basis (ritzTrial: fixed
+ *   shapes U, Φ of the band's middle diagram), closed form per section (ritzTrialMcr); that value
+ *   falls as c² = (∫ m U''Φ)² grows and rises with h = 2zj ∫ m Φ'² (the destabilising load-height
+ *   term left out, which can only raise it), both linear in the diagram's point values, so the
+ *   least c² and the largest h over the band of diagrams (every point between its bounds) and the
+ *   band's largest Mmax bound Mcr = λ·Mmax for every diagram of the range at once.
  * - Section properties (Iz, It, Iw, Mpl, zj, zg, h/b) are those of each plate of the set, by the
  *   closed forms grossProps uses (to round-off; the search's margin on the bound is 1e-6).
  * - Wy fy [Mpl, Mel or Meff by the class]: at most Mpl; where the section is surely Class 3
@@ -86,14 +84,6 @@ export interface LtbSetBound {
   bounds(fixedTop: boolean): boolean;
 }
 
-interface Shape {
-  C1: number;
-  C2: number;
-  /** for end moments: the range of C3 (C3lo ≤ C3 ≤ 1) */
-  C3: number;
-  C3lo: number;
-}
-
 /** The plates of a section as the bound reads them (its grades and fy come from `material` of a full section, or are given). */
 export type Plates3 = Pick<Section, 'hw' | 'tw' | 'top' | 'bot'>;
 
@@ -108,26 +98,31 @@ interface Segment {
   top: boolean;
   L: number;
   MEdLo: number;
-  shapes: Shape[];
+  /** the band's largest Mmax, least c², least and largest w (ritzTrial) and the trial's stiffness sums */
+  MmaxHi: number;
+  c2Lo: number;
+  wLo: number;
+  wHi: number;
+  au: number;
+  bt: number;
+  bw: number;
 }
 
 /**
  * The segments of `segments`, most loaded first, packed in one array of numbers (read once per
- * member: one allocation, one stretch of memory, where an object per segment and shape was a
- * cache miss each): [count, then per segment: 1 if the top flange is in compression else 0, L,
- * MEd,lo, π²E/L², L²G/(π²E), number of shapes, then C1, C2, C3, C3lo per shape].
+ * member: one allocation, one stretch of memory, where an object per segment was a cache miss
+ * each): [count, then per segment SEG numbers: 1 if the top flange is in compression else 0,
+ * MEd,lo, Mmax,hi, c²lo, wlo, whi, E·au/k², G·bt, E·bw/kw²].
  */
 export type Segments = readonly number[] & { readonly __segments: true };
-
-const PI2 = Math.PI * Math.PI;
-const TRANSVERSE: Shape = { C1: 1.0, C2: 0.63, C3: 1.0, C3lo: 1.0 };
-const UDL: Shape = { C1: 1.127, C2: 0.454, C3: 0.525, C3lo: 0.525 };
-const POINT: Shape = { C1: 1.348, C2: 0.63, C3: 1.73, C3lo: 1.73 };
+const SEG = 9;
 
 export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
   if (o.ltbMethod === 'rolled-equivalent' && o.ltbModification) return undefined;
   const rolled = o.ltbMethod === 'rolled-equivalent';
   const lambda0 = rolled ? 0.4 : 0.2;
+  const k = o.ltbEnds?.k ?? 1;
+  const kw = o.ltbEnds?.kw ?? 1;
   const sup = o.supports;
   const xStart = sup[0]!;
   const xEnd = sup[sup.length - 1]!;
@@ -166,17 +161,13 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
         for (let i = 0; i + 1 < cuts.length; i++) {
           const s = segmentBound(range.xs, lo, hi, cuts[i]!, cuts[i + 1]!);
           // the check skips a segment (or a sign) whose moment is at most its round-off threshold
-          if (s.MEdLo > tiny * (1 + 1e-9)) segs.push({ top, L: cuts[i + 1]! - cuts[i]!, MEdLo: s.MEdLo, shapes: s.shapes });
+          if (s.MEdLo > tiny * (1 + 1e-9)) segs.push({ top, L: cuts[i + 1]! - cuts[i]!, ...s });
         }
       }
       // most loaded first (the order overPlates tries them in; the bound does not depend on it)
       segs.sort((x, y) => y.MEdLo - x.MEdLo);
       const packed: number[] = [segs.length];
-      for (const sg of segs) {
-        const L = sg.L;
-        packed.push(sg.top ? 1 : 0, L, sg.MEdLo, (PI2 * o.E) / (L * L), (L * L * o.G) / (PI2 * o.E), sg.shapes.length);
-        for (const sh of sg.shapes) packed.push(sh.C1, sh.C2, sh.C3, sh.C3lo);
-      }
+      for (const sg of segs) packed.push(sg.top ? 1 : 0, sg.MEdLo, sg.MmaxHi, sg.c2Lo, sg.wLo, sg.wHi, (o.E * sg.au) / (k * k), o.G * sg.bt, (o.E * sg.bw) / (kw * kw));
       return packed as unknown as Segments;
     },
     over(segs, widest, fixedTop, others, stopAt) {
@@ -211,7 +202,7 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
     const limit = stopAt ?? Infinity;
     let hasTop = false;
     let hasBot = false;
-    for (let i = 0, q = 1; i < segs[0]!; i++, q += 6 + 4 * segs[q + 5]!) {
+    for (let i = 0, q = 1; i < segs[0]!; i++, q += SEG) {
       if (segs[q] === 1) hasTop = true;
       else hasBot = true;
     }
@@ -248,27 +239,20 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
   }
 
   /** One member's bound: the largest over the segments (most loaded first) of MEd,lo·γM1 over its largest Mb,Rd there; stops above `limit`. NaN when some Mb,Rd is not finite. */
-  function memberBound(segs: Segments, p: StackProps, zg: number, curve: BucklingCurve, zjTop: number, zjBot: number, MkTop: number, MkBot: number, limit: number): number {
+  function memberBound(segs: Segments, p: StackProps, _zg: number, curve: BucklingCurve, zjTop: number, zjBot: number, MkTop: number, MkBot: number, limit: number): number {
     let uk = 0;
-    // mcrOf (k = kw = 1) with the member's terms once: C1·π²E·Iz/L²·(√(Iw/Iz + L²G·It/(π²E·Iz) + a²) − a)
-    const rw = p.Iw / p.Iz;
-    const rt = p.It / p.Iz;
     const n = segs[0]!;
-    for (let i = 0, q = 1; i < n && !(uk > limit); i++) {
+    for (let i = 0, q = 1; i < n && !(uk > limit); i++, q += SEG) {
       const top = segs[q] === 1;
-      const MEdLo = segs[q + 2]!;
+      const MEdLo = segs[q + 1]!;
       const zj = top ? zjTop : zjBot;
-      const t = rw + segs[q + 4]! * rt;
-      const base = segs[q + 3]! * p.Iz;
-      const ns = segs[q + 5]!;
-      q += 6;
-      let McrMax = 0;
-      for (let j = 0; j < ns; j++, q += 4) {
-        // the C3 of its range that makes C2·zg − C3·zj least
-        const a = segs[q + 1]! * zg - (zj > 0 ? segs[q + 2]! : segs[q + 3]!) * zj;
-        // NaN carries through (an Mb,Rd that is not finite makes the bound 0)
-        McrMax = Math.max(McrMax, segs[q]! * base * (Math.sqrt(t + a * a) - a));
-      }
+      const c2 = segs[q + 3]!;
+      // ritzTrialMcr with the segment's sums hoisted: λ = [ku h + √(ku²h² + 4c² ku kφ)]/(2c²), h = 2zj·w
+      const h = 2 * zj * (zj > 0 ? segs[q + 5]! : segs[q + 4]!);
+      const ku = segs[q + 6]! * p.Iz;
+      const kp = segs[q + 7]! * p.It + segs[q + 8]! * p.Iw;
+      // NaN carries through (an Mb,Rd that is not finite makes the bound 0); a hair above the closed form's round-off
+      const McrMax = c2 > 0 ? ((segs[q + 2]! * (ku * h + Math.sqrt(ku * ku * h * h + 4 * c2 * ku * kp))) / (2 * c2)) * (1 + 1e-9) : Infinity;
       const Mk = top ? MkTop : MkBot;
       const Mb = MEdLo / McrMax <= plateau ? Mk : reduced(Mk, McrMax, curve);
       if (!(Mb < Infinity)) return Number.NaN;
@@ -429,19 +413,24 @@ function at(xs: Float64Array, v: Float64Array, x: number): number {
   return t === 0 ? v[lo]! : v[lo]! + t * (v[hi]! - v[lo]!);
 }
 
-/** Bounds of one segment's moment and the moment shapes its diagram can take (magnitudes, one sign). */
-function segmentBound(xs: Float64Array, lo: Float64Array, hi: Float64Array, x0: number, x1: number): { MEdLo: number; shapes: Shape[] } {
-  const px: number[] = [x0];
+/**
+ * Bounds of one segment's moment (magnitudes, one sign) over the band: MEd,lo, Mmax,hi, and the
+ * least c² and the range of w of ritzTrial's shapes, each point of the diagram anywhere in its band
+ * (the check interpolates the envelope at the segment's ends as here: a positive combination, so
+ * the bounds carry over).
+ */
+function segmentBound(xs: Float64Array, lo: Float64Array, hi: Float64Array, x0: number, x1: number): Omit<Segment, 'top' | 'L'> {
+  const px: number[] = [0];
   const pl: number[] = [at(xs, lo, x0)];
   const ph: number[] = [at(xs, hi, x0)];
-  // the stations strictly inside
+  // the stations strictly inside (x from the segment's start, as the check passes them)
   for (let i = firstAbove(xs, x0); i < xs.length && xs[i]! < x1; i++) {
-    px.push(xs[i]!);
+    px.push(xs[i]! - x0);
     pl.push(lo[i]!);
     ph.push(hi[i]!);
   }
   if (x1 !== x0) {
-    px.push(x1);
+    px.push(x1 - x0);
     pl.push(at(xs, lo, x1));
     ph.push(at(xs, hi, x1));
   }
@@ -452,37 +441,31 @@ function segmentBound(xs: Float64Array, lo: Float64Array, hi: Float64Array, x0: 
     MEdLo = Math.max(MEdLo, pl[i]!);
     MmaxHi = Math.max(MmaxHi, ph[i]!);
   }
-  const band = 1e-9 * MmaxHi;
-  const shapes: Shape[] = [TRANSVERSE];
-  // end moments: unless some station lies off every possible chord by more than 1 % of the largest possible Mmax
-  let linear = true;
-  for (let i = 1; i + 1 < n && linear; i++) {
-    const t = x1 > x0 ? (px[i]! - x0) / (x1 - x0) : 0;
-    const chordHi = ph[0]! + t * (ph[n - 1]! - ph[0]!);
-    const chordLo = pl[0]! + t * (pl[n - 1]! - pl[0]!);
-    if (pl[i]! - chordHi > 0.01 * MmaxHi + band || chordLo - ph[i]! > 0.01 * MmaxHi + band) linear = false;
+  const L = x1 - x0;
+  if (!(L > 0) || n < 2) return { MEdLo, MmaxHi, c2Lo: 0, wLo: 0, wHi: 0, au: 0, bt: 0, bw: 0 };
+  const mid = pl.map((v, i) => 0.5 * (v + ph[i]!));
+  const t = ritzTrial(px, mid, n, L);
+  let cMin = 0;
+  let cMax = 0;
+  let wLo = 0;
+  let wHi = 0;
+  for (let i = 0; i < n; i++) {
+    const a = t.gc[i]! * pl[i]!;
+    const b = t.gc[i]! * ph[i]!;
+    cMin += Math.min(a, b);
+    cMax += Math.max(a, b);
+    const c = t.gw[i]! * pl[i]!;
+    const d = t.gw[i]! * ph[i]!;
+    wLo += Math.min(c, d);
+    wHi += Math.max(c, d);
   }
-  if (linear) {
-    const big = Math.max(ph[0]!, ph[n - 1]!);
-    const psiLo = big > 0 ? Math.min(1, Math.min(pl[0]!, pl[n - 1]!) / big) : 1;
-    shapes.push({ C1: c1EndMoments(psiLo), C2: 0, C3: 1, C3lo: c3EndMoments(psiLo) });
-  }
-  // uniform load / central point load: ends within 5 % and every point within 3 % of the shape
-  const endsSmall = pl[0]! <= 0.05 * MmaxHi + band && pl[n - 1]! <= 0.05 * MmaxHi + band;
-  if (endsSmall && x1 > x0 && MEdLo > 0) {
-    const fits = (shape: (xi: number) => number): boolean => {
-      for (let i = 0; i < n; i++) {
-        const f = shape((px[i]! - x0) / (x1 - x0));
-        if (pl[i]! / MmaxHi - f > 0.03 + 1e-9 || f - ph[i]! / MEdLo > 0.03 + 1e-9) return false;
-      }
-      return true;
-    };
-    if (fits((xi) => 4 * xi * (1 - xi))) shapes.push(UDL);
-    if (fits((xi) => 1 - Math.abs(2 * xi - 1))) shapes.push(POINT);
-  } else if (endsSmall) {
-    shapes.push(UDL, POINT);
-  }
-  return { MEdLo, shapes };
+  // round-off of the sums: widen by a hair of their magnitude
+  const slack = 1e-12 * (Math.abs(cMin) + Math.abs(cMax));
+  cMin -= slack;
+  cMax += slack;
+  const c2Lo = cMin > 0 ? cMin * cMin : cMax < 0 ? cMax * cMax : 0;
+  const wSlack = 1e-12 * (Math.abs(wLo) + Math.abs(wHi));
+  return { MEdLo, MmaxHi, c2Lo, wLo: wLo - wSlack, wHi: wHi + wSlack, au: t.au, bt: t.bt, bw: t.bw };
 }
 
 /** One plate's ∫ z(y² + z²) dA about the centroid zc (z positive towards the compression flange: sgn). */

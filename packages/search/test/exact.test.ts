@@ -31,7 +31,7 @@ function frontKey(f: Evaluated[]) {
 describe('search = brute force', () => {
   test.prop([problemArb], { numRuns: 200 })('Pareto set and optimum equal exhaustive enumeration', ({ space, L, q, P, objective, restrained }) => {
     const sp = spaceOf(space);
-    const options = defaultOptions(L, restrained ? {} : { restraint: { kind: 'at', at: [0, L / 2, L] } });
+    const options = defaultOptions(L, restrained ? { restraint: { kind: 'continuous' } } : { restraint: { kind: 'at', at: [0, L / 2, L] } });
     const problem = { space: sp, options, load: simpleSpanModel(L, q, P, q / 1.4), objective, cost: DEFAULT_COST };
     const fast = search(problem);
     const brute = bruteForce(problem);
@@ -48,7 +48,7 @@ describe('a search shared out over workers (SlicePart)', () => {
   // consistency property: the parts divide the space (sizes add up) and their merged fronts are the whole search's
   test.prop([problemArb, fc.integer({ min: 2, max: 4 })], { numRuns: 60 })('the merged parts give the same answer as one search', ({ space, L, q, P, objective, restrained }, of) => {
     const sp = spaceOf(space);
-    const options = defaultOptions(L, restrained ? {} : { restraint: { kind: 'at', at: [0, L / 2, L] } });
+    const options = defaultOptions(L, restrained ? { restraint: { kind: 'continuous' } } : { restraint: { kind: 'at', at: [0, L / 2, L] } });
     const problem = { space: sp, options, load: simpleSpanModel(L, q, P, q / 1.4), objective, cost: DEFAULT_COST };
     const one = search(problem);
     const prep = prepareSearch(problem);

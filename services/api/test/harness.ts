@@ -64,6 +64,8 @@ export const PROBLEM = {
     { kind: 'permanent', load: 'udl', value: 10 },
     { kind: 'variable', load: 'udl', value: 15, category: 'B' },
   ],
+  // the fixture's meaning from before issue 17 pinned: a missing restraint is now "at the supports only"
+  options: { restraint: 'continuous' },
 };
 
 /** A small space (54 candidates): answers in well under a second. */

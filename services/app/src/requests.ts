@@ -16,6 +16,7 @@ import {
   toCheckEffects,
   toCheckProblem,
   toSearchTask,
+  type Assumption,
   type EffectsSummaryJson,
   type Parsed,
   type ProblemJson,
@@ -56,11 +57,11 @@ export type CheckResponse = PublishedVerdict & {
 /** One section checked: under raw effects, or for a problem with its own self-weight added. */
 export function checkSection(input: CheckRequest): CheckResponse {
   if ('effects' in input) {
-    const { section, effects, options } = toCheckEffects(input);
-    return { ...publishVerdict(checkGirder(section, effects, options)), caution: CAUTION, scope: SCOPE };
+    const { section, effects, options, assumptions } = toCheckEffects(input);
+    return { ...publishVerdict(checkGirder(section, effects, options), assumptions), caution: CAUTION, scope: SCOPE };
   }
   const job = toCheckProblem(input);
-  return { ...publishVerdict(runCheckJob(job)), selfWeight: Math.round(fromN(job.g) * 1e6) / 1e3, caution: CAUTION, scope: SCOPE };
+  return { ...publishVerdict(runCheckJob(job), job.assumptions), selfWeight: Math.round(fromN(job.g) * 1e6) / 1e3, caution: CAUTION, scope: SCOPE };
 }
 
 const round3 = (v: number) => Math.round(v * 1000) / 1000;
@@ -85,6 +86,6 @@ export function searchTaskOf(input: SearchInput, spaceCap = DEFAULT_SPACE_CAP): 
 }
 
 /** A search result published in the trade's units, with its status and message. */
-export function publishSearchOf(r: SearchResult, task: { objective: SearchTask['objective']; analysis: { length: number } }, abort?: SearchAbort): PublishedSearch {
-  return publishSearch(r, task.objective, task.analysis.length, abort);
+export function publishSearchOf(r: SearchResult, task: { objective: SearchTask['objective']; analysis: { length: number }; assumptions?: readonly Assumption[] }, abort?: SearchAbort): PublishedSearch {
+  return publishSearch(r, task.objective, task.analysis.length, abort, task.assumptions ?? []);
 }

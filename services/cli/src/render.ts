@@ -1,4 +1,4 @@
-import { CAUTION, SCOPE, type PublishedCheck, type PublishedVerdict } from '@platesmith/schema';
+import { CAUTION, SCOPE, type Assumption, type PublishedCheck, type PublishedVerdict } from '@platesmith/schema';
 import { fmt, table, TABLE_WIDTH } from './table.js';
 
 /** The values a reader wants first for each check (others stay in --json). */
@@ -49,6 +49,26 @@ export function renderChecks(v: PublishedVerdict, wide = false): string {
     '',
     `${v.passes ? 'PASSES' : 'FAILS'} — governing: ${g.id} (${g.clause}), utilisation ${g.utilisation === null ? 'inf' : g.utilisation.toFixed(3)}${g.at === null ? '' : ` at x = ${Math.round(g.at)} mm`}`,
   ].join('\n');
+}
+
+/** The defaults the answer applied, one a line (empty when none). */
+export function renderAssumptions(list: readonly Assumption[]): string {
+  if (list.length === 0) return '';
+  const v = (x: Assumption['value']) => (Array.isArray(x) ? x.join(', ') : String(x));
+  // each line wrapped at the tables' width, continued under its text
+  const wrap = (text: string): string => {
+    const out: string[] = [];
+    let line = '';
+    for (const word of text.split(' ')) {
+      if (line && line.length + 1 + word.length > TABLE_WIDTH) {
+        out.push(line);
+        line = `      ${word}`;
+      } else line = line ? `${line} ${word}` : word;
+    }
+    out.push(line);
+    return out.join('\n');
+  };
+  return `Assumed (not given in the input):\n${list.map((a) => wrap(`  ${a.field} = ${v(a.value)}: ${a.note}`)).join('\n')}\n\n`;
 }
 
 export function caution(): string {

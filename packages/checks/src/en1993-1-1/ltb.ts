@@ -5,6 +5,10 @@ import { notApplicable, verdict } from '../result.js';
 import { bracket, envelopeOf, firstAbove, type SignBending } from './bending.js';
 import { perSide } from '../context.js';
 import { negligibleMoment } from '../tolerances.js';
+import { MCR_FIRST_TERMS, mcrConverged, mcrOneTerm, mcrRitz, mcrUniform, type RitzSegment } from './mcr-ritz.js';
+
+/** The screen keeps the one-term Mcr of a segment whose utilisation with it is below this (a lower bound either way; more terms only where they may decide). */
+const SCREEN_ONE_TERM_BELOW = 0.8;
 
 /**
  * Lateral-torsional buckling of a welded (mono-)symmetric I-beam, EN 1993-1-1:2005 6.3.2.
@@ -253,6 +257,9 @@ function valueAt(xs: Float64Array, v: Float64Array, x: number): number {
 /** Scratch arrays of the segment points (grown as needed; the LTB computation is not re-entrant). */
 let PX = new Float64Array(64);
 let PM = new Float64Array(64);
+/** the points' x from the segment's start */
+let RX = new Float64Array(64);
+const FORK = Object.freeze({ k: 1, kw: 1 });
 
 /**
  * The points of a segment into PX, PM: its ends (interpolated) and every station strictly inside,
@@ -305,16 +312,20 @@ export function ltbCheck(ctx: CheckContext, e: Effects, per: ReadonlyMap<FlangeS
 }
 
 /**
- * The utilisation 'lateral-torsional-buckling' gives a section under a moment envelope — the same
- * computation as ltbCheck, without the report values (0 when the check does not apply). A search
- * that builds the envelope straight from its load model rejects candidates with it before any other
- * check is run; equal to ltbCheck's utilisation whenever the envelope equals momentEnvelopeOf(stations).
+ * A lower bound on the utilisation 'lateral-torsional-buckling' gives a section under a moment
+ * envelope — the computation of ltbCheck, without the report values (0 when the check does not
+ * apply), with Mcr from the first Ritz basis alone (MCR_FIRST_TERMS terms; the check converges it
+ * from there, and a nested basis with fewer terms never gives a lower Mcr): a search that builds
+ * the envelope straight from its load model rejects candidates with it before any other check is
+ * run. With `exact` (and always with the modification factor f, which is not monotone in Mcr) the
+ * check's own converged Mcr: then equal to ltbCheck's utilisation whenever the envelope equals
+ * momentEnvelopeOf(stations).
  * With `stopAbove`, it returns as soon as one segment's utilisation exceeds it (a value above it,
  * not necessarily the largest): enough to know the check fails.
  */
-export function ltbUtilisation(ctx: CheckContext, env: MomentEnvelope, bendingFor: (side: FlangeSide) => SignBending, stopAbove = Infinity): number {
+export function ltbUtilisation(ctx: CheckContext, env: MomentEnvelope, bendingFor: (side: FlangeSide) => SignBending, stopAbove = Infinity, exact = false): number {
   if (env.xs.length === 0) return 0;
-  return ltbCore(ctx, env, bendingFor, false, null, stopAbove)?.u ?? 0;
+  return ltbCore(ctx, env, bendingFor, false, null, stopAbove, exact)?.u ?? 0;
 }
 
 function ltbCore(
@@ -324,6 +335,7 @@ function ltbCore(
   detail: boolean,
   skipped: string[] | null,
   stopAbove = Infinity,
+  exact = detail,
 ): { u: number; at: number; values: Record<string, CheckValue> | null } | null {
   // the utilisation only: segments may be taken in any order (see below)
   const reorder = !detail;
@@ -332,6 +344,12 @@ function ltbCore(
   const lambda0 = rolled ? 0.4 : 0.2;
   const curve = ltbCurveWelded(g.h, Math.min(s.top.b, s.bot.b));
   const zg = loadHeightZg(ctx);
+  const ends = o.ltbEnds ?? FORK;
+  /** χLT at λ̄LT without the modification f (1 where the reduction is ignored): the screen's */
+  const chiOf = (lambdaLT: number, MEdOverMcr: number): number => {
+    if (lambdaLT <= lambda0 || MEdOverMcr <= lambda0 * lambda0) return 1;
+    return rolled ? chiLT({ lambdaLT, alphaLT: ALPHA[curve], lambdaLT0: 0.4, beta: 0.75 }).chiLT : chiLTGeneral(lambdaLT, curve).chiLT;
+  };
   // the largest |MEd| of any station: the largest sagging or hogging value of the envelope
   let tiny = 0;
   let maxSag = 0;
@@ -376,9 +394,31 @@ function ltbCore(
     const govX = PX[gov]!;
     if (MEd <= tiny) continue;
     const b = bendingFor(side);
-    const mf = momentFactorsOf(PX, PM, n);
     const zj = zjCached(ctx, side);
-    const Mcr = mcr({ E: o.E, G: o.G, Iz: g.Iz, It: g.It, Iw: g.Iw, L: x1 - x0, C1: mf.C1, C2: mf.C2, C3: mf.C3, zg, zj });
+    const L = x1 - x0;
+    if (RX.length < n) RX = new Float64Array(PX.length);
+    for (let k = 0; k < n; k++) RX[k] = PX[k]! - x0;
+    const seg: RitzSegment = { E: o.E, G: o.G, L, xs: RX, Ms: PM, n, pieces: [{ x0: 0, x1: L, Iz: g.Iz, It: g.It, Iw: g.Iw, zj, zg }], k: ends.k, kw: ends.kw };
+    // the verdict: Mcr converged in the number of terms; the screen (utilisation only, no f):
+    // the first basis alone, whose Mcr is at least the converged one (nested bases)
+    const Mk0 = b.McRd * o.factors.gammaM0;
+    let ritz: { Mcr: number; terms: number; change: number; converged: boolean };
+    if (exact || o.ltbModification) ritz = mcrConverged(seg);
+    else {
+      // the screen: one sine term first (closed form, never a lower Mcr than more terms); where
+      // that alone shows the segment failing, or well within its resistance, no more terms
+      const M1 = mcrOneTerm(seg);
+      const u1 = MEd / ((chiOf(Math.sqrt(Mk0 / M1), MEd / M1) * Mk0) / o.factors.gammaM1);
+      ritz =
+        u1 > stopAbove || u1 < SCREEN_ONE_TERM_BELOW
+          ? { Mcr: M1, terms: 1, change: Number.NaN, converged: false }
+          : { ...mcrRitz(seg, MCR_FIRST_TERMS), change: Number.NaN, converged: false };
+    }
+    const Mcr = ritz.Mcr;
+    const McrUniform = mcrUniform(o.E, o.G, g.Iz, g.It, g.Iw, L, zj, ends.k, ends.kw);
+    // 6.3.2.3(2): kc = 1/√C1 with C1 = Mcr/Mcr,uniform (common practice, no source), at most 1
+    const C1 = Mcr / McrUniform;
+    const kc = Math.min(1, 1 / Math.sqrt(C1));
     const Mk = b.McRd * o.factors.gammaM0;
     const lambdaLT = Math.sqrt(Mk / Mcr);
     let chiV = 1;
@@ -387,7 +427,7 @@ function ltbCore(
     const ignore = lambdaLT <= lambda0 || MEd / Mcr <= lambda0 * lambda0;
     if (!ignore) {
       if (rolled) {
-        const r = chiLT({ lambdaLT, alphaLT: ALPHA[curve], lambdaLT0: 0.4, beta: 0.75, ...(o.ltbModification ? { kc: mf.kc } : {}) });
+        const r = chiLT({ lambdaLT, alphaLT: ALPHA[curve], lambdaLT0: 0.4, beta: 0.75, ...(o.ltbModification ? { kc } : {}) });
         chiV = r.chiLT;
         phiLT = r.phiLT;
         f = r.f;
@@ -401,23 +441,33 @@ function ltbCore(
     const u = MEd / MbRd;
     // a utilisation that is not a number fails, wherever its segment comes (and nothing can undo it)
     if (!best || u > best.u || Number.isNaN(u)) {
+      const mf = detail ? momentFactorsOf(PX, PM, n) : null;
       best = {
         u,
         at: govX,
-        values: !detail
+        values: !mf
           ? null
           : {
               x0,
               x1,
               Lseg: x1 - x0,
-              momentShape: mf.shape,
-              psi: mf.psi,
-              C1: mf.C1,
-              C2: mf.C2,
-              C3: mf.C3,
               zg,
               zj,
+              k: ends.k,
+              kw: ends.kw,
               Mcr,
+              McrMethod: 'Rayleigh-Ritz, sine series for lateral displacement and twist, actual moment diagram and load height',
+              McrTerms: ritz.terms,
+              McrChange: ritz.change,
+              McrConverged: ritz.converged,
+              McrUniform,
+              C1,
+              kc: o.ltbModification ? kc : 1,
+              momentShape: mf.shape,
+              McrThreeFactor: mcr({ E: o.E, G: o.G, Iz: g.Iz, It: g.It, Iw: g.Iw, L, C1: mf.C1, C2: mf.C2, C3: mf.C3, zg, zj, k: ends.k, kw: ends.kw }),
+              C1Table: mf.C1,
+              C2Table: mf.C2,
+              C3Table: mf.C3,
               lambdaLT,
               lambdaLT0: lambda0,
               curve,

@@ -187,6 +187,8 @@ const momentsFor = perSide((ctx, side) => flangeAndPlasticMoments(ctx.s, ctx.m, 
 /** One station judged in one panel by 5.5(1): η3 = VEd / Vb,Rd. */
 export interface StationShear {
   station: Station;
+  /** the moment Vbf,Rd was taken at (the panel's largest), N·mm */
+  MEdVbf: number;
   VbfRd: number;
   VbRd: number;
   MfRd: number;
@@ -194,13 +196,33 @@ export interface StationShear {
   utilisation: number;
 }
 
-/** 5.4 and 5.5 at one station of a panel (Vbf,Rd with the station's coexisting MEd). */
-export function stationShear(ctx: CheckContext, ps: PanelShear, st: Station): StationShear {
+/**
+ * The moment 5.4(1) reads for a panel: the largest MEd within it (the conservative reading used in
+ * practice, common practice, no source — MEd at the station itself is zero at a simple support
+ * and would give the full flange contribution there). Of the panel's stations (its boundaries
+ * included; the diagram is linear between stations, so its extremes are at stations), the one
+ * with the largest |MEd|/Mf,Rd of its own sign: the least Vbf,Rd.
+ */
+export function panelMomentForVbf(ctx: CheckContext, stations: readonly Station[]): number {
+  let M = 0;
+  let worst = -1;
+  for (const st of stations) {
+    const r = Math.abs(st.MEd) / momentsAt(ctx, st.MEd).MfRd;
+    if (r > worst || Number.isNaN(r)) {
+      worst = r;
+      M = st.MEd;
+    }
+  }
+  return M;
+}
+
+/** 5.4 and 5.5 at one station of a panel: Vbf,Rd with MEdVbf, the panel's largest MEd (panelMomentForVbf). */
+export function stationShear(ctx: CheckContext, ps: PanelShear, st: Station, MEdVbf: number = st.MEd): StationShear {
   const { s, o, m } = ctx;
-  const { MfRd } = momentsAt(ctx, st.MEd);
+  const { MfRd } = momentsAt(ctx, MEdVbf);
   const f = weakerFlange({ b: s.top.b, t: s.top.t, fy: m.fyTop }, { b: s.bot.b, t: s.bot.t, fy: m.fyBot }, s.tw);
   const c = flangeC(ps.panel.a, f.bf, f.tf, f.fyf, s.tw, s.hw, m.fyw);
-  const Vbf = vbfRd(f.bf, f.tf, f.fyf, c, st.MEd, MfRd, o.factors.gammaM1);
+  const Vbf = vbfRd(f.bf, f.tf, f.fyf, c, MEdVbf, MfRd, o.factors.gammaM1);
   const Vb = vbRd(ps.VbwRd, Vbf, ps.cap);
-  return { station: st, VbfRd: Vbf, VbRd: Vb, MfRd, c, utilisation: Math.abs(st.VEd) / Vb };
+  return { station: st, MEdVbf, VbfRd: Vbf, VbRd: Vb, MfRd, c, utilisation: Math.abs(st.VEd) / Vb };
 }

@@ -4,7 +4,7 @@ import type { CheckContext, CheckResult, Effects, Station } from '../types.js';
 import { SHEAR_IDS, type ShearCheckId } from '../registry.js';
 import { bearingStiffenerAt, rigidEndPost } from './end-post.js';
 import { stationInteraction628, stationInteraction71, type StationInteraction } from './interaction.js';
-import { panelShear, stationShear, stationsIn, type PanelShear, type StationShear } from './shear-buckling.js';
+import { panelMomentForVbf, panelShear, stationShear, stationsIn, type PanelShear, type StationShear } from './shear-buckling.js';
 import { shearArea, vplRd } from './shear-plastic.js';
 import { flatTorsion, siteSection, siteStrength, stiffenerIstMin, stiffenerSites } from './stiffeners.js';
 import { PANEL_EDGE_MM } from '../tolerances.js';
@@ -63,8 +63,10 @@ export function shearBucklingCheck(ctx: CheckContext, panels: readonly PanelShea
   if (stations.length === 0) return notApplicable('shear-buckling', clause, NO_STATIONS);
   let best: { ps: PanelShear; r: StationShear } | null = null;
   for (const ps of needed) {
-    for (const st of stationsIn(stations, ps.panel.x0, ps.panel.x1)) {
-      const r = stationShear(ctx, ps, st);
+    const inPanel = stationsIn(stations, ps.panel.x0, ps.panel.x1);
+    const MEdVbf = panelMomentForVbf(ctx, inPanel);
+    for (const st of inPanel) {
+      const r = stationShear(ctx, ps, st, MEdVbf);
       if (best === null || r.utilisation > best.r.utilisation) best = { ps, r };
     }
   }
@@ -76,6 +78,8 @@ export function shearBucklingCheck(ctx: CheckContext, panels: readonly PanelShea
     chiW: ps.chiW,
     VbwRd: ps.VbwRd,
     VbfRd: r.VbfRd,
+    MEdVbf: r.MEdVbf,
+    VbfReading: "5.4(1) with the panel's largest MEd (conservative, common practice)",
     VbRd: r.VbRd,
     a: ps.panel.a,
     endPost: ps.endPost,

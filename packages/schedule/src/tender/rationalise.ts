@@ -140,7 +140,8 @@ export function sectionMassPerMetre(s: SectionJson): number {
 
 /** Canonical key of a section (key order fixed), for de-duplicating candidates. */
 export function sectionKey(s: SectionJson): string {
-  const g = typeof s.grade === 'string' ? s.grade : `${s.grade.web}/${s.grade.flanges}/${s.grade.stiffeners ?? s.grade.web}`;
+  const gs = s.grade ?? 'S355';
+  const g = typeof gs === 'string' ? gs : `${gs.web}/${gs.flanges}/${gs.stiffeners ?? gs.web}`;
   const st = s.stiffeners ? `a${s.stiffeners.spacing}-${s.stiffeners.sides}x${s.stiffeners.width}x${s.stiffeners.thickness}` : 'none';
   const br = s.bearing ? `${s.bearing.width}x${s.bearing.thickness}${s.bearing.spacing !== undefined ? `e${s.bearing.spacing}` : ''}` : 'auto';
   return `${s.web.depth}x${s.web.thickness}|${s.topFlange.width}x${s.topFlange.thickness}|${s.bottomFlange.width}x${s.bottomFlange.thickness}|${st}|${s.endPost}|${br}|${g}`;
@@ -174,7 +175,7 @@ export function feasibilityMatrix<M, C>(marks: readonly M[], candidates: readonl
 }
 
 function rateOf(s: SectionJson, rates: Rates): number | null {
-  const g = s.grade;
+  const g = s.grade ?? 'S355';
   if (typeof g === 'string') return rates[g as GradeName] ?? null;
   const rw = rates[g.web as GradeName];
   const rf = rates[g.flanges as GradeName];

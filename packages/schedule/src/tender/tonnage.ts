@@ -93,7 +93,7 @@ interface Grades {
 }
 
 function gradesOf(s: SectionJson): Grades {
-  const g = s.grade;
+  const g = s.grade ?? 'S355';
   if (typeof g === 'string') return { web: g as GradeName, flanges: g as GradeName, stiffeners: g as GradeName };
   return { web: g.web as GradeName, flanges: g.flanges as GradeName, stiffeners: (g.stiffeners ?? g.web) as GradeName };
 }

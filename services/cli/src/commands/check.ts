@@ -1,7 +1,7 @@
 import { checkSection, parseCheckRequest } from '@platesmith/app';
 import { formatIssues } from '@platesmith/schema';
 import { EXIT, InputError, type Out } from '../io.js';
-import { caution, renderChecks } from '../render.js';
+import { caution, renderAssumptions, renderChecks } from '../render.js';
 
 /** `check`: a section under raw effects ({ effects: [...] }) or for a problem (spans and actions, or an envelope). */
 export function runCheck(input: unknown, json: boolean, io: Out, wide = false): number {
@@ -12,7 +12,7 @@ export function runCheck(input: unknown, json: boolean, io: Out, wide = false): 
   if (json) io.out(JSON.stringify(r, null, 2));
   else {
     const sw = r.selfWeight === undefined ? '' : `self-weight added: ${r.selfWeight.toFixed(3)} kN/m (web, flanges, stiffeners)\n\n`;
-    io.out(`${sw}${renderChecks(r, wide)}\n\n${caution()}`);
+    io.out(`${sw}${renderChecks(r, wide)}\n\n${renderAssumptions(r.assumptions ?? [])}${caution()}`);
   }
   return r.passes ? EXIT.ok : EXIT.fails;
 }

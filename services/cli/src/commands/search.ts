@@ -1,7 +1,7 @@
 import { createEngine } from '@platesmith/app';
 import { formatIssues, parseWith, SearchInput, type PublishedSearch } from '@platesmith/schema';
 import { EXIT, InputError, type Out } from '../io.js';
-import { caution } from '../render.js';
+import { caution, renderAssumptions } from '../render.js';
 import { count, fmt, progressBar, table, TABLE_WIDTH } from '../table.js';
 
 /** Progress of a search on standard error: a bar on a terminal, one plain line per step otherwise. */
@@ -79,6 +79,8 @@ export function renderSearch(r: PublishedSearch, title?: string, wide = false): 
     lines.push('', `Lightest${r.objective === 'cost' ? ' (cheapest)' : ''}: ${describe(l.section)} — ${fmt(l.mass, 5)} kg, depth ${l.depth} mm, governed by ${l.governing.id} (${l.governing.clause}) at ${l.governing.utilisation?.toFixed(3)}`);
   }
   const s = r.stats;
+  const assumed = renderAssumptions(r.assumptions ?? []);
+  if (assumed) lines.push('', assumed.trimEnd());
   lines.push('', `Searched ${count(s.spaceSize)} candidates exactly: ${count(s.fullEvaluations)} judged (${((s.fullEvaluations / Math.max(1, s.spaceSize)) * 100).toPrecision(2)} %), the rest pruned by bounds (depth ${s.pruned.depth}, shear ${s.pruned.shear}, bending ${s.pruned.bending}, flange-induced buckling ${s.pruned.flangeInducedBuckling}, deflection ${s.pruned.deflection}, patch loading ${s.pruned.patchLoading}, patch loading with bending ${s.pruned.patchBending}, lateral-torsional buckling from the moment envelope ${s.pruned.lateralTorsional}, bearing stiffener ${s.pruned.bearing}, shared with a failed candidate of the same plates ${s.pruned.sameFlanges}, stiffener layout failed on another flange ${s.pruned.webOnly}, incumbent ${s.pruned.incumbent}, rules ${s.pruned.rules}); ${s.wallMs.toFixed(0)} ms on ${s.workers} workers.`);
   return lines.join('\n');
 }
@@ -89,8 +91,9 @@ export function describe(s: PublishedSearch['pareto'][number]['section']): strin
   const same = s.topFlange.width === s.bottomFlange.width && s.topFlange.thickness === s.bottomFlange.thickness;
   const flanges = same ? `2 fl ${fl(s.topFlange)}` : `top ${fl(s.topFlange)} / bot ${fl(s.bottomFlange)}`;
   const st = s.stiffeners ? `stiff ${s.stiffeners.width}×${s.stiffeners.thickness} @${Math.round(s.stiffeners.spacing)}${s.stiffeners.sides === 1 ? ' 1-side' : ''}` : 'no stiff';
-  const grade = typeof s.grade === 'string' ? s.grade : `${s.grade.web}/${s.grade.flanges}`;
-  return `web ${s.web.depth}×${s.web.thickness}, ${flanges}, ${st}, ${s.endPost} end post, ${grade}`;
+  const gs = s.grade ?? 'S355';
+  const grade = typeof gs === 'string' ? gs : `${gs.web}/${gs.flanges}`;
+  return `web ${s.web.depth}×${s.web.thickness}, ${flanges}, ${st}, ${s.endPost ?? 'rigid'} end post, ${grade}`;
 }
 
 /**
