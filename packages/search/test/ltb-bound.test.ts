@@ -5,7 +5,6 @@ import { analyse } from '@platesmith/actions';
 import { analysisLoadModel } from '../src/index.js';
 import { grossProps, material, wagnerZj } from '@platesmith/checks';
 import { ltbSetBound, stackProps, wyFyBound, zjOf } from '../src/ltb-bound.js';
-import { plateStackMel } from '../src/slice/plate-tables.js';
 
 /**
  * Soundness of the lateral-torsional-buckling bound over a set of sections (consistency
@@ -112,19 +111,6 @@ describe('wyFyBound: the modulus the bound takes for Wy fy', () => {
     expect(Math.abs(bound - b.McRd * o.factors.gammaM0)).toBeLessThanOrEqual(1e-9 * bound);
     expect(bound).toBeLessThan(0.95 * p.Mpl);
   });
-});
-
-describe('plateStackMel (the Mel,Rd the 7.2 floor of the search compares)', () => {
-  test.prop([fc.integer({ min: 300, max: 2600 }), fc.constantFrom(6, 10, 15, 25), fc.integer({ min: 120, max: 800 }), fc.constantFrom(8, 12, 25, 50, 60), fc.integer({ min: 120, max: 800 }), fc.constantFrom(8, 12, 25, 50, 60)], { numRuns: 300 })(
-    'equals grossProps(·).Mel, each plate at its own fy (consistency property)',
-    (hw, tw, bt, tt, bb, tb) => {
-      const s: Section = { hw, tw, top: { b: bt, t: tt }, bot: { b: bb, t: tb }, stiffeners: null, endPost: 'rigid', grade: { web: 'S355', top: 'S460', bot: 'S355', stiffener: 'S355' } };
-      const m = material(s, defaultOptions(10000));
-      const g = grossProps(s, m);
-      const M = plateStackMel({ hw, tw, fyw: m.fyw }, { b: bt, t: tt, fy: m.fyTop }, { b: bb, t: tb, fy: m.fyBot });
-      expect(Math.abs(M - g.Mel)).toBeLessThanOrEqual(1e-12 * g.Mel);
-    },
-  );
 });
 
 describe('ltbSetBound', () => {

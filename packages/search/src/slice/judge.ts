@@ -6,7 +6,7 @@
  * passes gets checkGirder's verdict (assembleVerdict joins the two parts; a property test keeps
  * them equal), so it is never judged again.
  */
-import { assembleVerdict, CHECK_ORDER, firstFailureAmong, inJudgeOrder, type CheckResult, type Judged } from '@platesmith/checks';
+import { assembleVerdict, failsWebOnly, firstFailureAmong, LAYOUT_IDS, PANEL_ONLY, PLATE_IDS, type Judged } from '@platesmith/checks';
 import { priceCost, settle, type CandidateKey } from '../core.js';
 import { buildSection, flangeMass } from '../objective.js';
 import { ltbFails } from './ltb.js';
@@ -14,35 +14,8 @@ import { bearingFloorFor, bearingFloorOf, bearingFlatCount, flatFailsTorsion, pa
 import { admit, keepMiss, prunes } from './staircase.js';
 import { doubles, KG_PER_MM3, type LayoutsNode, type PlatesNode, type SliceState } from './state.js';
 
-/**
- * Checks that read nothing of the intermediate stiffeners, the end post or the bearing
- * stiffeners: judged once per set of plates (web plate and flanges). With the self-weight
- * convention of selfWeightOf every stiffener layout of those plates has the same effects, so the
- * verdict of these checks is the same for all of them.
- */
-const PLATE_IDS = inJudgeOrder(['deflection', 'lateral-torsional-buckling', 'bending', 'shear', 'flange-induced-buckling', 'web-flange-weld', 'classification']);
-/** The other checks: judged per stiffener layout. PLATE_IDS and LAYOUT_IDS together are CHECK_ORDER. */
-const LAYOUT_IDS = (() => {
-  // stiffener stiffness first: cheap, and its failure is shared by every flange on the web
-  const rest = inJudgeOrder(CHECK_ORDER.filter((id) => !PLATE_IDS.includes(id) && id !== 'stiffener-stiffness'));
-  return ['stiffener-stiffness' as const, ...rest];
-})();
-/**
- * Layout checks that read the panel layout (stiffener positions, end-post type) but not the flats
- * (EN 1993-1-5 5.2–5.5 with Table 5.1, 6, 7.1, 7.2): a failure fails every flat and every number
- * of sides with the same panels and end post, on the same plates.
- */
-const PANEL_ONLY: ReadonlySet<string> = new Set(['shear-buckling', 'bending-shear', 'patch-loading', 'patch-bending']);
-
-/**
- * A failed check whose inputs are the web and its intermediate stiffeners only fails every flange
- * on that web: stiffener stiffness (EN 1993-1-5 9.3.3(3): a, hw, tw, the flats and 15εtw of web)
- * and the torsional requirement of the intermediate flats (9.2.1(8)). The torsion of the bearing
- * flats is not web-only: they are sized to fit the flanges.
- */
-function failsWebOnly(c: CheckResult): boolean {
-  return !c.passes && (c.id === 'stiffener-stiffness' || (c.id === 'stiffener-torsion' && c.values['stiffener'] === 'intermediate'));
-}
+// The partitions of the checks (judged once per set of plates, per layout; panel-only; web-only)
+// come from the check registry: a new check is placed by its declared inputs, not by a list here.
 
 /** The LTB screen for a set of plates, then a node for its layouts in ascending lower bound. */
 export function judgePlates(s: SliceState, nd: PlatesNode): void {

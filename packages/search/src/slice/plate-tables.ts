@@ -3,7 +3,7 @@
  * plate: the quantities of its layouts, the torsion of its flats, patch loading (6.4 and the 7.2
  * floor) per top flange and panel count, Mel,Rd, and the bearing flats the sizing can return.
  */
-import { bearingCandidates, flatTorsion, lightestFittingBearing, patchBendingMelNeed, patchEta2s, type BearingCandidates, type EndPost } from '@platesmith/checks';
+import { bearingCandidates, flatTorsion, lightestFittingBearing, patchBendingMelNeed, patchEta2s, plateStackMel, type BearingCandidates, type EndPost } from '@platesmith/checks';
 import { fy } from '@platesmith/catalogue';
 import { defaultBearing, type BearingFlat } from '../core.js';
 import { bearingPairs, buildSection, flangeMass, webPartsWith, type WebParts } from '../objective.js';
@@ -163,22 +163,3 @@ export function groupMass(s: SliceState, gi: number): Float64Array {
   return (s.massOfGroup[gi] ??= Float64Array.from(s.groups[gi]!.options, (f) => flangeMass(f, s.L)));
 }
 
-/**
- * Mel (N·mm, no partial factor) of the gross section of a web plate and two flanges, each plate at
- * its own fy: the first yield of any plate's farthest fibre, as grossProps(·).Mel computes it from
- * the same three rectangles (to round-off; a property test keeps them equal).
- */
-export function plateStackMel(w: Pick<WebConfig, 'hw' | 'tw' | 'fyw'>, T: Pick<FlangeOption, 'b' | 't' | 'fy'>, B: Pick<FlangeOption, 'b' | 't' | 'fy'>): number {
-  const z1 = B.t;
-  const z2 = B.t + w.hw;
-  const h = z2 + T.t;
-  const A0 = B.b * B.t;
-  const A1 = w.tw * w.hw;
-  const A2 = T.b * T.t;
-  const zc = (A0 * (z1 / 2) + A1 * ((z1 + z2) / 2) + A2 * ((z2 + h) / 2)) / (A0 + A1 + A2);
-  const d0 = z1 / 2 - zc;
-  const d1 = (z1 + z2) / 2 - zc;
-  const d2 = (z2 + h) / 2 - zc;
-  const I = (A0 * B.t * B.t) / 12 + A0 * d0 * d0 + (A1 * w.hw * w.hw) / 12 + A1 * d1 * d1 + (A2 * T.t * T.t) / 12 + A2 * d2 * d2;
-  return Math.min((B.fy * I) / Math.max(zc, Math.abs(z1 - zc)), (w.fyw * I) / Math.max(Math.abs(z1 - zc), Math.abs(z2 - zc)), (T.fy * I) / Math.max(Math.abs(z2 - zc), h - zc));
-}

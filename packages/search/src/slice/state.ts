@@ -19,7 +19,7 @@ import {
   type MomentEnvelope,
   type Section,
 } from '@platesmith/checks';
-import { STEEL_DENSITY } from '@platesmith/catalogue';
+import { STEEL_KG_PER_MM3 } from '@platesmith/catalogue';
 import { G_ACC, type BearingFlat, type Evaluated, type CandidateKey, type Prepared, type PruneStats, type SearchProblem } from '../core.js';
 import type { DemandBound } from '../load.js';
 import { ltbSetBound, type LtbSetBound, type Segments } from '../ltb-bound.js';
@@ -28,7 +28,7 @@ import type { FlangeGroup, FlangeOption, SpaceSpec, WebConfig, WebTable } from '
 import { Heap } from './heap.js';
 import type { SlicePart } from './slicing.js';
 
-export const KG_PER_MM3 = STEEL_DENSITY * 1e-9;
+export const KG_PER_MM3 = STEEL_KG_PER_MM3;
 
 /**
  * A value below which no feasible candidate of `slice` lies, known from elsewhere (other workers'
