@@ -262,8 +262,21 @@ let RX = new Float64Array(64);
 const FORK = Object.freeze({ k: 1, kw: 1 });
 
 /**
+ * Points of a segment closer together than this fraction of its length are one point (a station
+ * at 1e-300 mm from a support made the Mcr diagram's slope ΔM/Δx overflow to Infinity, and Mcr
+ * and the utilisation not numbers). Far below any drawing's resolution (1e-9 of the segment), and
+ * ΔM/Δx then stays finite for any moment within the input limits.
+ */
+const SAME_POINT = 1e-9;
+
+/** the larger in magnitude of two moments of one sign; a moment that is not a number wins */
+const fuller = (a: number, b: number): number => (Number.isNaN(a) || Math.abs(a) >= Math.abs(b) ? a : b);
+
+/**
  * The points of a segment into PX, PM: its ends (interpolated) and every station strictly inside,
- * in x order. Returns their number.
+ * in x order. Returns their number. A station closer than SAME_POINT·(x1 − x0) to the point before
+ * it (or to the segment's end) is merged into it, keeping the larger |M| (a fuller diagram: lower
+ * Mcr and the same largest MEd, so never less safe).
  */
 function segmentPoints(env: MomentEnvelope, v: Float64Array, x0: number, x1: number): number {
   const xs = env.xs;
@@ -271,17 +284,29 @@ function segmentPoints(env: MomentEnvelope, v: Float64Array, x0: number, x1: num
     PX = new Float64Array(xs.length + 2);
     PM = new Float64Array(xs.length + 2);
   }
+  const tol = SAME_POINT * (x1 - x0);
   let n = 0;
   PX[n] = x0;
   PM[n++] = valueAt(xs, v, x0);
   // xs ascending: from the first station beyond x0, stop at x1
   for (let i = firstAbove(xs, x0); i < xs.length && xs[i]! < x1; i++) {
+    if (xs[i]! - PX[n - 1]! <= tol) {
+      PM[n - 1] = fuller(PM[n - 1]!, v[i]!);
+      continue;
+    }
     PX[n] = xs[i]!;
     PM[n++] = v[i]!;
   }
   if (x1 !== x0) {
-    PX[n] = x1;
-    PM[n++] = valueAt(xs, v, x1);
+    const end = valueAt(xs, v, x1);
+    if (n > 1 && x1 - PX[n - 1]! <= tol) {
+      // the last inner station becomes the end itself (the Mcr series needs the end at x1)
+      PX[n - 1] = x1;
+      PM[n - 1] = fuller(end, PM[n - 1]!);
+    } else {
+      PX[n] = x1;
+      PM[n++] = end;
+    }
   }
   return n;
 }
