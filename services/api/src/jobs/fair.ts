@@ -17,8 +17,9 @@ export class FairGate {
   readonly #ring = new Map<string, Map<string, Waiter[]>>();
   readonly #watchers = new Set<() => void>();
 
+  /** `slots` 0 gives no turns: jobs stay queued (a held queue, e.g. for maintenance or a test of queued jobs) */
   constructor(slots = 1) {
-    this.#slots = Math.max(1, Math.floor(slots));
+    this.#slots = Math.max(0, Math.floor(slots));
   }
 
   /** turns waiting */
