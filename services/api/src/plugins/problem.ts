@@ -46,7 +46,9 @@ export function toProblem(err: unknown, req: FastifyRequest): Mapped {
     return { body, internal: false };
   }
   if (err instanceof ApiError) {
-    const out: Mapped = { body: { ...problemBase(err.code, err.message, req), ...err.extra }, internal: ERROR_CODES[err.code].status === 500 };
+    // a 500, and a job store that is full, corrupt or failing (a fault an operator must see and
+    // repair, logged at error with its cause), unlike load shedding (503s at warn, no stack)
+    const out: Mapped = { body: { ...problemBase(err.code, err.message, req), ...err.extra }, internal: ERROR_CODES[err.code].status === 500 || err.code === 'STORE_UNAVAILABLE' };
     if (err.retryAfter !== undefined) out.retryAfter = err.retryAfter;
     else if (ERROR_CODES[err.code].status === 503) out.retryAfter = 1;
     return out;
