@@ -27,6 +27,16 @@ declare module 'fastify' {
 
 /** Codes any operation can answer: the service closing (onRequest hook) and an unexpected failure. */
 export const ALWAYS: readonly ErrorCode[] = ['SHUTTING_DOWN', 'INTERNAL'];
+/**
+ * Codes the framework answers for any operation before its handler runs: the Host allow-list (421,
+ * when configured), the event-loop guard (503, /health included), and Node's HTTP parser (408 for a
+ * request not received in time, 431 for headers over its limit). 404 NOT_FOUND and 405
+ * METHOD_NOT_ALLOWED are router answers too, but never to a documented operation: they answer a
+ * path or method the document does not list.
+ */
+export const ROUTER: readonly ErrorCode[] = ['HOST_NOT_ALLOWED', 'OVERLOADED', 'REQUEST_TIMEOUT', 'HEADERS_TOO_LARGE'];
+/** Codes the router answers for any operation with path parameters: one over its length limit (414). */
+export const PATH_PARAMS: readonly ErrorCode[] = ['URI_TOO_LONG'];
 /** Codes of any operation that takes a JSON body (content-type parser, body limit, schema). */
 export const BODY: readonly ErrorCode[] = ['INVALID_JSON', 'EMPTY_BODY', 'BODY_TOO_LARGE', 'UNSUPPORTED_MEDIA_TYPE', 'INVALID_REQUEST', 'INVALID_VALUE'];
 /** Codes of any operation with path or query parameters (their schema). */
@@ -34,6 +44,7 @@ export const PARAMS: readonly ErrorCode[] = ['INVALID_REQUEST', 'INVALID_VALUE']
 /** Codes whose answer carries Retry-After (always, or only sometimes: JOB_NOT_FINISHED while the job is queued or running). */
 const RETRY_AFTER: Partial<Record<ErrorCode, 'always' | 'sometimes'>> = {
   POOL_SATURATED: 'always',
+  OVERLOADED: 'always',
   JOBS_SATURATED: 'always',
   SHUTTING_DOWN: 'always',
   NOT_READY: 'always',
@@ -94,7 +105,14 @@ function finishOperation(doc: Json, op: Json): void {
   const answerHeaders: Json = op['x-answer-headers'] ?? {};
   delete op['x-error-codes'];
   delete op['x-answer-headers'];
-  const codes = new Set<ErrorCode>([...declared, ...ALWAYS, ...(op.requestBody ? BODY : []), ...(op.parameters?.length ? PARAMS : [])]);
+  const codes = new Set<ErrorCode>([
+    ...declared,
+    ...ALWAYS,
+    ...ROUTER,
+    ...(op.requestBody ? BODY : []),
+    ...(op.parameters?.length ? PARAMS : []),
+    ...(op.parameters?.some((p: Json) => p.in === 'path') ? PATH_PARAMS : []),
+  ]);
   const responses: Json = {};
   for (const [status, r] of Object.entries<Json>(op.responses ?? {})) {
     if (Number(status) >= 400) {

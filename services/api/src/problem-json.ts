@@ -19,6 +19,8 @@ export const ProblemDetailsJson = z
     issueCount: z.number().int().optional().meta({ description: 'how many field issues the request had, when more than errors lists' }),
     jobStatus: z.enum(['queued', 'running', 'done', 'failed', 'cancelled']).optional().meta({ description: 'the job\'s status (JOB_NOT_FINISHED)' }),
     budgetMs: z.number().int().optional().meta({ description: 'the time budget the work ran out of, ms (TIME_BUDGET_EXCEEDED)' }),
+    limit: z.number().int().optional().meta({ description: 'the requests a minute allowed, per key or per address (RATE_LIMITED)' }),
+    quota: z.number().int().optional().meta({ description: 'the schedule jobs a key may have queued or running at once (JOB_QUOTA_EXCEEDED)' }),
   })
   .meta({ id: 'ProblemDetails', description: 'RFC 9457 problem details (application/problem+json)' });
 export type ProblemDetailsJson = z.output<typeof ProblemDetailsJson>;
