@@ -133,6 +133,11 @@ describe('3b. /health reflects a wedged loop', () => {
         }),
     });
     try {
+      // the start itself holds this process's loop (the app's build and the harness's contract
+      // checker run here too), past this test's 100 ms limit on a loaded host, and the guard rightly
+      // answers 503 until its next check (every 250 ms): wait for a healthy answer before the hold
+      for (let i = 0; i < 50 && (await w.get('/health')).status !== 200; i++) await new Promise((r) => setTimeout(r, 100));
+      expect((await w.get('/health')).status).toBe(200);
       expect((await w.post('/_test/hold', {})).status).toBe(200);
       const h = await w.get('/health');
       expect(h.status).toBe(503);

@@ -33,7 +33,10 @@ test('a search past --budget-ms: exit 0, a warning on standard error, status abo
 
 test('an exact search: no warning, status exact', async () => {
   const file = join(dir, 'small.json');
-  writeFileSync(file, JSON.stringify({ spans: [12000], actions, space: { webDepth: [700, 800, 900], webThickness: [8, 10], flangeWidth: [200, 250, 300], flangeThickness: [12, 15, 20], panels: [0], endPost: 'rigid' } }));
+  // the compression flange pinned continuously restrained (a floor on top), as this small space was
+  // drawn for: under the default (restraint at the supports only) every candidate fails lateral-
+  // torsional buckling and the search is infeasible (exit 1), which is not what this test is about
+  writeFileSync(file, JSON.stringify({ spans: [12000], actions, space: { webDepth: [700, 800, 900], webThickness: [8, 10], flangeWidth: [200, 250, 300], flangeThickness: [12, 15, 20], panels: [0], endPost: 'rigid' }, options: { restraint: 'continuous' } }));
   const r = await run('search', file, '--json', '--quiet', '--budget-ms', '60000');
   expect(r.code).toBe(0);
   expect(r.err).toBe('');

@@ -42,6 +42,19 @@ const after = (polls: number) => {
   };
 };
 
+/** How many times a search run to the end polls its stop signal (a signal that never trips). */
+const countPolls = (p: SearchProblem): number => {
+  let n = 0;
+  const r = search(p, {
+    get aborted() {
+      n++;
+      return false;
+    },
+  });
+  if (r.status !== 'exact') throw new Error(`the counting run ended ${r.status}, not exact`);
+  return n;
+};
+
 const dominatedBy = (p: Evaluated, front: Evaluated[]) => front.some((f) => f.depth <= p.depth && f.value <= p.value);
 
 describe('search status', () => {
@@ -61,10 +74,20 @@ describe('search status', () => {
     expect(none.pareto).toEqual([]);
   });
 
-  test.for([0, 1, 5, 100, 400, 1000, 1300])('stopped after %i polls: aborted, and every point returned passes and is on or behind the exact front', (polls) => {
-    const r = search(problem(40), after(polls));
+  // the exact search's own number of polls: the stops below are drawn from it, so that each one
+  // falls inside the search whatever the space, defaults and answers make that number
+  const polls = countPolls(problem(40));
+  const stops = [0, 1, 5, Math.floor(polls * 0.1), Math.floor(polls / 2), Math.floor(polls * 0.75), polls - 1];
+
+  test('premise: the exact search polls its stop signal, and every stop below falls inside it', () => {
+    expect(polls).toBeGreaterThan(20);
+    for (const n of stops) expect(n).toBeLessThan(polls);
+  });
+
+  test.for(stops)('stopped after %i polls: aborted, and every point returned passes and is on or behind the exact front', (n) => {
+    const r = search(problem(40), after(n));
     expect(r.status).toBe('aborted');
-    if (polls >= 1000) expect(r.pareto.length).toBeGreaterThan(0); // late stops return points (5 at 1 000 of ~1 360 polls): the loop below then checks something
+    if (n >= Math.floor(polls * 0.75)) expect(r.pareto.length).toBeGreaterThan(0); // late stops return points: the loop below then checks something
     for (const p of r.pareto) {
       expect(p.verdict.passes).toBe(true);
       expect(dominatedBy(p, full.pareto)).toBe(true);

@@ -33,7 +33,11 @@ export async function start(opts: ApiOptions & { routes?: (app: FastifyInstance)
   const app = await buildApp({ loggerInstance: pino({ level: 'info' }, sink), maxEventLoopDelayMs: 60_000, ...apiOpts });
   routes?.(app);
   const url = await app.listen({ host: '127.0.0.1', port: 0 });
-  const contract = new ContractChecker((await (await fetch(`${url}/openapi.json`)).json()) as Record<string, unknown>);
+  // the document as served, asked with a Host the service answers for (with an allow-list, the
+  // test's own 127.0.0.1 gets 421 and a problem body, not the document)
+  const served = await app.inject({ method: 'GET', url: '/openapi.json', headers: { host: apiOpts.allowedHosts?.[0] ?? new URL(url).host } });
+  if (served.statusCode !== 200) throw new Error(`GET /openapi.json answered ${served.statusCode}: ${served.body.slice(0, 200)}`);
+  const contract = new ContractChecker(served.json() as Record<string, unknown>);
   const read = async (method: string, path: string, r: Response) => {
     const text = await r.text();
     let body: unknown = text;
