@@ -374,19 +374,29 @@ function assemblePrismatic(seg: RitzSegment, N: number, sigma: number, Mmax: num
   return { B: PB, Em: PE, Mmax };
 }
 
-/** Lower-triangular Cholesky factor of a symmetric N × N matrix (row-major), or null when not positive definite. */
-function cholesky(M: Float64Array, N: number): Float64Array | null {
-  const Lm = new Float64Array(N * N);
+/**
+ * In-place Cholesky factorisation of a symmetric N × N matrix (row-major): its lower triangle
+ * becomes L (the upper is left as it was); false when the matrix is not positive definite.
+ */
+function choleskyInPlace(A: Float64Array, N: number): boolean {
   for (let i = 0; i < N; i++) {
     for (let j = 0; j <= i; j++) {
-      let s = M[i * N + j]!;
-      for (let k = 0; k < j; k++) s -= Lm[i * N + k]! * Lm[j * N + k]!;
+      let s = A[i * N + j]!;
+      for (let k = 0; k < j; k++) s -= A[i * N + k]! * A[j * N + k]!;
       if (i === j) {
-        if (!(s > 0)) return null;
-        Lm[i * N + i] = Math.sqrt(s);
-      } else Lm[i * N + j] = s / Lm[j * N + j]!;
+        if (!(s > 0)) return false;
+        A[i * N + i] = Math.sqrt(s);
+      } else A[i * N + j] = s / A[j * N + j]!;
     }
   }
+  return true;
+}
+
+/** Lower-triangular Cholesky factor of a symmetric N × N matrix (row-major), or null when not positive definite. */
+function cholesky(M: Float64Array, N: number): Float64Array | null {
+  const Lm = Float64Array.from(M);
+  if (!choleskyInPlace(Lm, N)) return null;
+  for (let i = 0; i < N; i++) for (let j = i + 1; j < N; j++) Lm[i * N + j] = 0;
   return Lm;
 }
 
@@ -417,18 +427,7 @@ function congruence(L1: Float64Array, M: Float64Array, L2: Float64Array, N: numb
 function above(BtB: Float64Array, Em: Float64Array, N: number, mu: number, work: Float64Array): boolean {
   for (let i = 0; i < N * N; i++) work[i] = -Em[i]! - BtB[i]! / mu;
   for (let i = 0; i < N; i++) work[i * N + i] = work[i * N + i]! + mu;
-  // in-place Cholesky test
-  for (let i = 0; i < N; i++) {
-    for (let j = 0; j <= i; j++) {
-      let s = work[i * N + j]!;
-      for (let k = 0; k < j; k++) s -= work[i * N + k]! * work[j * N + k]!;
-      if (i === j) {
-        if (!(s > 0)) return false;
-        work[i * N + i] = Math.sqrt(s);
-      } else work[i * N + j] = s / work[j * N + j]!;
-    }
-  }
-  return true;
+  return choleskyInPlace(work, N);
 }
 
 let BTB = new Float64Array(0);
