@@ -21,6 +21,7 @@ import {
 } from '../src/index.js';
 import { bendingThunks } from '../src/en1993-1-1/bending-family.js';
 import { shearThunks } from '../src/en1993-1-5/shear-family.js';
+import { effectsOf } from './span-effects.js';
 
 /**
  * The check registry against the library itself: what an entry declares (where the check lives,
@@ -110,25 +111,6 @@ function sectionOf(r: SectionRecord): Section {
     endPost: r.endPost,
     bearing: { bs: 140, ts: 15, e: Math.max(100, 0.12 * r.hw) },
     grade: { web: 'S355', top: 'S355', bot: 'S355', stiffener: 'S355' },
-  };
-}
-
-/** Simply supported span under a UDL w (N/mm) and a central force P (N): closed-form M, V (handbook). */
-function effectsOf(L: number, w: number, P: number, sag: boolean): Effects {
-  const n = 16;
-  const sgn = sag ? 1 : -1;
-  const stations = Array.from({ length: n + 1 }, (_, i) => {
-    const x = (L * i) / n;
-    return { x, MEd: sgn * ((w * x * (L - x)) / 2 + (P * Math.min(x, L - x)) / 2), VEd: sgn * (w * (L / 2 - x) + (x < L / 2 ? P / 2 : -P / 2)) };
-  });
-  return {
-    stations,
-    forces: P > 0 ? [{ x: L / 2, F: P, ss: 150 }] : [],
-    reactions: [
-      { x: 0, R: (w * L + P) / 2 },
-      { x: L, R: (w * L + P) / 2 },
-    ],
-    sls: [{ name: 'total', ratio: 250, points: stations.map((s) => ({ x: s.x, bend: ((w / 1.4) * s.x * (L * L * L - 2 * L * s.x * s.x + s.x * s.x * s.x)) / 24, shear: ((w / 1.4) * s.x * (L - s.x)) / 2 })) }],
   };
 }
 

@@ -2,6 +2,7 @@ import { describe, expect } from 'vitest';
 import { fc, test } from '@fast-check/vitest';
 import { fy } from '@platesmith/catalogue';
 import { chi, chiValue, mcr, mcrOf, assembleVerdict, bearingCandidates, bearingCrushing, flatTorsion, iyNeedRange, minIyForDeflectionAt, checkGirder, defaultOptions, firstFailure, firstFailureAmong, judgeGirder, LAYOUT_IDS, PANEL_ONLY, PLATE_IDS, type Judged, minIyForDeflection, panelsOf, patchBendingFloor, patchBendingMelNeed, patchEta2s, patchUtilisation, prepare, type Effects, type Section } from '../src/index.js';
+import { effectsOf } from './span-effects.js';
 
 /**
  * Properties of the functions the search relies on (no published values: these are consistency
@@ -27,25 +28,6 @@ function sectionOf(r: { hw: number; tw: number; bt: number; tt: number; bb: numb
     stiffeners: r.a === null ? null : { a: r.a, bs: 120, ts: 12, sides: 2 },
     endPost: r.endPost,
     grade: { web: 'S355', top: 'S355', bot: 'S355', stiffener: 'S355' },
-  };
-}
-
-/** Simply supported span under a UDL w (N/mm) and a central force P (N): closed-form M, V (handbook). */
-function effectsOf(L: number, w: number, P: number, sag: boolean): Effects {
-  const n = 16;
-  const sgn = sag ? 1 : -1;
-  const stations = Array.from({ length: n + 1 }, (_, i) => {
-    const x = (L * i) / n;
-    return { x, MEd: sgn * ((w * x * (L - x)) / 2 + (P * Math.min(x, L - x)) / 2), VEd: sgn * (w * (L / 2 - x) + (x < L / 2 ? P / 2 : -P / 2)) };
-  });
-  return {
-    stations,
-    forces: P > 0 ? [{ x: L / 2, F: P, ss: 150 }] : [],
-    reactions: [
-      { x: 0, R: (w * L + P) / 2 },
-      { x: L, R: (w * L + P) / 2 },
-    ],
-    sls: [{ name: 'total', ratio: 250, points: stations.map((s) => ({ x: s.x, bend: ((w / 1.4) * s.x * (L ** 3 - 2 * L * s.x ** 2 + s.x ** 3)) / 24, shear: ((w / 1.4) * s.x * (L - s.x)) / 2 })) }],
   };
 }
 
