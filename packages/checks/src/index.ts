@@ -41,6 +41,7 @@ export {
   panelsOf,
   resolveBearing,
   girderMass,
+  girderSelfWeight,
   assertSection,
   iyOfPlates,
   plateStackMel,

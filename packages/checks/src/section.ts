@@ -1,4 +1,4 @@
-import { DomainError, PLATE_THICKNESSES, STEEL_KG_PER_MM3, fu, fy } from '@platesmith/catalogue';
+import { DomainError, G_ACC, PLATE_THICKNESSES, STEEL_KG_PER_MM3, fu, fy } from '@platesmith/catalogue';
 import type {
   BearingStiffener,
   CheckOptions,
@@ -326,6 +326,18 @@ export function girderMass(s: Section, L: number, supports: readonly number[], b
   const bearingMass = (ends * pairsAtEnd + inner) * 2 * bearing.bs * bearing.ts * s.hw * k;
   const total = web + topFlange + bottomFlange + stiffeners + bearingMass;
   return { web, topFlange, bottomFlange, stiffeners, bearing: bearingMass, total, perMetre: total / (L / 1000) };
+}
+
+/**
+ * The self-weight the girder carries, N/mm (= kN/m): web, flanges and intermediate stiffeners of
+ * this section over the girder's length (bearing stiffeners stand over the supports and load no
+ * span). The one definition: `check` adds it to a problem's actions and the search judges every
+ * candidate with it, so both give a section the same verdict.
+ */
+export function girderSelfWeight(s: Section, supports: readonly number[]): number {
+  const L = supports[supports.length - 1]! - supports[0]!;
+  const m = girderMass(s, L, supports, { bs: 0, ts: 0, e: 0 });
+  return ((m.web + m.topFlange + m.bottomFlange + m.stiffeners) * G_ACC) / L;
 }
 
 /** Validates the geometry a check can be asked about; throws DomainError naming the field. */

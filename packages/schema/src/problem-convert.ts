@@ -1,6 +1,6 @@
 import { analyse, analyseEnvelope, type ActionSpec, type Analysis } from '@platesmith/actions';
-import { DomainError, FLAT_BARS, G_ACC, type GradeName } from '@platesmith/catalogue';
-import { checkGirder, girderMass, type CheckOptions, type Effects, type GirderVerdict, type Section } from '@platesmith/checks';
+import { DomainError, FLAT_BARS, type GradeName } from '@platesmith/catalogue';
+import { checkGirder, girderSelfWeight, type CheckOptions, type Effects, type GirderVerdict, type Section } from '@platesmith/checks';
 import { DEFAULT_COST, defaultSpace, spaceSize, stiffenerStations, type CostModel, type SearchTask, type SpaceSpec } from '@platesmith/search';
 import { designEffects } from '@platesmith/actions';
 import { z } from 'zod';
@@ -69,11 +69,9 @@ export function toAnalysis(p: ProblemJson, extraStations: number[] = []): Analys
   });
 }
 
-/** Self-weight the girder carries, N/mm: web, flanges and intermediate stiffeners (bearing stiffeners stand over the supports). */
+/** Self-weight the girder carries, N/mm: web, flanges and intermediate stiffeners (girderSelfWeight, the search's own). */
 export function selfWeight(s: Section, supports: readonly number[]): number {
-  const L = supports[supports.length - 1]! - supports[0]!;
-  const m = girderMass(s, L, supports, { bs: 0, ts: 0, e: 0 });
-  return ((m.web + m.topFlange + m.bottomFlange + m.stiffeners) * G_ACC) / L;
+  return girderSelfWeight(s, supports);
 }
 
 /**

@@ -1,12 +1,13 @@
-import { checkGirder } from '@platesmith/checks';
-import { prepareSearch, price, selfWeightOf, settle, type BearingFlat, type Evaluated, type SearchProblem } from './core.js';
+import { checkGirder, girderSelfWeight } from '@platesmith/checks';
+import { prepareSearch, price, settle, type BearingFlat, type Evaluated, type SearchProblem } from './core.js';
 import { paretoFront } from './pareto.js';
 import { buildSection, webParts } from './objective.js';
 import { webConfigs } from './space.js';
 
 /**
- * Exhaustive enumeration of the same space with the same check library and the same objective:
- * the ground truth the search is tested against. Only for small spaces.
+ * Exhaustive enumeration of the same space with the same check library and the same objective,
+ * each candidate judged with its own self-weight (girderSelfWeight, as `check` adds it): the ground
+ * truth the search is tested against. Only for small spaces.
  */
 export function bruteForce(p: SearchProblem): { front: Evaluated[]; evaluations: number; feasible: number } {
   const prep = prepareSearch(p);
@@ -30,7 +31,7 @@ export function bruteForce(p: SearchProblem): { front: Evaluated[]; evaluations:
         if (sp.rules.tfMaxOverTw !== undefined && (T.t > sp.rules.tfMaxOverTw * w.tw || B.t > sp.rules.tfMaxOverTw * w.tw)) continue;
         const section = buildSection(w, parts, T, B);
         const { plates } = price(prep, w, parts, T, B, cache, minThroat);
-        const verdict = checkGirder(section, p.load.effects(selfWeightOf(prep, w, T, B)), p.options);
+        const verdict = checkGirder(section, p.load.effects(girderSelfWeight(section, supports)), p.options);
         evaluations++;
         if (!verdict.passes) continue;
         const { mass, value } = settle(prep, w, parts, T, B, plates, verdict, minThroat);

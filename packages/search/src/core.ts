@@ -122,7 +122,7 @@ export function prepareSearch(p: SearchProblem): Prepared {
   const L = supports[supports.length - 1]! - supports[0]!;
   let Lmax = 0;
   for (let i = 1; i < supports.length; i++) Lmax = Math.max(Lmax, supports[i]! - supports[i - 1]!);
-  // the heaviest stiffener layout of the space, per mm of web depth (see selfWeightOf)
+  // the heaviest stiffener layout of the space, per mm of web depth (see selfWeightRange)
   let stiffKgPerHw = 0;
   for (const n of p.space.panels) {
     if (n <= 1) continue;
@@ -132,18 +132,20 @@ export function prepareSearch(p: SearchProblem): Prepared {
   return { p, webs, groups, flanges, groupStart, plateStarts, L, Lmax, supports, fySource, stiffKgPerHw };
 }
 
+/** The relative margin by which selfWeightRange widens its ends (round-off between two ways of summing the same masses). */
+const G_RANGE_MARGIN = 1e-12;
+
 /**
- * The self-weight a candidate's effects are computed with, N/mm: web and flanges, plus the
- * intermediate stiffeners of the heaviest layout in the space (conservative by at most that
- * layout's weight, about 1–3 % of the girder's). Taking the same allowance for every stiffener
- * layout makes the effects, and so every check that does not read the stiffeners (bending,
- * lateral-torsional buckling, deflection, flange-induced buckling, plastic shear), identical
- * across the layouts of one web and flange choice: a failure of one of those checks then fails
- * every layout, exactly. Bearing stiffeners stand over the supports and load no span.
+ * The self-weights (N/mm) of every candidate on web plate w (its depth and thickness) with flanges
+ * T and B lie in [lo, hi]: lo, the bare plates (no intermediate stiffeners), and hi, the plates with
+ * the heaviest stiffener layout of the space, each widened by a hair for round-off. Only bounds
+ * read this range: a candidate's verdict reads its own girderSelfWeight, as `check` does (the
+ * heaviest layout's self-weight is never a verdict: it would fail a lighter layout that passes).
  */
-export function selfWeightOf(prep: Prepared, w: WebConfig, T: FlangeOption, B: FlangeOption): number {
-  const kg = w.hw * w.tw * prep.L * KG_PER_MM3 + (flangeMass(T, prep.L) + flangeMass(B, prep.L)) + prep.stiffKgPerHw * w.hw;
-  return (kg * G_ACC) / prep.L;
+export function selfWeightRange(prep: Prepared, w: WebConfig, T: FlangeOption, B: FlangeOption): readonly [number, number] {
+  const L = prep.L;
+  const bare = w.hw * w.tw * L * KG_PER_MM3 + (flangeMass(T, L) + flangeMass(B, L));
+  return [((bare * G_ACC) / L) * (1 - G_RANGE_MARGIN), (((bare + prep.stiffKgPerHw * w.hw) * G_ACC) / L) * (1 + G_RANGE_MARGIN)];
 }
 
 export function throatOf(v: GirderVerdict, fallback: number): number {

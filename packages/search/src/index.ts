@@ -15,9 +15,9 @@ export {
   type CostModel,
   type WeldProcess,
 } from './objective.js';
-export { fixedLoadModel, affineDemandBound, analysisLoadModel, analysisDemandBound, analysisMomentEnvelope, momentEnvelopeFor, type LoadModel, type DemandBound, type AffineDemand } from './load.js';
+export { fixedLoadModel, affineDemandBound, analysisLoadModel, analysisDemandBound, analysisMomentEnvelope, analysisReactionFloor, momentEnvelopeFor, type LoadModel, type DemandBound, type AffineDemand } from './load.js';
 export { searchSlice, unitSlot, type OuterBound, type SlicePart } from './slice/best-first.js';
-export { prepareSearch, better, type SearchProblem, type Objective, type Evaluated, type CandidateKey, type SliceResult, type PruneStats, type Prepared } from './core.js';
+export { prepareSearch, selfWeightRange, better, type SearchProblem, type Objective, type Evaluated, type CandidateKey, type SliceResult, type PruneStats, type Prepared } from './core.js';
 export { paretoFront } from './pareto.js';
 export { bruteForce } from './brute.js';
 export { search, mergeSlices, watchStop, type SearchResult, type SearchStatus } from './search.js';

@@ -1,6 +1,6 @@
 import type { Effects, MomentEnvelope } from '@platesmith/checks';
 import { momentEnvelopeOf, negligibleMoment, SAME_POSITION_MM, spanAt } from '@platesmith/checks';
-import { designEffects, designReaction, type Analysis } from '@platesmith/actions';
+import { designEffects, type Analysis } from '@platesmith/actions';
 
 /**
  * What the search needs of the actions: design effects for a candidate's own self-weight g
@@ -34,8 +34,10 @@ export interface LoadModel {
    * [hogLo, hogHi] (N·mm, all ≥ 0).
    */
   momentEnvelopeRange?(gLo: number, gHi: number): MomentRange;
-  /** max |R| over the support reactions of effects(g), bit for bit */
-  maxReaction?(g: number): number;
+  /** for every g in [gLo, gHi], max |R| over the support reactions of effects(g) is at least this */
+  reactionFloor?(gLo: number, gHi: number): number;
+  /** effects(g) is the same for every g (the user's own effects: no self-weight added) */
+  selfWeightFree?: boolean;
 }
 
 export interface MomentRange {
@@ -91,7 +93,7 @@ export function fixedLoadModel(e: Effects): LoadModel {
   }
   const bound = signed(Msag, Mhog, V, Msag > 0, Mhog > 0, Math.max(Msag, Mhog));
   const env = momentEnvelopeOf(e.stations);
-  return { effects: () => e, demandLowerBound: () => bound, deflectionFloor: () => [], momentEnvelope: () => env };
+  return { effects: () => e, demandLowerBound: () => bound, deflectionFloor: () => [], momentEnvelope: () => env, selfWeightFree: true };
 }
 
 /**
@@ -180,15 +182,37 @@ export function analysisLoadModel(a: Analysis): LoadModel {
     deflectionAffine: analysisDeflectionAffine(a),
     sagFloorAt: (xs, gLo, gHi) => xs.map((x) => analysisSagFloorAt(a, x, gLo, gHi)),
     momentEnvelope: momentEnvelopeFor(a),
-    maxReaction: (g) => analysisMaxReaction(a, g),
+    reactionFloor: (gLo, gHi) => analysisReactionFloor(a, gLo, gHi),
     ...rangeOf(a),
   };
 }
 
-/** max |R| over the supports of designEffects(a, g).reactions (the same function gives both). */
-export function analysisMaxReaction(a: Analysis, g: number): number {
+/**
+ * A lower bound, for every g in [gLo, gHi], on max |R| over the supports of
+ * designEffects(a, g).reactions (designReaction). Per support R(g) is the largest of terms
+ * RA + γ·(g·Rg), each affine in g, so R(g) is at least each term's smaller end value; and −R(g) is
+ * the least of the negated terms, whose least over the range is at an end. |R| is at least both
+ * (rounding is monotone, so the computed terms obey the same order).
+ */
+export function analysisReactionFloor(a: Analysis, gLo: number, gHi: number): number {
+  const nR = a.reactionX.length;
+  const nC = a.gammaG.length;
   let out = 0;
-  for (let r = 0; r < a.reactionX.length; r++) out = Math.max(out, Math.abs(designReaction(a, r, g)));
+  for (let r = 0; r < nR; r++) {
+    const lo = gLo * a.Rg[r]!;
+    const hi = gHi * a.Rg[r]!;
+    let up = -Infinity;
+    let R0 = -Infinity;
+    let R1 = -Infinity;
+    for (let c = 0; c < nC; c++) {
+      const v0 = a.RA[c * nR + r]! + a.gammaG[c]! * lo;
+      const v1 = a.RA[c * nR + r]! + a.gammaG[c]! * hi;
+      up = Math.max(up, Math.min(v0, v1));
+      R0 = Math.max(R0, v0);
+      R1 = Math.max(R1, v1);
+    }
+    out = Math.max(out, up, -Math.max(R0, R1));
+  }
   return out;
 }
 

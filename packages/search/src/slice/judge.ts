@@ -1,15 +1,18 @@
 /**
- * Judging: a set of plates is screened for lateral-torsional buckling, then its stiffener layouts
- * are judged by the check library in ascending lower bound. The checks that read no layout are
- * judged once per set of plates; a failure that depends only on the panels (and end post), or
- * only on the web and its stiffeners, is shared with the layouts it also fails. A candidate that
- * passes gets checkGirder's verdict (assembleVerdict joins the two parts; a property test keeps
- * them equal), so it is never judged again.
+ * Judging: a set of plates is screened for lateral-torsional buckling over the self-weights of
+ * its layouts, then its stiffener layouts are judged by the check library in ascending lower
+ * bound, each with its own self-weight (girderSelfWeight, as `check` adds it: layouts differ in
+ * stiffener mass, so in effects). The checks that read no layout are judged once per set of
+ * plates and self-weight; a failure that depends only on the panels (and end post) and the
+ * loads is shared with the layouts of the same self-weight, one that depends only on the web and
+ * its stiffeners with every layout it also fails. A candidate that passes gets checkGirder's
+ * verdict (assembleVerdict joins the two parts; a property test keeps them equal), so it is
+ * never judged again.
  */
-import { assembleVerdict, failsWebOnly, firstFailureAmong, LAYOUT_IDS, PANEL_ONLY, PLATE_IDS, type Judged } from '@platesmith/checks';
+import { assembleVerdict, failsWebOnly, firstFailureAmong, girderSelfWeight, LAYOUT_IDS, PANEL_ONLY, PLATE_IDS, type CheckResult, type Judged } from '@platesmith/checks';
 import { priceCost, settle, type CandidateKey } from '../core.js';
 import { buildSection, flangeMass } from '../objective.js';
-import { ltbFails } from './ltb.js';
+import { ltbFailsAt, ltbPlatesFail } from './ltb.js';
 import { bearingFloorFor, bearingFloorOf, bearingFlatCount, flatFailsTorsion, panelOk, partOf } from './plate-tables.js';
 import { admit, keepMiss, prunes } from './staircase.js';
 import { doubles, KG_PER_MM3, type LayoutsNode, type PlatesNode, type SliceState } from './state.js';
@@ -28,16 +31,15 @@ export function judgePlates(s: SliceState, nd: PlatesNode): void {
     return;
   }
   const section = buildSection(webs.at(plate.layouts[0]!), partOf(s, plate, 0), T, B);
-  if (ltbFails(s, section, ps.g)) {
+  if (ltbPlatesFail(s, ps, section)) {
     pruned.lateralTorsional += nL;
-    keepMiss(s, { key: [plate.layouts[0]!, ps.ti, ps.bi], section, depth: d, g: ps.g, lb: nd.lb });
+    keepMiss(s, { key: [plate.layouts[0]!, ps.ti, ps.bi], section, depth: d, g: girderSelfWeight(section, s.supports), lb: nd.lb });
     return;
   }
-  if (ps.fit && !p.load.maxReaction) {
-    const effects = (ps.effects = p.load.effects(ps.g));
-    // a load model without maxReaction: the bearing floor from the reactions of the effects
+  if (ps.fit && !p.load.reactionFloor && p.load.selfWeightFree) {
+    // a load model without reactionFloor whose effects do not read g: the bearing floor from its reactions
     let R = 0;
-    for (const r of effects.reactions) R = Math.max(R, Math.abs(r.R));
+    for (const r of p.load.effects(ps.gLo).reactions) R = Math.max(R, Math.abs(r.R));
     const fit = bearingFloorFor(s, plate, Math.min(T.b, B.b), R);
     if (fit === 'none') {
       pruned.bearing += nL;
@@ -123,56 +125,76 @@ export function judgeLayouts(s: SliceState, nd: LayoutsNode): void {
       pruned.patchLoading++;
       continue;
     }
-    // panels and end post (the panel-only checks read nothing else of the layout)
+    // panels and end post (the panel-only checks read nothing else of the layout, and the loads)
     const panelKey = 2 * w.panels + (w.endPost === 'rigid' ? 1 : 0);
-    if (ps.panelDead?.has(panelKey)) {
+    const parts = partOf(s, plate, j);
+    const section = buildSection(w, parts, T, B);
+    // the layout's own self-weight, as `check` adds it: its verdict reads nothing else
+    const g = girderSelfWeight(section, s.supports);
+    const key: CandidateKey = [wi, ps.ti, ps.bi];
+    if (ps.panelDead?.get(g)?.has(panelKey)) {
       pruned.sameFlanges++;
       continue;
     }
-    const parts = partOf(s, plate, j);
-    const section = buildSection(w, parts, T, B);
+    if (ltbFailsAt(s, ps, g)) {
+      pruned.lateralTorsional++;
+      keepMiss(s, { key, section, depth: d, g, lb });
+      continue;
+    }
     const judged: Judged = { results: [] };
-    const known = ps.panelPassed?.get(panelKey);
-    const effects = (ps.effects ??= p.load.effects(ps.g));
+    const known = ps.panelPassed?.get(g)?.get(panelKey);
+    if (ps.effectsG !== g) {
+      ps.effects = p.load.effects(g);
+      ps.effectsG = g;
+    }
+    const effects = ps.effects!;
     const fail = firstFailureAmong(section, effects, o, LAYOUT_IDS, judged, known);
-    // the panel-only checks that passed here pass, with the same results, on every flat and side
+    // the panel-only checks that passed here pass, with the same results, on every flat and side of the same self-weight
     for (const r of judged.results) {
       if (!PANEL_ONLY.has(r.id) || !r.passes || known?.has(r.id)) continue;
-      const panelMap = (ps.panelPassed ??= new Map());
-      let got = panelMap.get(panelKey);
-      if (!got) panelMap.set(panelKey, (got = new Map()));
+      const byG = (ps.panelPassed ??= new Map());
+      let atG = byG.get(g);
+      if (!atG) byG.set(g, (atG = new Map()));
+      let got = atG.get(panelKey);
+      if (!got) atG.set(panelKey, (got = new Map()));
       got.set(r.id, r);
     }
-    // each layout judged completes a judgement (the plates' part was judged once for all of them);
+    // each layout judged completes a judgement (the plates' part is judged once per self-weight);
     // layouts dropped before it are counted under their reason, so every candidate counts once
     ps.layoutCalls++;
     s.fullEvaluations++;
-    const key: CandidateKey = [wi, ps.ti, ps.bi];
-    if (fail === null && !ps.plateResults) {
-      // the layout-free checks, once for these plates, now that a layout needs their verdict
-      const pj: Judged = { results: [] };
-      const plateFail = firstFailureAmong(ps.section!, effects, o, PLATE_IDS, pj);
-      if (plateFail) {
-        // it fails every layout of these plates: the rest are dropped with this one
-        failedBy[plateFail.id] = (failedBy[plateFail.id] ?? 0) + 1;
-        keepMiss(s, { key, section, depth: d, g: ps.g, lb });
-        pruned.sameFlanges += order.length - ps.k;
-        ps.k = order.length;
-        return;
-      }
-      ps.plateResults = pj.results;
-    }
     if (fail === null) {
+      // the layout-free checks, once per self-weight of these plates, now that a layout needs their verdict
+      const plateResults = (ps.plateResults ??= new Map());
+      let got = plateResults.get(g);
+      if (got === undefined) {
+        const pj: Judged = { results: [] };
+        const plateFail = firstFailureAmong(ps.section!, effects, o, PLATE_IDS, pj);
+        got = plateFail ?? pj.results;
+        plateResults.set(g, got);
+      }
+      if (!Array.isArray(got)) {
+        // it fails every layout of these plates with this self-weight (the others are judged at their own)
+        const plateFail = got as CheckResult;
+        failedBy[plateFail.id] = (failedBy[plateFail.id] ?? 0) + 1;
+        keepMiss(s, { key, section, depth: d, g, lb });
+        continue;
+      }
       // both parts passed: together they are checkGirder's verdict (a property test keeps them equal)
-      const verdict = assembleVerdict([...ps.plateResults!, ...judged.results], judged.bearing!, judged.bearingSized!);
+      const verdict = assembleVerdict([...got, ...judged.results], judged.bearing!, judged.bearingSized!);
       const plates = parts.webMass + parts.stiffMass + (flangeMass(T, L) + flangeMass(B, L));
       const { mass, value } = settle(s.prep, w, parts, T, B, plates, verdict, s.throat0);
       admit(s, { key, section: { ...section, bearing: verdict.bearing }, depth: d, mass, value, verdict });
       continue;
     }
     failedBy[fail.id] = (failedBy[fail.id] ?? 0) + 1;
-    keepMiss(s, { key, section, depth: d, g: ps.g, lb });
+    keepMiss(s, { key, section, depth: d, g, lb });
     if (failsWebOnly(fail)) s.webDead.add(wi);
-    else if (PANEL_ONLY.has(fail.id)) (ps.panelDead ??= new Set()).add(panelKey);
+    else if (PANEL_ONLY.has(fail.id)) {
+      const byG = (ps.panelDead ??= new Map());
+      let dead = byG.get(g);
+      if (!dead) byG.set(g, (dead = new Set()));
+      dead.add(panelKey);
+    }
   }
 }

@@ -5,12 +5,12 @@
  * A bound drops a set only on a clear failure: above 1 by a margin that covers round-off.
  */
 import { bendingForSign, ltbUtilisation, material, prepare, type Material, type Section, type SignBending } from '@platesmith/checks';
-import { selfWeightOf } from '../core.js';
+import { selfWeightRange } from '../core.js';
 import type { Segments } from '../ltb-bound.js';
 import { buildSection } from '../objective.js';
 import type { FlangeOption } from '../space.js';
 import { partOf } from './plate-tables.js';
-import type { RunNode, SliceState } from './state.js';
+import type { Plates, RunNode, SliceState } from './state.js';
 
 /** The set bound drops a set only above this (the margin covers the round-off of bound against check). */
 const LTB_SET_LIMIT = 1 + 1e-6;
@@ -20,13 +20,13 @@ export function boundsSide(s: SliceState, top: boolean): boolean {
   return s.ltbSet!.bounds(top) && s.signPresent[top ? 'top' : 'bot'];
 }
 
-/** The least and greatest self-weight of the run's pairs (the self-weight grows with each flange's area). */
+/** A range holding the self-weight of every candidate of the run: its lightest pair bare, its heaviest with the heaviest stiffener layout (the self-weight grows with each flange's area). */
 export function runSelfWeights(s: SliceState, c: RunNode): readonly [number, number] {
   const w = c.plate.w;
   const byArea = (os: readonly FlangeOption[]) => [os.reduce((a, b) => (b.A < a.A ? b : a)), os.reduce((a, b) => (b.A > a.A ? b : a))] as const;
   const [tLo, tHi] = byArea(s.groups[c.gt]!.options);
   const [bLo, bHi] = byArea(s.groups[c.gb]!.options);
-  return [selfWeightOf(s.prep, w, tLo, bLo), selfWeightOf(s.prep, w, tHi, bHi)];
+  return [selfWeightRange(s.prep, w, tLo, bLo)[0], selfWeightRange(s.prep, w, tHi, bHi)[1]];
 }
 
 /**
@@ -130,4 +130,38 @@ export function ltbFails(s: SliceState, section: Section, g: number): boolean {
   const memo: Partial<Record<'top' | 'bot', SignBending>> = {};
   const u = ltbUtilisation(ctx, s.envelopeOf(g), (side) => (memo[side] ??= bendingForSign(ctx, side)), LTB_SCREEN_LIMIT);
   return !(u <= LTB_SCREEN_LIMIT);
+}
+
+/**
+ * Whether every layout of a set of plates fails lateral-torsional buckling, whatever its own
+ * self-weight in [gLo, gHi]: the check's own computation where the effects do not read the
+ * self-weight, else the set bound on this one section over the moment range of that self-weight
+ * range (the layouts differ only in stiffener mass, which LTB reads through the loads alone).
+ */
+export function ltbPlatesFail(s: SliceState, ps: Plates, section: Section): boolean {
+  if (s.p.load.selfWeightFree) return ltbFails(s, section, ps.gLo);
+  if (!s.ltbSet) return false;
+  let range: ReturnType<NonNullable<SliceState['p']['load']['momentEnvelopeRange']>> | undefined;
+  for (const top of [true, false]) {
+    if (!boundsSide(s, top)) continue;
+    range ??= s.p.load.momentEnvelopeRange!(ps.gLo, ps.gHi);
+    if (s.ltbSet.over(s.ltbSet.segments(range, top), section, top, [top ? ps.B.b : ps.T.b], LTB_SET_LIMIT) > LTB_SET_LIMIT) return true;
+  }
+  return false;
+}
+
+/**
+ * ltbFails for a layout of ps at its own self-weight g, once per distinct g of the set (layouts
+ * with the same stiffener mass share it): the exact screen where the set bound could not decide.
+ * Only a self-weight range too wide for the set bound, or a side it does not bound, gets here with
+ * a failure; the layout-free checks would find it too, after the layout checks.
+ */
+export function ltbFailsAt(s: SliceState, ps: Plates, g: number): boolean {
+  const memo = (ps.ltbAt ??= new Map());
+  let dead = memo.get(g);
+  if (dead === undefined) {
+    dead = ltbFails(s, ps.section!, g);
+    memo.set(g, dead);
+  }
+  return dead;
 }

@@ -3,8 +3,8 @@
  * whole run, the bounds of one pair of it (tryPair, shared with the mono-symmetric grid), and the
  * enumeration of a symmetric run, whose pairs are one option used twice in ascending mass.
  */
-import { flangeOutstand, iyNeedRange, iyOfPlates, minIyForDeflectionAt, type IyNeedRange } from '@platesmith/checks';
-import { selfWeightOf } from '../core.js';
+import { flangeOutstand, iyNeedRange, iyOfPlates, type IyNeedRange } from '@platesmith/checks';
+import { selfWeightRange } from '../core.js';
 import type { DeflectionAffine } from '../load.js';
 import type { FlangeOption } from '../space.js';
 import { floorOf, surfaceOf } from './cost-floor.js';
@@ -39,8 +39,8 @@ export function iyRangeOf(s: SliceState, c: RunNode, da: DeflectionAffine): IyNe
   // flanges), once per plate; a run's range lies within, so those points give its exact answer
   const plate = c.plate;
   if (!plate.iyPoints) {
-    const gLo = selfWeightOf(s.prep, w, s.lightestOption, s.lightestOption);
-    const gHi = selfWeightOf(s.prep, w, s.heaviestOption, s.heaviestOption);
+    const gLo = selfWeightRange(s.prep, w, s.lightestOption, s.lightestOption)[0];
+    const gHi = selfWeightRange(s.prep, w, s.heaviestOption, s.heaviestOption)[1];
     plate.iyPoints = iyNeedRange(gLo, gHi, da.bA, da.bB, da.sA, da.sB, da.limit, w.hw * w.tw, o.E, o.G).points;
   }
   const [gLo, gHi] = runSelfWeights(s, c);
@@ -74,19 +74,20 @@ export function tryPair(s: SliceState, c: RunNode, ti: number, bi: number, kg: n
     pruned.deflection += nL;
     return;
   }
-  const g = selfWeightOf(s.prep, w, T, B);
-  // the deflection bound again, at these plates' own self-weight (decided by the run's range when it can be)
+  // every layout's own self-weight lies in this range: the bounds below hold over all of it
+  const [gLo, gHi] = selfWeightRange(s.prep, w, T, B);
+  // the deflection bound again, over these plates' range (decided by the run's range when it can be)
   const da = p.load.deflectionAffine;
   if (da) {
     const r = iyRangeOf(s, c, da);
-    if (Iy < r.lo || (Iy < r.hi && Iy < minIyForDeflectionAt(g, da.bA, da.bB, da.sA, da.sB, da.limit, w.hw * w.tw, o.E, o.G, r.points))) {
+    if (Iy < r.lo || (Iy < r.hi && Iy < iyNeedRange(gLo, gHi, da.bA, da.bB, da.sA, da.sB, da.limit, w.hw * w.tw, o.E, o.G, r.points).lo)) {
       pruned.deflection += nL;
       return;
     }
   }
   // patch loading reads the web, the top flange and the panels: some panel count must pass it
   // (the first that does is enough here; the others are judged when a layout asks)
-  const ps: Plates = { plate, ti, bi, T, B, d, g, fit: null, MelRd: 0, k: 0, layoutCalls: 0, panelDead: null };
+  const ps: Plates = { plate, ti, bi, T, B, d, gLo, gHi, fit: null, MelRd: 0, k: 0, layoutCalls: 0, panelDead: null };
   if (s.forces.length > 0) {
     let any = false;
     let patchFails = false;
@@ -103,8 +104,8 @@ export function tryPair(s: SliceState, c: RunNode, ti: number, bi: number, kg: n
       return;
     }
   }
-  // the bearing flats at least as heavy as the sizing needs for these plates' own reaction
-  const fit = bearingFloorFor(s, plate, Math.min(T.b, B.b), p.load.maxReaction ? p.load.maxReaction(g) : 0);
+  // the bearing flats at least as heavy as the sizing needs for the least reaction over the range
+  const fit = bearingFloorFor(s, plate, Math.min(T.b, B.b), p.load.reactionFloor ? p.load.reactionFloor(gLo, gHi) : 0);
   if (fit === 'none') {
     pruned.bearing += nL;
     return;

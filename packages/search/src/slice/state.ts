@@ -78,22 +78,32 @@ export interface Plates {
   T: FlangeOption;
   B: FlangeOption;
   d: number;
-  g: number;
+  /** every layout's own self-weight lies in [gLo, gHi] (selfWeightRange): what the bounds read */
+  gLo: number;
+  gHi: number;
   fit: BearingFlat | null;
   /** Mel,Rd of the gross section (0 until needed) */
   MelRd: number;
+  /** the effects of the last layout judged, at its own self-weight effectsG (the next layout often has the same) */
   effects?: Effects;
-  /** the results of the layout-free checks (all passed), once a layout has passed the others */
-  plateResults?: Judged['results'];
+  effectsG?: number;
+  /**
+   * per own self-weight: the layout-free checks' results (all passed), or the first that failed.
+   * Layouts with the same stiffener mass share one (their self-weight is the same float).
+   */
+  plateResults?: Map<number, Judged['results'] | CheckResult>;
+  /** per own self-weight: whether the exact LTB screen fails it (ltbFailsAt) */
+  ltbAt?: Map<number, boolean>;
   /** the section of layout 0 (the layout-free checks read its plates only) */
   section?: Section;
   order?: Int32Array;
   lbs?: number[];
   k: number;
   layoutCalls: number;
-  panelDead: Set<number> | null;
-  /** per panels and end post: the PANEL_ONLY results that passed on one layout (the same on every flat and side) */
-  panelPassed?: Map<number, Map<CheckId, CheckResult>>;
+  /** per own self-weight, the panels and end posts (panelKey) that failed a PANEL_ONLY check */
+  panelDead: Map<number, Set<number>> | null;
+  /** per own self-weight, per panels and end post: the PANEL_ONLY results that passed on one layout (the same on every flat and side of that self-weight) */
+  panelPassed?: Map<number, Map<number, Map<CheckId, CheckResult>>>;
 }
 
 /**
