@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { availableParallelism } from 'node:os';
 import { Piscina } from 'piscina';
 import { mergeSlices, type SearchResult } from './search.js';
+import { explained, needsMisses, type Explanation } from './limits.js';
 import { assertSpace, flangeGroups, spaceSize, webPlateCounts } from './space.js';
 import type { SearchTask } from './task.js';
 import { zeroPrunes, type SliceResult } from './core.js';
@@ -73,6 +74,8 @@ export interface PoolSearchOptions {
   /** after `stop`, how long the workers may take to return before they are aborted, ms (default 2000) */
   stopGraceMs?: number;
   onSlice?: (done: number, total: number) => void;
+  /** each Pareto point with what rules out its lighter neighbours, and the nearest misses always present (limits.ts), judged on the workers */
+  explain?: boolean;
 }
 
 export async function searchOnPool(pool: SearchPool, task: SearchTask, o: PoolSearchOptions = {}): Promise<SearchResult> {
@@ -124,7 +127,17 @@ export async function searchOnPool(pool: SearchPool, task: SearchTask, o: PoolSe
       else if (late.signal.aborted) results.push({ front: [], nearMisses: [], spaceSize: 0, fullEvaluations: 0, pruned: zeroPrunes(), failedBy: {}, complete: false });
       else throw s.reason;
     }
-    return mergeSlices(results, performance.now() - t0, pool.threads, n, spaceSize(task.space));
+    const merged = mergeSlices(results, performance.now() - t0, pool.threads, n, spaceSize(task.space));
+    if (!o.explain) return merged;
+    // the points dealt round-robin to the workers (deeper points have heavier plates, not more work)
+    const parts = Array.from({ length: Math.max(1, Math.min(pool.threads, merged.pareto.length)) }, (_, k) => merged.pareto.filter((_, i) => i % pool.threads === k));
+    const misses = needsMisses(merged);
+    const answers = await Promise.all(
+      parts.map((points, k) => pool.piscina.run({ kind: 'explain', task, searchId, points, misses: misses && k === 0 } satisfies WorkerMessage, o.signal ? { signal: o.signal } : {}) as Promise<Explanation>),
+    );
+    const explainedPoints: Explanation['points'] = new Array(merged.pareto.length);
+    answers.forEach((a, k) => a.points.forEach((x, j) => (explainedPoints[j * pool.threads + k] = x)));
+    return { ...explained(merged, { points: explainedPoints, misses: answers[0]!.misses }), stats: { ...merged.stats, wallMs: performance.now() - t0 } };
   } finally {
     clearTimeout(grace);
     o.stop?.removeEventListener('abort', onStop);

@@ -162,6 +162,7 @@ export function createEngine(opts: EngineOptions = {}): Engine {
             ...(budget ? { stop: budget } : {}),
             ...(opts.stopGraceMs !== undefined ? { stopGraceMs: opts.stopGraceMs } : {}),
             ...(o.onSlice ? { onSlice: o.onSlice } : {}),
+            explain: true,
           });
         } catch (e) {
           throw failure(e, o, undefined);

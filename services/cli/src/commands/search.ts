@@ -1,5 +1,5 @@
 import { createEngine } from '@platesmith/app';
-import { formatIssues, parseWith, SearchInput, type PublishedSearch } from '@platesmith/schema';
+import { edgeNote, formatIssues, parseWith, SearchInput, type PublishedPoint, type PublishedSearch } from '@platesmith/schema';
 import { EXIT, InputError, type Out } from '../io.js';
 import { caution, renderAssumptions } from '../render.js';
 import { count, fmt, progressBar, table, TABLE_WIDTH } from '../table.js';
@@ -60,7 +60,7 @@ export function renderSearch(r: PublishedSearch, title?: string, wide = false): 
     lines.push(`Pareto set: overall depth against ${r.objective} (each row: nothing shallower or as shallow is lighter)`);
     lines.push(
       table(
-        ['depth (mm)', 'mass (kg)', 'kg/m', ...(r.objective === 'cost' ? [unit] : []), 'section', 'governing check', ...(wide ? ['clause'] : []), 'util.'],
+        ['depth (mm)', 'mass (kg)', 'kg/m', ...(r.objective === 'cost' ? [unit] : []), 'section', 'governing check', ...(wide ? ['clause'] : []), 'util.', 'not lighter because'],
         r.pareto.map((p) => [
           p.depth,
           fmt(p.mass, 5),
@@ -70,19 +70,54 @@ export function renderSearch(r: PublishedSearch, title?: string, wide = false): 
           p.governing.id,
           ...(wide ? [p.governing.clause] : []),
           p.governing.utilisation?.toFixed(3) ?? 'inf',
+          limitsText(p.limitedBy, r.objective),
         ]),
-        ['r', 'r', 'r', ...(r.objective === 'cost' ? ['r' as const] : []), 'l', 'l', ...(wide ? ['l' as const] : []), 'r'],
+        ['r', 'r', 'r', ...(r.objective === 'cost' ? ['r' as const] : []), 'l', 'l', ...(wide ? ['l' as const] : []), 'r', 'l'],
         max,
       ),
     );
+    lines.push(`not lighter because: each one-step lighter change (${LIMIT_LEGEND}) and the check that fails it with its utilisation; "heavier": it passes but is no ${r.objective === 'cost' ? 'cheaper' : 'lighter'} overall`);
     const l = r.lightest!;
     lines.push('', `Lightest${r.objective === 'cost' ? ' (cheapest)' : ''}: ${describe(l.section)} — ${fmt(l.mass, 5)} kg, depth ${l.depth} mm, governed by ${l.governing.id} (${l.governing.clause}) at ${l.governing.utilisation?.toFixed(3)}`);
+    for (const x of l.limitedBy ?? []) lines.push(`  ${x.change} mm: ${limitWords(x, r.objective)}`);
+    const edge = edgeNote(r);
+    if (edge) lines.push(`  Note: ${edge}.`);
   }
   const s = r.stats;
   const assumed = renderAssumptions(r.assumptions ?? []);
   if (assumed) lines.push('', assumed.trimEnd());
   lines.push('', `Searched ${count(s.spaceSize)} candidates exactly: ${count(s.fullEvaluations)} judged (${((s.fullEvaluations / Math.max(1, s.spaceSize)) * 100).toPrecision(2)} %), the rest pruned by bounds (depth ${s.pruned.depth}, shear ${s.pruned.shear}, bending ${s.pruned.bending}, flange-induced buckling ${s.pruned.flangeInducedBuckling}, deflection ${s.pruned.deflection}, patch loading ${s.pruned.patchLoading}, patch loading with bending ${s.pruned.patchBending}, lateral-torsional buckling from the moment envelope ${s.pruned.lateralTorsional}, bearing stiffener ${s.pruned.bearing}, shared with a failed candidate of the same plates ${s.pruned.sameFlanges}, stiffener layout failed on another flange ${s.pruned.webOnly}, incumbent ${s.pruned.incumbent}, rules ${s.pruned.rules}); ${s.wallMs.toFixed(0)} ms on ${s.workers} workers.`);
   return lines.join('\n');
+}
+
+const LIMIT_SHORT: Record<NonNullable<PublishedPoint['limitedBy']>[number]['move'], string> = {
+  'web-thickness': 'tw−',
+  'flange-thickness': 'tf−',
+  'top-flange-thickness': 'tf,top−',
+  'bottom-flange-thickness': 'tf,bot−',
+  'flange-width': 'bf−',
+  'top-flange-width': 'bf,top−',
+  'bottom-flange-width': 'bf,bot−',
+  'fewer-panels': 'panels−',
+  'lighter-flats': 'flats−',
+  'one-side': '1 side',
+};
+const LIMIT_LEGEND = 'tw− thinner web, tf− thinner flanges, bf− narrower flanges, panels− fewer panels, flats− lighter flats, 1 side: stiffeners on one side';
+
+/** A point's limitedBy in a table cell: the lighter changes the space holds, and what rules each out. */
+export function limitsText(limits: PublishedPoint['limitedBy'], objective: PublishedSearch['objective']): string {
+  if (!limits) return '—';
+  if (limits.length === 0) return 'no lighter plate in the space';
+  const cells = limits.filter((l) => l.outcome !== 'outside-space').map((l) => `${LIMIT_SHORT[l.move]} ${l.outcome === 'fails' ? `${l.check} ${l.utilisation?.toFixed(2) ?? 'inf'}` : l.outcome === 'not-lighter' ? (objective === 'cost' ? 'costlier' : 'heavier') : 'PASSES'}`);
+  return cells.length > 0 ? cells.join('; ') : 'nothing lighter in the space';
+}
+
+/** One limit in words. */
+function limitWords(l: NonNullable<PublishedPoint['limitedBy']>[number], objective: PublishedSearch['objective']): string {
+  if (l.outcome === 'fails') return `fails ${l.check} (${l.clause}) at ${l.utilisation?.toFixed(3) ?? 'an unbounded utilisation'}`;
+  if (l.outcome === 'not-lighter') return `passes, but is no ${objective === 'cost' ? 'cheaper' : 'lighter'} overall (${fmt(l.value ?? 0, 5)} ${objective === 'cost' ? 'cost units' : 'kg'})`;
+  if (l.outcome === 'outside-space') return `not in the space (${l.reason})`;
+  return 'passes and is lighter: please report this answer (the search is meant to be exact)';
 }
 
 /** Short plate description: web hw×tw, flanges b×t, stiffeners, end post, grade. */
