@@ -4,6 +4,7 @@ import { DEFAULT_SPACE_CAP } from '@platesmith/schema';
 import { runSchedule } from '@platesmith/schedule';
 import Fastify, { LogController, type FastifyBaseLogger, type FastifyInstance, type FastifyServerOptions } from 'fastify';
 import { ApiError } from './errors.js';
+import { embeddedJobs, type Jobs } from './jobs/jobs.js';
 import { JobManager, type JobManagerOptions } from './jobs/manager.js';
 import type { ApiKeys } from './keys.js';
 import { accessPlugin } from './plugins/access.js';
@@ -19,6 +20,9 @@ import { recordRoutes } from './routes/records.js';
 import { scheduleRoutes } from './routes/schedules.js';
 import { searchRoutes } from './routes/searches.js';
 import { zodValidator } from './validate.js';
+import { metricsRoutes } from './metrics.js';
+import { QueueJobs } from './queue/backend.js';
+import type { QueueConfig } from './queue/names.js';
 
 export interface ApiOptions {
   /** fastify's logger option (pino options or true/false); default false */
@@ -61,11 +65,17 @@ export interface ApiOptions {
   rateLimit?: number;
   /** per-key quota, time budgets and retention of schedule jobs (PLATESMITH_JOB_QUOTA, _MARK_BUDGET_MS, _JOB_BUDGET_MS, _JOB_RETENTION) */
   jobs?: Pick<JobManagerOptions, 'quota' | 'markBudgetMs' | 'jobBudgetMs' | 'retentionMs'>;
+  /**
+   * the queue backend (PLATESMITH_QUEUE=redis://host:port): jobs in Redis, marks run by `platesmith
+   * worker` processes on BullMQ, the rate limit's counts in Redis; absent: the embedded backend
+   * (jobStore and this process's pool)
+   */
+  queue?: QueueConfig;
 }
 
 declare module 'fastify' {
   interface FastifyInstance {
-    jobs: JobManager;
+    jobs: Jobs;
     /** aborts when the service starts closing: in-flight checks, analyses and searches stop */
     shutdownSignal: AbortSignal;
   }
@@ -126,7 +136,17 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
     ...(opts.maxEventLoopDelayMs !== undefined ? { maxEventLoopDelayMs: opts.maxEventLoopDelayMs } : {}),
     ...(opts.allowedHosts !== undefined ? { allowedHosts: opts.allowedHosts } : {}),
   });
-  await app.register(accessPlugin, { keys: opts.keys ?? null, ...(opts.rateLimit !== undefined ? { rateLimit: opts.rateLimit } : {}) });
+  // on the queue backend the jobs live in Redis, and so do the rate limit's counts (shared by every API process)
+  const queued = opts.queue
+    ? new QueueJobs({
+        ...opts.queue,
+        ...(opts.jobs?.quota !== undefined ? { quota: opts.jobs.quota } : {}),
+        ...(opts.jobs?.retentionMs !== undefined ? { retentionMs: opts.jobs.retentionMs } : {}),
+        ...(opts.maxQueuedJobs !== undefined ? { maxActive: opts.maxQueuedJobs } : {}),
+        onFailure: (id, err) => app.log.error({ err, jobId: id }, 'schedule job: queue failure'),
+      })
+    : undefined;
+  await app.register(accessPlugin, { keys: opts.keys ?? null, ...(opts.rateLimit !== undefined ? { rateLimit: opts.rateLimit } : {}), ...(queued ? { redis: queued.store.redis } : {}) });
   await app.register(docsPlugin);
   await app.register(fastifySSE, { heartbeatInterval: 15_000 });
   const spaceCap = opts.spaceCap ?? DEFAULT_SPACE_CAP;
@@ -140,7 +160,7 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
 
   // schedules search on the same pool, outside the synchronous searches' gate: each mark takes a
   // fair turn (round-robin over keys, then jobs) within the mark's and the job's time budgets
-  const jobs = new JobManager(
+  const jobs: Jobs = queued ?? embeddedJobs(new JobManager(
     opts.jobStore ?? new MemoryJobStore(),
     (input, signal, onProgress, turn) => runSchedule(input, { search: (task) => turn((s) => app.engine.searchTask(task, s)), onProgress, spaceCap }, signal),
     {
@@ -153,11 +173,11 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
         else app.log.error({ err, jobId: id }, 'schedule job failed');
       },
     },
-  );
+  ));
   app.decorate('jobs', jobs);
   app.addHook('onReady', async () => {
     const h = jobs.store.health();
-    if (!h.ok) app.log.error({ cause: h.cause }, 'the job store is unusable: schedule routes answer 503 STORE_UNAVAILABLE and /ready 503 until it is repaired or replaced (PLATESMITH_DB)');
+    if (!h.ok) app.log.error({ cause: h.cause }, 'the job store is unusable: schedule routes answer 503 STORE_UNAVAILABLE and /ready 503 until it is repaired or replaced (PLATESMITH_DB), or Redis answers (PLATESMITH_QUEUE)');
   });
   app.addHook('preClose', async () => {
     closing = true;
@@ -165,11 +185,12 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
     await jobs.shutdown();
   });
   app.addHook('onClose', async () => {
-    await jobs.store.close();
+    await jobs.close();
   });
 
   const budget = { defaultMs: opts.defaultBudgetMs ?? 30_000, maxMs: opts.maxBudgetMs ?? 300_000 };
   await app.register(healthRoutes);
+  await app.register(metricsRoutes);
   await app.register(checkRoutes, { budget });
   await app.register(effectsRoutes, { budget });
   await app.register(searchRoutes, { budget, spaceCap });

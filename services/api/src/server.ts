@@ -6,16 +6,19 @@ import { optionsFromEnv } from './settings.js';
 
 /**
  * Starts the service: HOST and PORT from the environment (default 127.0.0.1:8080), pino logs at
- * LOG_LEVEL (info), schedule jobs in SQLite (PLATESMITH_DB). On SIGINT/SIGTERM: stop accepting, answer in-flight requests with
+ * LOG_LEVEL (info), schedule jobs in SQLite (PLATESMITH_DB) or, with PLATESMITH_QUEUE, on the queue backend. On SIGINT/SIGTERM: stop accepting, answer in-flight requests with
  * "connection: close", cancel running schedule jobs, close the worker pool. Once ready it warms the
  * search workers up in the background (a few small invented searches, ~2 s on 2 cores).
  */
 export async function startServer(opts: ApiOptions & { host?: string; port?: number; graceMs?: number } = {}): Promise<{ url: string; close: () => Promise<void> }> {
   // keys, rate limit, quota, budgets, retention (README: "Running it for a team"); a malformed one stops the start
   const team = settingsFromEnv();
+  const env = optionsFromEnv();
+  // the queue backend (PLATESMITH_QUEUE): jobs in Redis, run by `platesmith worker` processes; else
   // jobs are kept in SQLite (PLATESMITH_DB, default .platesmith/jobs.sqlite) so a restart loses no finished mark
-  const jobStore = opts.jobStore ?? openJobStore();
-  const app = await buildApp({ logger: { level: process.env.LOG_LEVEL ?? 'info' }, warmUp: true, ...optionsFromEnv(), ...team, ...opts, jobs: { ...team.jobs, ...opts.jobs }, jobStore });
+  const queue = opts.queue ?? env.queue;
+  const jobStore = queue ? undefined : (opts.jobStore ?? openJobStore());
+  const app = await buildApp({ logger: { level: process.env.LOG_LEVEL ?? 'info' }, warmUp: true, ...env, ...team, ...opts, jobs: { ...team.jobs, ...opts.jobs }, ...(jobStore ? { jobStore } : {}), ...(queue ? { queue } : {}) });
   const keys = opts.keys !== undefined ? opts.keys : team.keys;
   // keys rotate without a restart: SIGHUP re-reads PLATESMITH_API_KEYS_FILE (a bad file keeps the keys held)
   const onHup = (): void => {

@@ -1,4 +1,5 @@
 import type { ApiOptions } from './app.js';
+import { redisOptions } from './queue/names.js';
 
 /**
  * The service's settings from the environment, each with its default (README, team service;
@@ -14,6 +15,8 @@ export const SETTINGS = [
   { name: 'PLATESMITH_HEADERS_TIMEOUT_MS', what: 'time to receive a request\'s headers, ms', default: '10000' },
   { name: 'PLATESMITH_KEEP_ALIVE_TIMEOUT_MS', what: 'idle keep-alive connection kept, ms', default: '5000' },
   { name: 'PLATESMITH_MAX_CONNECTIONS', what: 'open connections at once', default: '1024' },
+  { name: 'PLATESMITH_QUEUE', what: 'the queue backend: jobs in Redis, marks run by platesmith worker processes (redis://host:port[/db])', default: 'unset: embedded (SQLite, this process)' },
+  { name: 'PLATESMITH_QUEUE_PREFIX', what: 'prefix of the queue backend\'s Redis keys (several services on one Redis)', default: 'platesmith' },
   { name: 'PLATESMITH_ALLOWED_HOSTS', what: 'Host header values answered, comma-separated (host or host:port); others get 421', default: 'unset: any' },
 ] as const;
 
@@ -39,6 +42,13 @@ export function optionsFromEnv(env: NodeJS.ProcessEnv = process.env): ApiOptions
   set('headersTimeoutMs', int(env, 'PLATESMITH_HEADERS_TIMEOUT_MS', 1000, 3_600_000));
   set('keepAliveTimeoutMs', int(env, 'PLATESMITH_KEEP_ALIVE_TIMEOUT_MS', 100, 3_600_000));
   set('maxConnections', int(env, 'PLATESMITH_MAX_CONNECTIONS', 1, 1_000_000));
+  const queue = env['PLATESMITH_QUEUE']?.trim();
+  if (queue) {
+    redisOptions(queue);
+    const prefix = env['PLATESMITH_QUEUE_PREFIX']?.trim();
+    if (prefix && !/^[A-Za-z0-9_.-]{1,40}$/.test(prefix)) throw new Error(`PLATESMITH_QUEUE_PREFIX must be 1 to 40 letters, digits, '_', '.' or '-', got '${prefix.slice(0, 40)}'`);
+    o.queue = { url: queue, ...(prefix ? { prefix } : {}) };
+  }
   const hosts = env['PLATESMITH_ALLOWED_HOSTS'];
   if (hosts !== undefined && hosts.trim() !== '') o.allowedHosts = hosts.split(',').map((h) => h.trim()).filter((h) => h !== '');
   if (o.defaultBudgetMs !== undefined && o.maxBudgetMs !== undefined && o.defaultBudgetMs > o.maxBudgetMs) throw new Error('PLATESMITH_BUDGET_MS must not exceed PLATESMITH_MAX_BUDGET_MS');

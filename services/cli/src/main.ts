@@ -7,6 +7,7 @@ import { runEffects } from './commands/effects.js';
 import { runSearch } from './commands/search.js';
 import { runDemo } from './commands/demo.js';
 import { runServe } from './commands/serve.js';
+import { runWorker } from './commands/worker.js';
 import { RECORD_OPTIONS, RECORD_USAGE, runRecord } from './commands/record.js';
 import { runScheduleCommand, SCHEDULE_USAGE } from './commands/schedule.js';
 
@@ -27,6 +28,8 @@ usage:
                                          (platesmith schedule --help for every option; exit 1 on a regression)
   platesmith demo [--json]               search the bundled (invented) demo project
   platesmith serve                       start the HTTP API on HOST:PORT (default 127.0.0.1:8080)
+  platesmith worker                      take schedule marks from the queue (PLATESMITH_QUEUE=redis://host:port)
+                                         on this process's threads (the API's queue backend)
   platesmith help                        this text
 
 FILE may be - for standard input. Units: mm, kN, kN/m, kNm, MPa, kg.
@@ -88,6 +91,11 @@ export async function main(argv: string[], io: Out = stdio): Promise<number> {
         const a = parseCommand(rest, {}, USAGE);
         if (a.positionals.length) throw new InputError(`serve takes no arguments (HOST and PORT come from the environment)\n\n${USAGE}`);
         return await runServe(io);
+      }
+      case 'worker': {
+        const a = parseCommand(rest, {}, USAGE);
+        if (a.positionals.length) throw new InputError(`worker takes no arguments (PLATESMITH_QUEUE and the rest come from the environment)\n\n${USAGE}`);
+        return await runWorker(io);
       }
       case undefined:
       case 'help':

@@ -1,5 +1,6 @@
 import rateLimit from '@fastify/rate-limit';
 import fp from 'fastify-plugin';
+import type { Redis } from 'ioredis';
 import { ApiError } from '../errors.js';
 import type { ApiKeys } from '../keys.js';
 
@@ -19,6 +20,8 @@ export interface AccessOptions {
   keys?: ApiKeys | null;
   /** requests a minute per key, or per client address when keys are off; 0 turns the limit off (default DEFAULT_RATE_LIMIT) */
   rateLimit?: number;
+  /** keep the counts in Redis (the queue backend: every API process counts against the same limits) */
+  redis?: Redis;
 }
 
 declare module 'fastify' {
@@ -28,7 +31,8 @@ declare module 'fastify' {
   }
 }
 
-const guarded = (url: string): boolean => url === '/v1' || url.startsWith('/v1/') || url.startsWith('/v1?');
+// /metrics tells the queue's depth and the jobs' counts: behind the keys too
+const guarded = (url: string): boolean => url === '/v1' || url.startsWith('/v1/') || url.startsWith('/v1?') || url === '/metrics' || url.startsWith('/metrics?');
 
 /**
  * Who may call the /v1 routes, and how often. With keys on, every /v1 request needs
@@ -48,6 +52,8 @@ export const accessPlugin = fp<AccessOptions>(
       global: max > 0,
       max: Math.max(1, max),
       timeWindow: 60_000,
+      // while Redis is down the limit is not counted (checks and searches still answer; job routes answer 503)
+      ...(opts.redis ? { redis: opts.redis, nameSpace: 'platesmith-rate:', skipOnError: true } : {}),
       // runs after the key hook below (a route's hooks run after the instance's): the key when there is one
       keyGenerator: (req) => (req.keyId !== null ? `key:${req.keyId}` : `ip:${req.ip}`),
       allowList: (req) => !guarded(req.url),

@@ -27,13 +27,13 @@ const PROBLEM = { description: 'problem details (RFC 9457)', content: { 'applica
 /**
  * Declares the bearer scheme: every /v1 operation may need `Authorization: Bearer <key>` (when
  * the service runs with PLATESMITH_API_KEYS or _FILE; without keys the empty requirement holds)
- * and may answer 401 UNAUTHORIZED and 429 RATE_LIMITED; /health, /ready and the docs are open.
+ * and may answer 401 UNAUTHORIZED and 429 RATE_LIMITED; so may /metrics; /health, /ready and the docs are open.
  */
 export function withBearer(doc: OpenApiDoc): OpenApiDoc {
   const components = { ...doc.components, securitySchemes: { ...doc.components?.['securitySchemes'], bearerAuth: { type: 'http', scheme: 'bearer', description: 'an API key of the service (PLATESMITH_API_KEYS or PLATESMITH_API_KEYS_FILE); required on /v1 when the service runs with keys' } } };
   const paths: NonNullable<OpenApiDoc['paths']> = {};
   for (const [path, ops] of Object.entries(doc.paths ?? {})) {
-    if (!path.startsWith('/v1')) {
+    if (!path.startsWith('/v1') && path !== '/metrics') {
       paths[path] = ops;
       continue;
     }

@@ -15,8 +15,16 @@ export const healthRoutes: FastifyPluginAsyncZod = async (app) => {
       schema: {
         operationId: 'getReadiness',
         tags: ['service'],
-        summary: 'Readiness: the search worker pool answered a ping and the job store is usable (503 NOT_READY names the cause)',
-        response: { 200: z.object({ status: z.literal('ready'), threads: z.number(), activeSearches: z.number() }), 503: ProblemDetailsJson },
+        summary: 'Readiness: the search worker pool answered a ping and the job store is usable: SQLite, or Redis on the queue backend (503 NOT_READY names the cause)',
+        response: {
+          200: z.object({
+            status: z.literal('ready'),
+            threads: z.number(),
+            activeSearches: z.number(),
+            jobs: z.enum(['embedded', 'redis']).meta({ description: 'where schedule jobs run: embedded (this process, SQLite) or redis (the queue, PLATESMITH_QUEUE)' }),
+          }),
+          503: ProblemDetailsJson,
+        },
         errors: ['NOT_READY'],
       },
     },
@@ -28,7 +36,7 @@ export const healthRoutes: FastifyPluginAsyncZod = async (app) => {
       } catch (e) {
         throw new ApiError('NOT_READY', 'the search worker pool did not answer a ping within 5 s', { retryAfter: 5, cause: e });
       }
-      return { status: 'ready' as const, threads: app.engine.threads, activeSearches: app.engine.active() };
+      return { status: 'ready' as const, threads: app.engine.threads, activeSearches: app.engine.active(), jobs: app.jobs.backend };
     },
   );
 };

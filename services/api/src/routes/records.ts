@@ -6,7 +6,7 @@ import type { FastifyReply, FastifyRequest } from 'fastify';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { z } from 'zod';
 import { ApiError } from '../errors.js';
-import type { JobManager } from '../jobs/manager.js';
+import type { Jobs } from '../jobs/jobs.js';
 import { withParser } from '../validate.js';
 
 /** Body of POST /v1/records, as documented (validated by parseRecordRequest: a check body and its title). */
@@ -26,7 +26,7 @@ const RECORD_ANSWER = {
 /** Prints at once; more answer 503 PRINT_FAILED with Retry-After (each print is a chromium process of ~100 MB). */
 const MAX_PRINTS = 2;
 
-export const recordRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async (app, { jobs }) => {
+export const recordRoutes: FastifyPluginAsyncZod<{ jobs: Jobs }> = async (app, { jobs }) => {
   let printing = 0;
 
   /** HTML, or the PDF when the client asks for it (Accept: application/pdf). */

@@ -6,7 +6,8 @@ import type { FastifyRequest } from 'fastify';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { z } from 'zod';
 import { ApiError, RequestInvalid } from '../errors.js';
-import { TERMINAL, type JobManager } from '../jobs/manager.js';
+import type { Jobs } from '../jobs/jobs.js';
+import { TERMINAL } from '../jobs/manager.js';
 import type { JobState, JobSummary } from '../jobs/store.js';
 
 const States = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
@@ -78,7 +79,7 @@ function queue<T>() {
   };
 }
 
-export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: JobManager }> = async (app, { jobs }) => {
+export const scheduleRoutes: FastifyPluginAsyncZod<{ jobs: Jobs }> = async (app, { jobs }) => {
   const store = jobs.store;
   // with keys on, a job is shown to the key that created it only: to any other it does not exist
   const load = async (id: string, req: FastifyRequest): Promise<JobSummary> => {
