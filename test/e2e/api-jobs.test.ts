@@ -2,14 +2,20 @@
  * Schedule jobs over real HTTP: submit (202, Location, Retry-After), status, SSE events
  * (snapshot, progress, done), result, list, cancel, delete. Tiny spaces keep it fast. Tonnage is
  * checked against the same run's own numbers (Σ quantity × lightest mass): a regression
- * relation, not a validation of any engineering value.
+ * relation, not a validation of any engineering value. Run on both job backends: embedded and
+ * the queue (Redis, BullMQ, a worker in this process).
  */
-import { afterAll, beforeAll, expect, test } from 'vitest';
-import { PROBLEM, SECTION, start, TINY_SPACE, type Running } from '../../services/api/test/harness.js';
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import { PROBLEM, SECTION, TINY_SPACE } from '../../services/api/test/harness.js';
+import { BACKENDS, startOn, stopRedis, type OnBackend } from '../helpers/backends.js';
 
-let srv: Running;
+let srv: OnBackend;
+afterAll(() => stopRedis());
+
+// the same tests on the embedded backend and on the queue backend (Redis, BullMQ, a worker)
+describe.each(BACKENDS)('%s backend', (backend) => {
 beforeAll(async () => {
-  srv = await start({ threads: 2 });
+  srv = await startOn(backend, { threads: 2 });
 });
 afterAll(async () => {
   await srv.close();
@@ -135,4 +141,5 @@ test('events with Accept: application/json → 406 problem+json; unknown job →
   expect(u.status).toBe(404);
   expect(u.headers.get('content-type')).toMatch(/^application\/problem\+json/);
   await readEvents(`${srv.url}/v1/schedules/${sub.body.id}/events`); // let it finish before close
+});
 });

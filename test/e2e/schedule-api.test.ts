@@ -1,17 +1,23 @@
 /**
- * Schedules through the HTTP API on the SQLite job store (':memory:'): a CSV body (text/csv),
+ * Schedules through the HTTP API on both job backends, the SQLite job store (':memory:') and the
+ * queue (Redis, BullMQ, a worker in this process): a CSV body (text/csv),
  * the result with records, comparison, tonnage, plate list and rationalisation, the HTML
  * report, partial marks, and bad CSV / JSON schedules answered 400 or 422 naming the row and
  * column (or the field). Behaviour tests; the one engineering figure asserted is the plate mass
  * closed form t·b·L·ρ (see its test).
  */
-import { afterAll, beforeAll, expect, test } from 'vitest';
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { SqliteJobStore } from '../../services/api/src/jobs/sqlite.js';
-import { PROBLEM, start, TINY_SPACE, type Running } from '../../services/api/test/harness.js';
+import { PROBLEM, TINY_SPACE } from '../../services/api/test/harness.js';
+import { BACKENDS, startOn, stopRedis, type OnBackend } from '../helpers/backends.js';
 
-let srv: Running;
+let srv: OnBackend;
+afterAll(() => stopRedis());
+
+// the same tests on the embedded backend (SQLite) and on the queue backend (Redis, BullMQ, a worker)
+describe.each(BACKENDS)('%s backend', (backend) => {
 beforeAll(async () => {
-  srv = await start({ threads: 2, jobStore: new SqliteJobStore({ path: ':memory:' }) });
+  srv = await startOn(backend, { threads: 2, jobStore: new SqliteJobStore({ path: ':memory:' }) });
 });
 afterAll(async () => {
   await srv.close();
@@ -151,4 +157,5 @@ test('bad JSON schedules: malformed 400, wrong shape 400, a repeated mark 422 na
 test('report and result of an unknown or unfinished job: 404 / 409 problem+json', async () => {
   expect((await srv.get('/v1/schedules/nope/report')).status).toBe(404);
   expect((await srv.get('/v1/schedules/nope/marks')).status).toBe(404);
+});
 });
