@@ -180,6 +180,7 @@ export class QueueWorker {
         this.counts.skipped++;
         return { skipped: true };
       }
+      this.#log.info({ jobId: id, mark, index, owner, attempt: job.attemptsStarted }, 'mark taken');
       void this.#events.publish(id, 'progress').catch(() => {});
       const spent = await this.store.spend(id, 0);
       const left = this.#o.jobBudgetMs - spent;
