@@ -6,7 +6,8 @@ import type { JobEvent, Jobs } from '../jobs/jobs.js';
 import { JOB_DEFAULTS } from '../jobs/manager.js';
 import type { JobRecord, JobSummary } from '../jobs/store.js';
 import { EventListener, EventPublisher } from './events.js';
-import { channels, DEFAULT_PREFIX, FINISH_QUEUE, marksQueue, redisOptions, type QueueConfig } from './names.js';
+import type { Redis } from 'ioredis';
+import { channels, client, closeWithin, DEFAULT_PREFIX, FINISH_QUEUE, marksQueue, type QueueConfig } from './names.js';
 import { RedisJobStore } from './redis-store.js';
 import type { MarkData } from './worker.js';
 
@@ -42,6 +43,8 @@ export class QueueJobs implements Jobs {
   readonly #now: () => number;
   readonly #onFailure: (id: string, err: unknown) => void;
   readonly #queues = new Map<string, Queue>();
+  /** the connection of the flow producer and the queues (errors handled, ended at close) */
+  readonly #client: Redis;
   #sweeper: NodeJS.Timeout | undefined;
   #stopping = false;
 
@@ -56,10 +59,10 @@ export class QueueJobs implements Jobs {
     this.#now = opts.now ?? Date.now;
     this.#onFailure = opts.onFailure ?? (() => {});
     this.store = new RedisJobStore(this.#cfg);
-    const connection = () => redisOptions(this.#cfg.url, { maxRetriesPerRequest: 1, enableOfflineQueue: false });
-    this.#flow = new FlowProducer({ connection: connection(), prefix: this.#cfg.prefix });
+    this.#client = client(this.#cfg.url, { maxRetriesPerRequest: 1, enableOfflineQueue: false });
+    this.#flow = new FlowProducer({ connection: this.#client, prefix: this.#cfg.prefix });
     this.#flow.on('error', () => {});
-    this.#finish = new Queue(FINISH_QUEUE, { connection: connection(), prefix: this.#cfg.prefix });
+    this.#finish = new Queue(FINISH_QUEUE, { connection: this.#client, prefix: this.#cfg.prefix });
     this.#finish.on('error', () => {});
     this.#listener = new EventListener(this.#cfg);
     this.#events = new EventPublisher(this.#cfg, this.store);
@@ -158,7 +161,7 @@ export class QueueJobs implements Jobs {
   #queue(name: string): Queue {
     let q = this.#queues.get(name);
     if (!q) {
-      q = new Queue(name, { connection: redisOptions(this.#cfg.url, { maxRetriesPerRequest: 1, enableOfflineQueue: false }), prefix: this.#cfg.prefix });
+      q = new Queue(name, { connection: this.#client, prefix: this.#cfg.prefix });
       q.on('error', () => {});
       this.#queues.set(name, q);
     }
@@ -184,7 +187,8 @@ export class QueueJobs implements Jobs {
 
   /** closes the connections (after shutdown; the app's close does it) */
   async close(): Promise<void> {
-    await Promise.allSettled([this.#flow.close(), this.#finish.close(), this.#listener.close(), this.#events.close(), ...[...this.#queues.values()].map((q) => q.close())]);
+    await Promise.allSettled([closeWithin(this.#flow, 1000), closeWithin(this.#finish, 1000), this.#listener.close(), this.#events.close(), ...[...this.#queues.values()].map((q) => closeWithin(q, 1000))]);
+    this.#client.disconnect();
     await this.store.close();
   }
 }

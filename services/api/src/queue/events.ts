@@ -1,7 +1,8 @@
 import { QueueEvents, QueueEventsProducer } from 'bullmq';
 import type { JobEvent } from '../jobs/jobs.js';
 import type { JobSummary } from '../jobs/store.js';
-import { FINISH_QUEUE, redisOptions, type QueueConfig } from './names.js';
+import type { Redis } from 'ioredis';
+import { client, closeWithin, FINISH_QUEUE, type QueueConfig } from './names.js';
 import type { RedisJobStore } from './redis-store.js';
 
 /** The name of the custom BullMQ event on the finish queue's event stream that carries a job's summary. */
@@ -15,17 +16,23 @@ export const SCHEDULE_EVENT = 'schedule';
 export class EventPublisher {
   readonly #producer: QueueEventsProducer;
   readonly #store: RedisJobStore;
+  readonly #client: Redis;
   constructor(cfg: QueueConfig & { prefix: string }, store: RedisJobStore) {
     this.#store = store;
-    this.#producer = new QueueEventsProducer(FINISH_QUEUE, { connection: redisOptions(cfg.url, { maxRetriesPerRequest: 1 }), prefix: cfg.prefix });
+    this.#client = client(cfg.url, { maxRetriesPerRequest: 1, enableOfflineQueue: false });
+    this.#producer = new QueueEventsProducer(FINISH_QUEUE, { connection: this.#client, prefix: cfg.prefix });
+    this.#producer.on('error', () => {
+      /* reconnects by itself; a lost event is one progress step (the status routes read the store) */
+    });
   }
   async publish(id: string, type: JobEvent['type'], job?: JobSummary): Promise<void> {
     const j = job ?? (await this.#store.get(id));
     if (!j) return;
     await this.#producer.publishEvent({ eventName: SCHEDULE_EVENT, jobId: id, type, job: JSON.stringify(j) }, 10_000);
   }
-  close(): Promise<void> {
-    return this.#producer.close();
+  async close(): Promise<void> {
+    await closeWithin(this.#producer, 1000);
+    this.#client.disconnect();
   }
 }
 
@@ -33,8 +40,11 @@ export class EventPublisher {
 export class EventListener {
   readonly events: QueueEvents;
   readonly #listeners = new Map<string, Set<(e: JobEvent) => void>>();
+  readonly #client: Redis;
   constructor(cfg: QueueConfig & { prefix: string }) {
-    this.events = new QueueEvents(FINISH_QUEUE, { connection: redisOptions(cfg.url, { maxRetriesPerRequest: null }), prefix: cfg.prefix, blockingTimeout: 5000 });
+    // its own connection (a blocking read), ended by close even while Redis is down
+    this.#client = client(cfg.url, { maxRetriesPerRequest: null });
+    this.events = new QueueEvents(FINISH_QUEUE, { connection: this.#client, prefix: cfg.prefix, blockingTimeout: 5000 });
     this.events.on('error', () => {
       /* reconnects by itself; /ready reports the store's connection */
     });
@@ -57,7 +67,8 @@ export class EventListener {
   async ready(): Promise<void> {
     await this.events.waitUntilReady();
   }
-  close(): Promise<void> {
-    return this.events.close();
+  async close(): Promise<void> {
+    await closeWithin(this.events, 1000);
+    this.#client.disconnect();
   }
 }

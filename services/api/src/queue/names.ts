@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import type { RedisOptions } from 'ioredis';
+import { Redis, type RedisOptions } from 'ioredis';
 
 /**
  * Names shared by the API and the worker processes of the queue backend: the Redis connection
@@ -54,4 +54,28 @@ export function channels(prefix: string) {
     /** the set of owners' queue names */
     ownerSet: `${prefix}:store:owners`,
   };
+}
+
+/**
+ * Closes a BullMQ object, or disconnects it when the close takes longer than `ms` (a close waits
+ * for Redis to answer: while Redis is down, a shutdown must not hang on it). Give the object a
+ * client of ours (`client`) and end it after this.
+ */
+export async function closeWithin(o: { close(): Promise<void>; disconnect(): Promise<void> | void }, ms = 2000): Promise<void> {
+  let t: NodeJS.Timeout | undefined;
+  const late = new Promise<'late'>((resolve) => (t = setTimeout(() => resolve('late'), ms)));
+  const r = await Promise.race([o.close().then(() => 'closed' as const, () => 'closed' as const), late]);
+  clearTimeout(t);
+  // BullMQ's disconnect may wait for Redis too: not awaited (the caller ends its own client)
+  if (r === 'late') void Promise.resolve(o.disconnect()).catch(() => {});
+}
+
+/**
+ * A Redis client of our own for a BullMQ object: its errors are handled (Redis down is reported
+ * by /ready, not printed), and `disconnect()` ends it whatever BullMQ is waiting for.
+ */
+export function client(url: string, extra: RedisOptions = {}): Redis {
+  const c = new Redis(redisOptions(url, extra));
+  c.on('error', () => {});
+  return c;
 }

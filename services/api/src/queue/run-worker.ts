@@ -53,6 +53,8 @@ export async function startWorker(opts: { env?: NodeJS.ProcessEnv; graceMs?: num
       if (err) log.error({ err }, 'closing after an uncaught error');
       else log.info({ signal }, 'closing: the running mark finishes or goes back to its queue');
       await close();
+      // a connection still retrying a Redis that is down must not keep the process alive
+      setTimeout(() => process.exit(0), 1000).unref();
     });
   }
   return { worker, close };

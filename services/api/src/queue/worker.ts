@@ -8,7 +8,7 @@ import { FairGate } from '../jobs/fair.js';
 import { JOB_DEFAULTS } from '../jobs/manager.js';
 import { TERMINAL } from '../jobs/store.js';
 import { EventPublisher } from './events.js';
-import { channels, DEFAULT_PREFIX, FINISH_QUEUE, redisOptions, type QueueConfig } from './names.js';
+import { channels, closeWithin, DEFAULT_PREFIX, FINISH_QUEUE, redisOptions, type QueueConfig } from './names.js';
 import { RedisJobStore } from './redis-store.js';
 
 /** A mark child of a schedule's flow. */
@@ -70,6 +70,7 @@ export class QueueWorker {
   readonly #running = new Map<string, Set<AbortController>>();
   readonly #inputs = new Map<string, ScheduleJson>();
   #closing = false;
+  #closed: Promise<void> | undefined;
   /** marks this process computed, and of those the ones whose result was already stored (computed twice) */
   readonly counts = { computed: 0, stored: 0, duplicates: 0, skipped: 0 };
 
@@ -284,7 +285,11 @@ export class QueueWorker {
    * Stops taking marks; the running one may finish within `graceMs` (default 8 s), else its search
    * stops and it goes back to its queue. Then closes the connections.
    */
-  async close(graceMs = 8000): Promise<void> {
+  close(graceMs = 8000): Promise<void> {
+    return (this.#closed ??= this.#close(graceMs));
+  }
+
+  async #close(graceMs: number): Promise<void> {
     this.#closing = true;
     if (this.#ownerTimer) clearInterval(this.#ownerTimer);
     const workers = [...this.#workers.values(), ...(this.#finish ? [this.#finish] : [])];
@@ -292,7 +297,8 @@ export class QueueWorker {
       for (const set of this.#running.values()) for (const ac of set) ac.abort(SHUTDOWN);
     }, graceMs);
     try {
-      await Promise.all(workers.map((w) => w.close()));
+      // each waits for its running mark (up to the grace), then for Redis at most a few seconds more
+      await Promise.all(workers.map((w) => closeWithin(w, graceMs + 5000)));
     } finally {
       clearTimeout(timer);
     }
