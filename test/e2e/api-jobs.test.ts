@@ -7,13 +7,13 @@
  */
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { PROBLEM, SECTION, TINY_SPACE } from '../../services/api/test/harness.js';
-import { BACKENDS, startOn, stopRedis, type OnBackend } from '../helpers/backends.js';
+import { backendName, BACKENDS, startOn, stopRedis, type OnBackend } from '../helpers/backends.js';
 
 let srv: OnBackend;
 afterAll(() => stopRedis());
 
 // the same tests on the embedded backend and on the queue backend (Redis, BullMQ, a worker)
-describe.each(BACKENDS)('%s backend', (backend) => {
+describe.each(BACKENDS)(backendName, (backend) => {
 beforeAll(async () => {
   srv = await startOn(backend, { threads: 2 });
 });

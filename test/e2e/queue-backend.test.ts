@@ -12,13 +12,13 @@
  */
 import { createEngine, type Engine } from '@platesmith/app';
 import { Writable } from 'node:stream';
-import { afterAll, beforeAll, expect, test } from 'vitest';
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { ApiKeys, parseKeys } from '../../services/api/src/keys.js';
 import type { JobRecord } from '../../services/api/src/jobs/store.js';
 import { RedisJobStore } from '../../services/api/src/queue/redis-store.js';
 import { QueueWorker } from '../../services/api/src/queue/worker.js';
 import { PROBLEM, start, TINY_SPACE, type Running } from '../../services/api/test/harness.js';
-import { sharedRedis, startRedis, testPrefix, type RedisServer } from '../helpers/redis.js';
+import { HAVE_REDIS, NO_REDIS, sharedRedis, startRedis, testPrefix, type RedisServer } from '../helpers/redis.js';
 
 const ALICE = 'alice-secret-0123456789abcdef';
 const BOB = 'bob-secret-fedcba9876543210';
@@ -32,12 +32,12 @@ let redis: RedisServer;
 const engines: Engine[] = [];
 const closers: (() => Promise<unknown>)[] = [];
 beforeAll(async () => {
-  redis = await sharedRedis();
+  if (HAVE_REDIS) redis = await sharedRedis();
 });
 afterAll(async () => {
   for (const c of closers.reverse()) await c().catch(() => {});
   for (const e of engines) await e.close();
-  await redis.stop();
+  await redis?.stop();
 }, 60_000);
 
 /** a worker in this process, its own engine (one thread), its log lines collected */
@@ -68,6 +68,7 @@ function job(id: string, owner: string | null, at: string): JobRecord {
   return { id, kind: 'schedule', owner, status: 'queued', name: null, marks: 1, createdAt: at, startedAt: null, finishedAt: null, progress: null, input: schedule('G', 1) as never, result: null, error: null, resumed: 0 };
 }
 
+describe.skipIf(!HAVE_REDIS)(HAVE_REDIS ? 'queue backend' : `queue backend — ${NO_REDIS}`, () => {
 test('the store in Redis: quota counted and inserted atomically, a mark stored once, a finished job left as it is, owner lists, retention', async () => {
   const s = new RedisJobStore({ url: redis.url, prefix: testPrefix() });
   closers.push(() => s.close());
@@ -222,4 +223,5 @@ test('/ready is 503 naming Redis while Redis is down, job routes 503 (checks sti
   const t0 = Date.now();
   await srv.close();
   expect(Date.now() - t0).toBeLessThan(15_000);
+});
 });

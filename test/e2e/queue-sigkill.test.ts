@@ -15,7 +15,7 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, expect, test } from 'vitest';
 import { start } from '../../services/api/test/harness.js';
-import { sharedRedis, testPrefix, type RedisServer } from '../helpers/redis.js';
+import { HAVE_REDIS, NO_REDIS, sharedRedis, testPrefix, type RedisServer } from '../helpers/redis.js';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
 const children = new Set<ChildProcess>();
@@ -91,7 +91,7 @@ async function until(get: () => Promise<any>, ok: (b: any) => boolean, what: str
   }
 }
 
-test('two worker processes, one SIGKILLed mid-mark: the schedule completes, every mark stored once, the result equals the embedded run', async () => {
+test.skipIf(!HAVE_REDIS)((HAVE_REDIS ? '' : `${NO_REDIS}: `) + 'two worker processes, one SIGKILLed mid-mark: the schedule completes, every mark stored once, the result equals the embedded run', async () => {
   redis = await sharedRedis();
   const prefix = testPrefix();
   const env = { PLATESMITH_QUEUE: redis.url, PLATESMITH_QUEUE_PREFIX: prefix, PLATESMITH_QUEUE_LOCK_MS: '2000', PLATESMITH_QUEUE_STALLED_MS: '1000' };

@@ -42,6 +42,9 @@ const SKIP: { re: RegExp; why: string }[] = [
   { re: /^pnpm test$/, why: 'this suite' },
   { re: /^curl /, why: 'server' },
   { re: /^pnpm platesmith (serve|worker)\b/, why: 'server or queue' },
+  // the queue backend's three commands: Redis, the API and a worker, each running until stopped (queue-backend.test.ts runs them in-process)
+  { re: /^redis-server /, why: 'queue' },
+  { re: /^PLATESMITH_QUEUE=\S+ pnpm platesmith (serve|worker)$/, why: 'server or queue' },
   // running it for a team: a keys file written, then the server with it (its routes have their own tests)
   { re: /^printf .* > keys\.txt$/, why: 'team set-up' },
   { re: /^HOST=\S+ PLATESMITH_API_KEYS_FILE=keys\.txt pnpm platesmith serve$/, why: 'server' },

@@ -2,15 +2,17 @@ import { createEngine, type Engine } from '@platesmith/app';
 import type { ApiOptions } from '../../services/api/src/index.js';
 import { QueueWorker, type QueueWorkerOptions } from '../../services/api/src/queue/worker.js';
 import { start, type Running } from '../../services/api/test/harness.js';
-import { sharedRedis, testPrefix, type RedisServer } from './redis.js';
+import { HAVE_REDIS, NO_REDIS, sharedRedis, testPrefix, type RedisServer } from './redis.js';
 
 /**
  * The two job backends the schedule and job tests run on: `embedded` (this process's pool, the
  * store the test gives) and `redis` (the queue backend on a Redis of the test's own or CI's, with
  * one worker of its own in this process, its own engine and key prefix).
  */
-export const BACKENDS = ['embedded', 'redis'] as const;
-export type Backend = (typeof BACKENDS)[number];
+export type Backend = 'embedded' | 'redis';
+export const BACKENDS: Backend[] = HAVE_REDIS ? ['embedded', 'redis'] : ['embedded'];
+/** the name of a backend's describe block (says when the queue's is skipped) */
+export const backendName = HAVE_REDIS ? '%s backend' : `%s backend (queue backend ${NO_REDIS})`;
 
 let redis: Promise<RedisServer> | undefined;
 /** one Redis per test file (CI's when it started one), stopped by `stopRedis` in the file's afterAll */

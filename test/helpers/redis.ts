@@ -1,4 +1,4 @@
-import { spawn, type ChildProcess } from 'node:child_process';
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import { createServer } from 'node:net';
 
@@ -15,6 +15,14 @@ export interface RedisServer {
   stop(): Promise<void>;
   proc: ChildProcess | null;
 }
+
+/**
+ * Whether the queue backend's tests can run: CI's Redis (PLATESMITH_TEST_REDIS: then never
+ * skipped) or redis-server installed. Without either they are skipped with a message, as the
+ * browser test is without chromium.
+ */
+export const HAVE_REDIS = Boolean(process.env['PLATESMITH_TEST_REDIS']) || spawnSync('redis-server', ['--version'], { stdio: 'ignore' }).status === 0;
+export const NO_REDIS = 'SKIPPED: redis-server is missing (run scripts/install-redis.sh, or set CI to install it)';
 
 async function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
