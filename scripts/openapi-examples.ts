@@ -230,6 +230,9 @@ export async function recordExamples(root: string): Promise<Record<string, Opera
     out.cancelSchedule = { responses: { '200': { queued: { summary: 'a queued job, cancelled', value: cancelled.body } }, '404': notFound } };
     out.getHealth = { responses: { '200': { ok: { summary: 'the process answers', value: (await call(app, 'GET', '/health')).body } } } };
     out.getReadiness = { responses: { '200': { ready: { summary: 'the worker pool answered', value: (await call(app, 'GET', '/ready')).body } } } };
+    // the service's own gauges (the process's figures, prom-client's defaults, left out of the example)
+    const metrics = String((await call(app, 'GET', '/metrics')).body).split('\n').filter((l) => /^(# (HELP|TYPE) )?platesmith_(?!process_)/.test(l)).join('\n') + '\n';
+    out.getMetrics = { responses: { '200': { embedded: { summary: 'the embedded backend after the schedule above (the process\'s own figures left out)', value: metrics } } } };
   } finally {
     await Promise.all([app.close(), full.close(), idle.close()]);
   }

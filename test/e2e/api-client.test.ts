@@ -24,11 +24,17 @@ afterAll(async () => {
   await srv.close();
 });
 
-test('getHealth and getReadiness', async () => {
+test('getHealth, getReadiness and getMetrics', async () => {
   const h = await api.client.GET('/health');
   expect(h.data).toEqual({ status: 'ok' });
   const r = await api.client.GET('/ready');
-  expect(r.data).toEqual({ status: 'ready', threads: 1, activeSearches: 0 });
+  expect(r.data).toEqual({ status: 'ready', threads: 1, activeSearches: 0, jobs: 'embedded' });
+  // Prometheus text format 0.0.4: the embedded backend's gauges (nothing queued yet)
+  const m = await api.client.GET('/metrics', { parseAs: 'text' });
+  expect(m.response.headers.get('content-type')).toMatch(/^text\/plain; version=0\.0\.4/);
+  expect(m.data).toMatch(/^platesmith_queue_waiting_marks\{backend="embedded"\} 0$/m);
+  expect(m.data).toMatch(/^platesmith_workers\{backend="embedded"\} 1$/m);
+  expect(m.data).toMatch(/^platesmith_job_store_up\{backend="embedded"\} 1$/m);
 });
 
 test('checkSection: the bundled example answers the domain call\'s verdict; a span in m is a 422 naming the field', async () => {
@@ -172,6 +178,7 @@ test('every operation of the document was answered here, each with a success', (
     [
       'getHealth',
       'getReadiness',
+      'getMetrics',
       'checkSection',
       'analyseEffects',
       'searchGirders',

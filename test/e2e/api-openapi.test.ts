@@ -97,6 +97,7 @@ const OPERATIONS: [string, string, string][] = [
   ['post', '/v1/records', 'recordGirder'],
   ['get', '/health', 'getHealth'],
   ['get', '/ready', 'getReadiness'],
+  ['get', '/metrics', 'getMetrics'],
 ];
 
 function operationsOf(doc: any): [string, string, any][] {

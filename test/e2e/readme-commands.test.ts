@@ -64,8 +64,8 @@ test('the README shows the commands this test expects to find (the extraction wo
       'pnpm platesmith schedule demo/schedule-harbour-sheds.json --report reports/harbour.html',
     ]),
   );
-  // nothing left out that is not set-up, this suite, or the server
-  expect(commands.filter((c) => SKIP.some((s) => s.re.test(c))).every((c) => /^(npm i -g|pnpm install|pnpm test|curl |pnpm platesmith serve|printf |HOST=)/.test(c))).toBe(true);
+  // nothing left out that is not set-up, this suite, the server or the queue
+  expect(commands.filter((c) => SKIP.some((s) => s.re.test(c))).every((c) => /^(npm i -g|pnpm install|pnpm test|curl |pnpm platesmith serve|printf |HOST=|redis-server |PLATESMITH_QUEUE=)/.test(c))).toBe(true);
 });
 
 describe('each README command exits 0 from the repository root', () => {
