@@ -41,12 +41,12 @@ afterAll(async () => {
 }, 60_000);
 
 /** a worker in this process, its own engine (one thread), its log lines collected */
-async function worker(prefix: string, url = redis.url) {
+async function worker(prefix: string, url = redis.url, budgets: { markBudgetMs?: number; jobBudgetMs?: number } = {}) {
   const engine = createEngine({ threads: 1 });
   engines.push(engine);
   const lines: Record<string, unknown>[] = [];
   const log = { info: (o: object, msg: string) => void lines.push({ ...o, msg }), warn: () => {}, error: (o: object, msg: string) => void lines.push({ ...o, msg, level: 'error' }) };
-  const w = new QueueWorker({ url, prefix, engine, log, lockDurationMs: 2000, stalledIntervalMs: 1000 });
+  const w = new QueueWorker({ url, prefix, engine, log, lockDurationMs: 2000, stalledIntervalMs: 1000, ...budgets });
   await w.start();
   closers.push(() => w.close(500));
   return { w, lines, taken: () => lines.filter((l) => l['msg'] === 'mark taken') };
@@ -223,5 +223,23 @@ test('/ready is 503 naming Redis while Redis is down, job routes 503 (checks sti
   const t0 = Date.now();
   await srv.close();
   expect(Date.now() - t0).toBeLessThan(15_000);
+});
+
+test('budgets on the workers: a mark past its budget fails alone (MARK_BUDGET_EXCEEDED); a job past its budget fails (JOB_BUDGET_EXCEEDED)', async () => {
+  const prefix = testPrefix();
+  const srv = await start({ threads: 1, queue: { url: redis.url, prefix } });
+  closers.push(() => srv.close());
+  // a 1 ms mark budget: each search of SLOW is stopped, each mark fails alone, the job is done
+  const w = await worker(prefix, redis.url, { markBudgetMs: 1 });
+  const a = (await srv.post('/v1/schedules', { ...SLOW, girders: SLOW.girders.slice(0, 2) })).body.id as string;
+  expect(await until(statusOf(srv, a), finished, 'job a')).toMatchObject({ status: 'done' });
+  const ra = (await srv.get(`/v1/schedules/${a}/result`)).body;
+  expect(ra.marks.map((m: { status: string; error?: { code: string } }) => [m.status, m.error?.code])).toEqual([['failed', 'MARK_BUDGET_EXCEEDED'], ['failed', 'MARK_BUDGET_EXCEEDED']]);
+  await w.w.close(500);
+  // a 1 ms job budget: the job fails at its first mark, naming the budget
+  await worker(prefix, redis.url, { jobBudgetMs: 1 });
+  const b = (await srv.post('/v1/schedules', SLOW)).body.id as string;
+  const fb = await until(statusOf(srv, b), finished, 'job b');
+  expect(fb).toMatchObject({ status: 'failed', error: { code: 'JOB_BUDGET_EXCEEDED' } });
 });
 });
