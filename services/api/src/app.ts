@@ -176,6 +176,8 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
   ));
   app.decorate('jobs', jobs);
   app.addHook('onReady', async () => {
+    // (the queue backend: its first connection to Redis, at most 10 s; the service starts either way)
+    await jobs.ready;
     const h = jobs.store.health();
     if (!h.ok) app.log.error({ cause: h.cause }, 'the job store is unusable: schedule routes answer 503 STORE_UNAVAILABLE and /ready 503 until it is repaired or replaced (PLATESMITH_DB), or Redis answers (PLATESMITH_QUEUE)');
   });

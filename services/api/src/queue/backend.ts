@@ -66,8 +66,8 @@ export class QueueJobs implements Jobs {
     this.#finish.on('error', () => {});
     this.#listener = new EventListener(this.#cfg);
     this.#events = new EventPublisher(this.#cfg, this.store);
-    // the API starts while Redis is down too: /ready says so, and job routes answer 503 until it is back
-    this.ready = Promise.resolve();
+    // the API starts while Redis is down too (after 10 s): /ready says so, and job routes answer 503 until it is back
+    this.ready = this.store.connected(10_000).catch(() => {});
     if (this.#o.retentionMs > 0) {
       const every = Math.min(this.#o.retentionMs / 10, 3_600_000);
       this.#sweeper = setInterval(() => void this.sweep(), Math.max(every, 1000));
