@@ -24,7 +24,7 @@ export async function startWorker(opts: { env?: NodeJS.ProcessEnv; graceMs?: num
   const o = optionsFromEnv(env);
   if (!o.queue) throw new Error('platesmith worker needs PLATESMITH_QUEUE=redis://host:port (the Redis the API queues schedules on)');
   const team = settingsFromEnv(env);
-  const log = pino({ level: env['LOG_LEVEL'] ?? 'info', base: { role: 'worker', pid: process.pid } }, pino.destination(2));
+  const log = pino({ level: env['LOG_LEVEL'] ?? 'info', base: { role: 'worker', pid: process.pid } }, pino.destination({ dest: 2, sync: true }));
   const engine = createEngine({ ...(o.threads !== undefined ? { threads: o.threads } : {}), onError: (err) => log.error({ err }, 'worker pool error') });
   await engine.ping(AbortSignal.timeout(60_000));
   const lock = ms(env, 'PLATESMITH_QUEUE_LOCK_MS', 100);
