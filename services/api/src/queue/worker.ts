@@ -101,6 +101,9 @@ export class QueueWorker {
       lockDuration: this.#o.lockDurationMs,
       stalledInterval: this.#o.stalledIntervalMs,
       maxStalledCount: this.#o.maxStalledCount,
+      // an idle worker asks again every second: a schedule's marks arrive at once, and BullMQ's
+      // marker wakes one blocked worker; the others would wait out the default 5 s
+      drainDelay: 1,
     };
   }
 
