@@ -65,6 +65,10 @@ export async function startRedis(port?: number): Promise<RedisServer> {
       });
     });
     if (ok) {
+      // a test process that ends without its afterAll (a time-out) leaves no Redis behind
+      const onExit = () => proc.kill('SIGKILL');
+      process.once('exit', onExit);
+      proc.once('exit', () => process.off('exit', onExit));
       const stop = async () => {
         if (proc.exitCode !== null || proc.signalCode !== null) return;
         const exited = new Promise((r) => proc.once('exit', r));
