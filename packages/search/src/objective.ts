@@ -166,11 +166,6 @@ export function buildSection(w: WebConfig, parts: WebParts, top: FlangeOption, b
   };
 }
 
-/** Number of double-sided bearing-stiffener pairs over the supports. */
-export function bearingPairs(endPost: 'rigid' | 'non-rigid', supports: readonly number[]): number {
-  return 2 * (endPost === 'rigid' ? 2 : 1) + Math.max(0, supports.length - 2);
-}
-
 /** Flange plate mass, kg. */
 export function flangeMass(f: FlangeOption, L: number): number {
   return f.A * L * KG_PER_MM3;
