@@ -4,7 +4,7 @@ import { checkGirder, girderSelfWeight, type CheckOptions, type Effects, type Gi
 import { DEFAULT_COST, defaultSpace, spaceSize, stiffenerStations, type CostModel, type SearchTask, type SpaceSpec } from '@platesmith/search';
 import { designEffects } from '@platesmith/actions';
 import { z } from 'zod';
-import { assertStockThickness, resolveOptions, sectionAssumptions, toSection, type Assumption } from './convert.js';
+import { assertStockThickness, BEARING_SIZING_NOTE, resolveOptions, sectionAssumptions, toSection, type Assumption } from './convert.js';
 import { ProblemFields, problemShape, type ProblemJson } from './problem.js';
 import { SectionJson } from './section.js';
 import { CostJson, SpaceJson, type SpaceJson as SpaceJsonT } from './space.js';
@@ -260,6 +260,7 @@ export function toSearchTask(j: SearchInput, cap = DEFAULT_SPACE_CAP): SearchTas
   const spaceDefaults = Object.keys(SpaceJson.shape).filter((k) => (j.space as Record<string, unknown>)[k] === undefined && !['minDepth', 'maxDepth'].includes(k));
   const all = [...problemAssumptions(j), ...assumptions];
   if (spaceDefaults.length > 0) all.push({ field: 'space', value: spaceDefaults.join(', '), note: 'these fields of the space take the catalogue defaults (see the API schema)' });
-  // the search sizes bearing stiffeners from the flats and reports both end-post types only when asked
+  // the search sizes bearing stiffeners as check does (sizeBearing) and reports both end-post types only when asked
+  all.push({ field: 'bearing', value: 'sized', note: BEARING_SIZING_NOTE });
   return { space, options, analysis, objective: j.objective, cost: toCost(j.cost), assumptions: all };
 }
