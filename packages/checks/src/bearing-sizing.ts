@@ -174,6 +174,9 @@ export interface BearingFloor {
   flats: number;
   /** least outstand, mm */
   bs: number;
+  /** thinnest and thickest plate, mm (a cost rate may depend on the thickness either way) */
+  tsMin: number;
+  tsMax: number;
 }
 
 /**
@@ -203,6 +206,8 @@ export function bearingCandidates(o: Pick<CheckOptions, 'bearingFlats' | 'bearin
     area: Record<EndPost, Float64Array>;
     pairs: Int32Array;
     bs: Float64Array;
+    tsMin: Float64Array;
+    tsMax: Float64Array;
   }
   const tables = new Map<number, Table | null>();
   const tableOf = (outstand: number): Table | null => {
@@ -212,13 +217,15 @@ export function bearingCandidates(o: Pick<CheckOptions, 'bearingFlats' | 'bearin
     if (fit.length === 0) t = null;
     else {
       const n = fit.length;
-      t = { F: Float64Array.from(fit, (f) => f.FbRd), area: { rigid: new Float64Array(n), 'non-rigid': new Float64Array(n) }, pairs: new Int32Array(n), bs: new Float64Array(n) };
+      t = { F: Float64Array.from(fit, (f) => f.FbRd), area: { rigid: new Float64Array(n), 'non-rigid': new Float64Array(n) }, pairs: new Int32Array(n), bs: new Float64Array(n), tsMin: new Float64Array(n), tsMax: new Float64Array(n) };
       for (let i = n - 1; i >= 0; i--) {
         const f = fit[i]!;
         const last = i === n - 1;
         for (const ep of ['rigid', 'non-rigid'] as const) t.area[ep][i] = last ? bearingFlatArea(ep, S, f) : Math.min(t.area[ep][i + 1]!, bearingFlatArea(ep, S, f));
         t.pairs[i] = last ? f.pairs : Math.min(t.pairs[i + 1]!, f.pairs);
         t.bs[i] = last ? f.bs : Math.min(t.bs[i + 1]!, f.bs);
+        t.tsMin[i] = last ? f.ts : Math.min(t.tsMin[i + 1]!, f.ts);
+        t.tsMax[i] = last ? f.ts : Math.max(t.tsMax[i + 1]!, f.ts);
       }
     }
     tables.set(outstand, t);
@@ -238,7 +245,7 @@ export function bearingCandidates(o: Pick<CheckOptions, 'bearingFlats' | 'bearin
         else hi = mid;
       }
       if (lo === t.F.length) return 'none';
-      return { area: t.area[endPost][lo]!, flats: 2 * bearingPairCount(endPost, S, t.pairs[lo]!), bs: t.bs[lo]! };
+      return { area: t.area[endPost][lo]!, flats: 2 * bearingPairCount(endPost, S, t.pairs[lo]!), bs: t.bs[lo]!, tsMin: t.tsMin[lo]!, tsMax: t.tsMax[lo]! };
     },
   };
 }

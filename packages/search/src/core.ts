@@ -174,7 +174,7 @@ export type BearingFlat = Readonly<Record<EndPost, BearingFloor>>;
 export function bearingTerms(supports: readonly number[], b: { bs: number; ts: number; pairs?: number | undefined }): BearingFlat {
   const S = supports.length;
   const n = b.pairs ?? 1;
-  const of = (ep: EndPost): BearingFloor => ({ area: bearingFlatArea(ep, S, b), flats: 2 * bearingPairCount(ep, S, n), bs: b.bs });
+  const of = (ep: EndPost): BearingFloor => ({ area: bearingFlatArea(ep, S, b), flats: 2 * bearingPairCount(ep, S, n), bs: b.bs, tsMin: b.ts, tsMax: b.ts });
   return { rigid: of('rigid'), 'non-rigid': of('non-rigid') };
 }
 
@@ -242,6 +242,9 @@ export function settle(prep: Prepared, w: WebConfig, parts: WebParts, T: FlangeO
 
 export function priceCost(prep: Prepared, w: WebConfig, parts: WebParts, T: FlangeOption, B: FlangeOption, b: BearingFlat, throat: number): number {
   const e = b[w.endPost];
-  return costOf(prep.p.cost, w, parts, T, B, bearingKg(w, b), e.flats, e.bs, prep.L, throat).cost;
+  const cm = prep.p.cost;
+  // the bearing plates' rate depends only on which side of thickAbove they are: the cheaper of the floor's extremes
+  const cheaper = (cm.thickFactor < 1) === (e.tsMax > cm.thickAbove) ? e.tsMax : e.tsMin;
+  return costOf(cm, w, parts, T, B, bearingKg(w, b), e.flats, e.bs, cheaper, prep.L, throat).cost;
 }
 

@@ -181,6 +181,7 @@ export function costOf(
   bearingKg: number,
   bearingFlats: number,
   bearingBs: number,
+  bearingTs: number,
   L: number,
   aw: number,
 ): { cost: number; material: number; fabrication: number; minutes: number } {
@@ -190,7 +191,9 @@ export function costOf(
     parts.webMass * rate(w.grade, w.tw) +
     flangeMass(top, L) * rate(top.grade, top.t) +
     flangeMass(bot, L) * rate(bot.grade, bot.t) +
-    (parts.stiffMass + bearingKg) * rate(w.grade, tStiff);
+    parts.stiffMass * rate(w.grade, tStiff) +
+    // bearing stiffeners at the rate of their own thickness (cut from thick plate they may cost more per kg)
+    bearingKg * rate(w.grade, bearingTs);
   const mass = parts.webMass + parts.stiffMass + bearingKg + flangeMass(top, L) + flangeMass(bot, L);
   const kappa = MIN_PARTS + parts.stiffCount + bearingFlats;
   const T1 = assemblyMinutes(cm, kappa, mass);

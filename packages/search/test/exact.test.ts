@@ -50,7 +50,8 @@ describe('search = brute force when the bearing stiffeners come from plate or in
   const arb = fc.record({
     problem: problemArb,
     flats: fc.subarray([{ b: 80, t: 8 }, { b: 100, t: 10 }], { minLength: 1 }),
-    plates: fc.subarray([8, 10, 12, 15, 20, 25], { minLength: 1, maxLength: 3 }),
+    // 45 mm: above the cost model's thickAbove (40), so the bearing plates' own rate is exercised under the cost objective
+    plates: fc.subarray([8, 10, 12, 15, 20, 25, 45], { minLength: 1, maxLength: 3 }),
     heavy: fc.double({ min: 60, max: 160, noNaN: true }),
   });
   let beyondFlats = 0;
