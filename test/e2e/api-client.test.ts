@@ -89,6 +89,12 @@ test('searchGirders: a small space answers its Pareto set; a saturated service a
   expect(r.response.status).toBe(200);
   expect(r.data?.pareto.length).toBeGreaterThan(0);
   expect(r.data?.stats.spaceSize).toBe(54);
+  // issue 17 item 6: every Pareto point says what stops it being lighter, and the space fields it sits at the edge of
+  for (const p of r.data!.pareto) {
+    expect(Array.isArray(p.limitedBy)).toBe(true);
+    expect(Array.isArray(p.edge)).toBe(true);
+    for (const l of p.limitedBy!) expect(['fails', 'not-lighter', 'outside-space']).toContain(l.outcome);
+  }
   const full = await start({ threads: 1, maxActiveSearches: 0 });
   try {
     const busy = await (await contractClient(full.url)).client.POST('/v1/searches', { body: demoGirderRequest(readJson(root, FILES.demoProject) as any, DEMO_MARK) as any });

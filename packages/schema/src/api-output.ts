@@ -44,6 +44,21 @@ export const PublishedVerdictJson = z
   })
   .meta({ id: 'Verdict', description: 'every check of the section and the governing one' });
 
+export const LimitJson = z
+  .object({
+    move: z.enum(['web-thickness', 'flange-thickness', 'top-flange-thickness', 'bottom-flange-thickness', 'flange-width', 'top-flange-width', 'bottom-flange-width', 'fewer-panels', 'lighter-flats', 'one-side']).meta({ description: 'the one-step lighter change to the point' }),
+    change: z.string().meta({ description: 'the change in words, mm, e.g. "web thickness 10 → 8"' }),
+    outcome: z.enum(['fails', 'not-lighter', 'outside-space', 'passes']).meta({
+      description: 'fails: a check fails the lighter section (check, clause, utilisation); not-lighter: it passes but weighs (costs) no less overall, e.g. heavier bearing stiffeners (value); outside-space: the space does not hold it (reason); passes: it passes and is lighter, which the exact search rules out',
+    }),
+    check: z.string().optional().meta({ description: 'the failing check with the highest utilisation' }),
+    clause: z.string().optional(),
+    utilisation: z.number().optional().meta({ description: 'of that check, -' }),
+    value: z.number().optional().meta({ description: "the lighter section's objective value: kg, or cost units" }),
+    reason: z.string().optional().meta({ description: 'why the space does not hold it' }),
+  })
+  .meta({ id: 'Limit', description: 'what rules out one one-step lighter neighbour of a Pareto point, judged as check judges it (its own self-weight and parts)' });
+
 export const PublishedPointJson = z
   .object({
     depth: z.number().meta({ description: 'overall depth h = hw + tf,top + tf,bot, mm' }),
@@ -53,6 +68,11 @@ export const PublishedPointJson = z
     section: SectionJson,
     governing: PublishedCheckJson,
     checks: z.array(PublishedCheckJson),
+    limitedBy: z.array(LimitJson).optional().meta({ description: 'what stops the point being lighter (cheaper): each one-step lighter neighbour in the space (thinner web, thinner or narrower flanges, fewer or lighter stiffeners) and what rules it out. On every point of a single search; not on schedule marks' }),
+    edge: z
+      .array(z.enum(['webDepth', 'webThickness', 'flangeThickness', 'flangeWidth', 'panels']))
+      .optional()
+      .meta({ description: 'space fields at whose largest value the point sits: the space may be too small there (a larger value might give a lighter girder). Single searches only' }),
   })
   .meta({ id: 'ParetoPoint' });
 

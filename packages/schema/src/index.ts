@@ -26,12 +26,13 @@ export {
   DEFAULT_SPACE_CAP,
   type CheckJob,
 } from './problem-convert.js';
-export { publishSearch, publishPoint, searchMessage, type PublishedSearch, type PublishedPoint, type PublishedMiss, type SearchAbort } from './search-output.js';
+export { publishSearch, publishPoint, searchMessage, edgeNote, type PublishedSearch, type PublishedPoint, type PublishedMiss, type PublishedLimit, type SearchAbort } from './search-output.js';
 export {
   PublishedCheckJson,
   AssumptionJson,
   PublishedVerdictJson,
   PublishedPointJson,
+  LimitJson,
   PublishedMissJson,
   SearchStatsJson,
   PublishedSearchJson,

@@ -2,6 +2,7 @@ import type { FySource } from '@platesmith/catalogue';
 import { bearingCandidates, bearingFlatArea, bearingPairCount, panelsOf, resolveBearing, type BearingCandidates, type BearingFloor, type CheckOptions, type EndPost, type GirderVerdict, type Section } from '@platesmith/checks';
 import { fy, G_ACC, STEEL_KG_PER_MM3 as KG_PER_MM3 } from '@platesmith/catalogue';
 import type { LoadModel } from './load.js';
+import type { Limit, SpaceEdge } from './limits.js';
 import { buildSection, costOf, flangeMass, type CostModel, type WebParts } from './objective.js';
 
 import { flangeGroups, WebTable, type FlangeGroup, type FlangeOption, type SpaceSpec, type WebConfig } from './space.js';
@@ -32,6 +33,10 @@ export interface Evaluated {
   /** the objective's value (kg or €) */
   value: number;
   verdict: GirderVerdict;
+  /** what rules out each one-step lighter neighbour (explained answers only: limits.ts) */
+  limitedBy?: Limit[];
+  /** the space's fields at whose largest value this point sits (explained answers only) */
+  edge?: SpaceEdge[];
 }
 
 export interface PruneStats {

@@ -22,3 +22,4 @@ export { paretoFront } from './pareto.js';
 export { bruteForce } from './brute.js';
 export { search, mergeSlices, watchStop, type SearchResult, type SearchStatus } from './search.js';
 export { problemOf, stiffenerStations, type SearchTask } from './task.js';
+export { explainPoints, explanationOf, explained, limitsOf, edgesOf, strongestMisses, needsMisses, type Limit, type LimitMove, type SpaceEdge, type Explained, type Explanation } from './limits.js';

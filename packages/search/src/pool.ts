@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { availableParallelism } from 'node:os';
 import { Piscina } from 'piscina';
 import { mergeSlices, type SearchResult } from './search.js';
+import { explained, needsMisses, type Explanation } from './limits.js';
 import { assertSpace, flangeGroups, spaceSize, webPlateCounts } from './space.js';
 import type { SearchTask } from './task.js';
 import { zeroPrunes, type SliceResult } from './core.js';
@@ -73,7 +74,17 @@ export interface PoolSearchOptions {
   /** after `stop`, how long the workers may take to return before they are aborted, ms (default 2000) */
   stopGraceMs?: number;
   onSlice?: (done: number, total: number) => void;
+  /**
+   * the work done, a few times a second while the slices run: candidates settled (judged, or ruled
+   * out by a bound or the rules) out of the candidates the slices hold
+   */
+  onProgress?: (settled: number, size: number) => void;
+  /** each Pareto point with what rules out its lighter neighbours, and the nearest misses always present (limits.ts), judged on the workers */
+  explain?: boolean;
 }
+
+/** How often the pool reads the slices' progress, ms. */
+const PROGRESS_MS = 250;
 
 export async function searchOnPool(pool: SearchPool, task: SearchTask, o: PoolSearchOptions = {}): Promise<SearchResult> {
   const onSlice = o.onSlice;
@@ -107,16 +118,34 @@ export async function searchOnPool(pool: SearchPool, task: SearchTask, o: PoolSe
   if (o.stop?.aborted) onStop();
   else o.stop?.addEventListener('abort', onStop, { once: true });
   let done = 0;
+  // the slices write (settled, size) pairs here; read a few times a second for onProgress
+  const progressBuf = o.onProgress ? new SharedArrayBuffer(16 * nSlices) : undefined;
+  let lastSettled = -1;
+  const readProgress = (): void => {
+    const v = new Float64Array(progressBuf!);
+    let settled = 0;
+    let size = 0;
+    for (let k = 0; k < nSlices; k++) {
+      settled += v[2 * k]!;
+      size += v[2 * k + 1]!;
+    }
+    if (size > 0 && settled !== lastSettled) {
+      lastSettled = settled;
+      o.onProgress!(settled, size);
+    }
+  };
+  const ticker = progressBuf ? setInterval(readProgress, PROGRESS_MS) : undefined;
   try {
     const settled = await Promise.allSettled(
       Array.from({ length: nSlices }, (_, slot) =>
-        (pool.piscina.run({ kind: 'slice', task, runs: plates, shared, searchId, ...(o.stop ? { stop: stopFlag } : {}), ...(nSlices > 1 ? { part: { slot, of: nSlices } } : {}) } satisfies WorkerMessage, { signal: runSignal }) as Promise<SliceResult>).then((r) => {
+        (pool.piscina.run({ kind: 'slice', task, runs: plates, shared, searchId, ...(o.stop ? { stop: stopFlag } : {}), ...(progressBuf ? { progress: progressBuf } : {}), ...(nSlices > 1 ? { part: { slot, of: nSlices } } : {}) } satisfies WorkerMessage, { signal: runSignal }) as Promise<SliceResult>).then((r) => {
           onSlice?.(++done, nSlices);
           return r;
         }),
       ),
     );
     if (o.signal?.aborted) throw o.signal.reason;
+    if (progressBuf) readProgress();
     const results: SliceResult[] = [];
     for (const s of settled) {
       if (s.status === 'fulfilled') results.push(s.value);
@@ -124,8 +153,19 @@ export async function searchOnPool(pool: SearchPool, task: SearchTask, o: PoolSe
       else if (late.signal.aborted) results.push({ front: [], nearMisses: [], spaceSize: 0, fullEvaluations: 0, pruned: zeroPrunes(), failedBy: {}, complete: false });
       else throw s.reason;
     }
-    return mergeSlices(results, performance.now() - t0, pool.threads, n, spaceSize(task.space));
+    const merged = mergeSlices(results, performance.now() - t0, pool.threads, n, spaceSize(task.space));
+    if (!o.explain) return merged;
+    // the points dealt round-robin to the workers (deeper points have heavier plates, not more work)
+    const parts = Array.from({ length: Math.max(1, Math.min(pool.threads, merged.pareto.length)) }, (_, k) => merged.pareto.filter((_, i) => i % pool.threads === k));
+    const misses = needsMisses(merged);
+    const answers = await Promise.all(
+      parts.map((points, k) => pool.piscina.run({ kind: 'explain', task, searchId, points, misses: misses && k === 0 } satisfies WorkerMessage, o.signal ? { signal: o.signal } : {}) as Promise<Explanation>),
+    );
+    const explainedPoints: Explanation['points'] = new Array(merged.pareto.length);
+    answers.forEach((a, k) => a.points.forEach((x, j) => (explainedPoints[j * pool.threads + k] = x)));
+    return { ...explained(merged, { points: explainedPoints, misses: answers[0]!.misses }), stats: { ...merged.stats, wallMs: performance.now() - t0 } };
   } finally {
+    clearInterval(ticker);
     clearTimeout(grace);
     o.stop?.removeEventListener('abort', onStop);
   }

@@ -1,5 +1,6 @@
 import { assertSpace, spaceSize } from './space.js';
 import { prepareSearch, zeroPrunes, type Evaluated, type PruneStats, type SearchProblem, type SliceResult } from './core.js';
+import { explained, explanationOf, needsMisses } from './limits.js';
 import { searchSlice } from './slice/best-first.js';
 import { paretoFront } from './pareto.js';
 
@@ -77,12 +78,16 @@ export function watchStop(stop: () => boolean): { signal: { readonly aborted: bo
   };
 }
 
-/** Single-threaded exact search (the worker pool runs the same slices in parallel). */
-export function search(p: SearchProblem, signal?: { aborted: boolean }): SearchResult {
+/**
+ * Single-threaded exact search (the worker pool runs the same slices in parallel). With
+ * `explain`, each Pareto point says what rules out its lighter neighbours (limits.ts).
+ */
+export function search(p: SearchProblem, signal?: { aborted: boolean }, o: { explain?: boolean } = {}): SearchResult {
   const t0 = performance.now();
   assertSpace(p.space);
   const prep = prepareSearch(p);
   const w = signal ? watchStop(() => signal.aborted) : undefined;
   const r = searchSlice(prep, [[0, prep.webs.length]], w?.signal);
-  return mergeSlices([{ ...r, complete: !(w?.cut() ?? false) }], performance.now() - t0, 1, prep.webs.length, spaceSize(p.space));
+  const merged = mergeSlices([{ ...r, complete: !(w?.cut() ?? false) }], performance.now() - t0, 1, prep.webs.length, spaceSize(p.space));
+  return o.explain ? explained(merged, explanationOf(prep, merged.pareto, needsMisses(merged))) : merged;
 }

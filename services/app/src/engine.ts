@@ -67,7 +67,7 @@ export interface Engine {
    * A search: the analysis on a worker, then the slices; at its budget the workers hand back the
    * verified points found so far and the answer is `aborted` (never an error).
    */
-  search(input: SearchInput, o?: RunOptions & { onSlice?: (done: number, total: number) => void }): Promise<PublishedSearch>;
+  search(input: SearchInput, o?: RunOptions & { onSlice?: (done: number, total: number) => void; onProgress?: (settled: number, size: number) => void }): Promise<PublishedSearch>;
   /** a search of a prepared task outside the admission gate (schedule marks); rejects when `signal` aborts */
   searchTask(task: SearchTask, signal?: AbortSignal): Promise<SearchResult>;
   /** any message on the pool, admitted and budgeted like a request (tests send fixture messages) */
@@ -162,6 +162,8 @@ export function createEngine(opts: EngineOptions = {}): Engine {
             ...(budget ? { stop: budget } : {}),
             ...(opts.stopGraceMs !== undefined ? { stopGraceMs: opts.stopGraceMs } : {}),
             ...(o.onSlice ? { onSlice: o.onSlice } : {}),
+            ...(o.onProgress ? { onProgress: o.onProgress } : {}),
+            explain: true,
           });
         } catch (e) {
           throw failure(e, o, undefined);

@@ -1,6 +1,6 @@
 import { isDomainError, type DomainErrorData } from '@platesmith/catalogue';
 import type { EffectsSummaryJson, ProblemJson, SearchInput } from '@platesmith/schema';
-import type { SearchTask, SliceResult } from '@platesmith/search';
+import type { Explanation, SearchTask, SliceResult } from '@platesmith/search';
 import runSearchMessage, { type WorkerMessage as SearchMessage } from '@platesmith/search/worker';
 import { checkSection, effectsOf, searchTaskOf, type CheckRequest, type CheckResponse } from './requests.js';
 
@@ -34,7 +34,7 @@ function answer<T>(f: () => T): Answer<T> {
   }
 }
 
-export default function run(msg: AppMessage): Answers[keyof Answers] | SliceResult | 'pong' {
+export default function run(msg: AppMessage): Answers[keyof Answers] | SliceResult | Explanation | 'pong' {
   switch (msg.kind) {
     case 'check':
       return answer(() => checkSection(msg.input));
