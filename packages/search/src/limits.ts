@@ -13,7 +13,7 @@
  * A neighbour that passes and is lighter (cheaper) at no greater depth would contradict the
  * search's exactness; the exactness tests hold that it never happens.
  */
-import { fy } from '@platesmith/catalogue';
+import { DomainError, fy } from '@platesmith/catalogue';
 import { checkGirder, girderSelfWeight, type CheckId, type GirderVerdict, type Section } from '@platesmith/checks';
 import { settle, type Evaluated, type Prepared } from './core.js';
 import type { SearchResult } from './search.js';
@@ -150,7 +150,15 @@ export function limitsOf(prep: Prepared, e: Evaluated): Limit[] {
     if (n.reason) return { ...head, outcome: 'outside-space' as const, reason: n.reason };
     const depth = w.hw + T.t + B.t;
     if (depth < sp.minDepth) return { ...head, outcome: 'outside-space' as const, reason: `overall depth ${depth} mm below minDepth ${sp.minDepth} mm` };
-    const { verdict, value } = judge(prep, w, T, B);
+    let judged: ReturnType<typeof judge>;
+    try {
+      judged = judge(prep, w, T, B);
+    } catch (err) {
+      // a neighbour the check library cannot take as a section (e.g. a flange not wider than the web): not a girder of the space
+      if (err instanceof DomainError) return { ...head, outcome: 'outside-space' as const, reason: err.message };
+      throw err;
+    }
+    const { verdict, value } = judged;
     if (!verdict.passes) {
       const g = worstFailure(verdict);
       return { ...head, outcome: 'fails' as const, check: g.id, clause: g.clause, utilisation: g.utilisation };
