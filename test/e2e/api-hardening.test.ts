@@ -116,6 +116,81 @@ describe('3. unbounded synchronous work on the event loop', () => {
   });
 });
 
+describe('3c. a schedule\'s finish (rationalisation) and the calculation record ran on the event loop', () => {
+  // One pool thread running the fixture worker: its `hold` makes the next message of a kind wait
+  // on a gate, so the test sees that message reach the pool (it never did while the work ran on
+  // the event loop: the wait for `entered` fails) and looks at the service while it is held there.
+  // The liveness limit is generous (5 s, as the issue asks): a liveness check, not a speed target.
+  const LIVENESS_MS = 5000;
+  const reached = (g: { entered: Promise<void> }, what: string) =>
+    Promise.race([g.entered, new Promise<never>((_, reject) => setTimeout(() => reject(new Error(`${what} never reached a worker: it ran on the event loop`)), 60_000).unref())]);
+  const alive = async (w: Running) => {
+    const t0 = performance.now();
+    const h = await w.get('/health');
+    expect(h.status).toBe(200);
+    expect(performance.now() - t0).toBeLessThan(LIVENESS_MS);
+  };
+
+  test('a large calculation record runs on a worker: /health answers while it is held there, and the record is the full HTML', async () => {
+    const { FIXTURE_WORKER, gate } = await import('../../services/app/test/fixtures/worker.js');
+    const g = gate();
+    const w = await start({ threads: 1, workerFile: FIXTURE_WORKER, routes: (app) => app.post('/_test/hold', async () => app.engine.run({ kind: 'hold', on: 'record', gate: g.buffer })) });
+    try {
+      expect((await w.post('/_test/hold', {})).body).toBe('held');
+      let settled = false;
+      // three 30 m spans at 400 grid divisions: a record of many stations (the largest the check form takes in a few seconds)
+      const pending = w.post('/v1/records', checkBody({ spans: [30000, 30000, 30000], gridDivisions: 400, title: { mark: 'G-99' } })).finally(() => (settled = true));
+      await reached(g, 'the record');
+      await alive(w);
+      expect(settled).toBe(false);
+      g.open();
+      // while the record's check and document are built on the worker, /health keeps answering
+      while (!settled) await alive(w);
+      const r = await pending;
+      expect(r.status).toBe(200);
+      expect(r.headers.get('content-type')).toMatch(/text\/html/);
+      expect(String(r.body)).toMatch(/G-99/);
+    } finally {
+      g.open();
+      await w.close();
+    }
+  });
+
+  test('a schedule\'s finish with its rationalisation runs on a worker within the job: /health answers while it is held there, and the job then finishes with it', async () => {
+    const { FIXTURE_WORKER, gate } = await import('../../services/app/test/fixtures/worker.js');
+    const g = gate();
+    const w = await start({ threads: 1, workerFile: FIXTURE_WORKER, routes: (app) => app.post('/_test/hold', async () => app.engine.run({ kind: 'hold', on: 'finish', gate: g.buffer })) });
+    try {
+      expect((await w.post('/_test/hold', {})).body).toBe('held');
+      const sub = await w.post('/v1/schedules', {
+        name: 'finish',
+        defaults: { ...PROBLEM, space: TINY_SPACE },
+        tender: { rationalise: 2 },
+        girders: [{ mark: 'F1', quantity: 2 }, { mark: 'F2', quantity: 1, spans: [10000] }],
+      });
+      expect(sub.status).toBe(202);
+      await reached(g, 'the schedule\'s finish');
+      await alive(w);
+      // every mark is done, the finish is held on the worker: the job is still running
+      const st = await w.get(`/v1/schedules/${sub.body.id}`);
+      expect(st.body.status).toBe('running');
+      g.open();
+      let job: any;
+      do {
+        await alive(w);
+        job = (await w.get(`/v1/schedules/${sub.body.id}`)).body;
+      } while (!['done', 'failed', 'cancelled'].includes(job.status));
+      expect(job.status).toBe('done');
+      const result = (await w.get(`/v1/schedules/${sub.body.id}/result`)).body;
+      expect(result.tender.rationalisation.marks).toEqual(['F1', 'F2']);
+      expect(result.tender.rationalisation.byK.length).toBeGreaterThan(0);
+    } finally {
+      g.open();
+      await w.close();
+    }
+  });
+});
+
 describe('3b. /health reflects a wedged loop', () => {
   test('a request queued behind work that holds the loop 2 s gets 503 OVERLOADED with Retry-After, /health included', async () => {
     const w = await start({
