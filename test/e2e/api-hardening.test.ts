@@ -109,6 +109,31 @@ describe('3. unbounded synchronous work on the event loop', () => {
     expect(r.status).toBe(422);
     expect(named(r.body)).toContain('actions');
   });
+  test('the client leaving did not stop it: now its work on the worker is stopped when the client goes', async () => {
+    // the fixture worker holds the check's own message on the pool's one thread; the client then
+    // leaves; the request's task is aborted (piscina ends the thread) without the gate ever opening
+    const { FIXTURE_WORKER, gate } = await import('../../services/app/test/fixtures/worker.js');
+    const g = gate();
+    const w = await start({ threads: 1, workerFile: FIXTURE_WORKER, routes: (app) => app.post('/_test/hold', async () => app.engine.run({ kind: 'hold', on: 'check', gate: g.buffer })) });
+    try {
+      expect((await w.post('/_test/hold', {})).body).toBe('held');
+      const client = new AbortController();
+      // the greatest budget, so that only the client's leaving can stop the work within the wait below
+      const sent = fetch(`${w.url}/v1/checks?budgetMs=300000`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(checkBody()), signal: client.signal }).catch(() => 'left');
+      await g.entered;
+      expect(w.app.engine.active()).toBe(1);
+      client.abort();
+      expect(await sent).toBe('left');
+      // bounded wait (the work is stopped at once; 20 s is a liveness limit for a loaded host, far below the budget)
+      for (let i = 0; i < 200 && w.app.engine.active() > 0; i++) await new Promise((r) => setTimeout(r, 100));
+      expect(w.app.engine.active()).toBe(0);
+      // the pool replaced the thread: the next check is answered
+      expect((await w.post('/v1/checks', checkBody())).status).toBe(200);
+    } finally {
+      g.open();
+      await w.close();
+    }
+  });
   test('a check is answered while the event loop stays free: /health answers during it', async () => {
     const pending = srv.post('/v1/checks', checkBody({ spans: [30000, 30000, 30000], gridDivisions: 400 }));
     await healthy();
@@ -236,6 +261,32 @@ describe('5. slow clients', () => {
     expect(closed).toMatch(/^HTTP\/1\.1 408/);
     await healthy();
   });
+  test('9 900 half-sent requests were all held (the file-descriptor limit reached): connections past the cap are refused by the socket', async () => {
+    const w = await start({ threads: 1, maxConnections: 2 });
+    const url = new URL(w.url);
+    const open = (): Promise<{ s: ReturnType<typeof connect>; closed: Promise<void> }> =>
+      new Promise((resolve) => {
+        const s = connect(Number(url.port), url.hostname, () => {
+          // half a request: held until the headers timeout (10 s by default)
+          s.write('POST /v1/checks HTTP/1.1\r\nHost: x\r\n');
+          resolve({ s, closed });
+        });
+        const closed = new Promise<void>((done) => s.on('close', () => done()));
+        s.on('error', () => {});
+      });
+    try {
+      const held = [await open(), await open()];
+      // the third is over the cap: the server closes it at once, while the two held ones stay open
+      const third = await open();
+      await third.closed;
+      for (const h of held) expect(h.s.destroyed).toBe(false);
+      for (const h of held) h.s.destroy();
+      await Promise.all(held.map((h) => h.closed));
+      expect((await w.get('/health')).status).toBe(200);
+    } finally {
+      await w.close();
+    }
+  });
 });
 
 describe('6. errors amplified input', () => {
@@ -355,5 +406,15 @@ describe('11. smaller', () => {
       g.open();
       await one.close();
     }
+  });
+});
+
+describe('found by the fuzz test', () => {
+  test('a space whose flange widths include one not wider than its webs (flangeWidth [0.5, 250, 300]) → 422 naming space.flangeWidth, not a 500', async () => {
+    // it was a 500 WORKER_FAILED: the check library refuses such a section (FLANGE_NARROWER_THAN_WEB) and the search stopped there
+    const r = await srv.post('/v1/searches', { ...PROBLEM, space: { ...TINY_SPACE, flangeWidth: [0.5, 250, 300] } });
+    expect(r.status).toBe(422);
+    expect(r.body).toMatchObject({ code: 'FLANGE_NARROWER_THAN_WEB', field: 'space.flangeWidth' });
+    await healthy();
   });
 });

@@ -199,10 +199,19 @@ export function toSpace(j: SpaceJsonT): SpaceSpec {
     return { b: f.width, t: f.thickness };
   });
   if (panelsNorm.some((n) => n > 0) && flats.length === 0) throw new DomainError('EMPTY_SPACE', 'stiffened layouts are asked for but space.flats is empty', 'give flats, or panels [0]', 'space.flats');
+  const tw = grid(j.webThickness, d.tw, 'space.webThickness', 150);
+  const bf = grid(j.flangeWidth, d.bf, 'space.flangeWidth', 3000);
+  // every flange wider than every web: the check library takes no other section (EN 1993 I-section),
+  // so a narrower width would stop the search at its first such candidate, not be judged
+  const bfMin = Math.min(...bf);
+  const twMax = Math.max(...tw);
+  if (bfMin <= twMax) {
+    throw new DomainError('FLANGE_NARROWER_THAN_WEB', `space.flangeWidth holds ${bfMin} mm, not wider than the thickest web of the space (${twMax} mm)`, 'every flange width must exceed every web thickness of the space (widths and thicknesses in mm)', 'space.flangeWidth', { value: bfMin, limit: twMax });
+  }
   return {
     hw: grid(j.webDepth, d.hw, 'space.webDepth', 10_000),
-    tw: grid(j.webThickness, d.tw, 'space.webThickness', 150),
-    bf: grid(j.flangeWidth, d.bf, 'space.flangeWidth', 3000),
+    tw,
+    bf,
     tf,
     symmetric: j.symmetric,
     panels: panelsNorm,
