@@ -49,3 +49,20 @@ test.for(['--budget-ms=0x1000', '--budget-ms=1e3', '--budget-ms', '--budget-ms=5
   expect(r.code).toBe(2);
   expect(r.err).toMatch(/--budget-ms/);
 });
+
+test('progress by work done on standard error (not a terminal: one line per tenth), ending at every candidate settled; stdout stays JSON', async () => {
+  const file = join(dir, 'progress.json');
+  writeFileSync(file, JSON.stringify({ spans: [12000], actions, space: { webDepth: [700, 800, 900], webThickness: [8, 10], flangeWidth: [200, 250, 300], flangeThickness: [12, 15, 20], panels: [0, 4], endPost: 'rigid' }, options: { restraint: 'continuous' } }));
+  const r = await run('search', file, '--json');
+  const lines = r.err.split('\n').filter((l) => l.startsWith('[search]'));
+  expect(lines.length).toBeGreaterThan(0);
+  const parsed = lines.map((l) => /\[search\] ([\d ]+) of ([\d ]+) candidates settled \(([\d.]+) %/.exec(l)!);
+  for (const m of parsed) expect(m).not.toBeNull();
+  const nums = parsed.map((m) => [Number(m[1]!.replace(/ /g, '')), Number(m[2]!.replace(/ /g, ''))] as const);
+  // the count never goes down, and the last line has every candidate the search holds settled
+  for (let i = 1; i < nums.length; i++) expect(nums[i]![0]).toBeGreaterThanOrEqual(nums[i - 1]![0]);
+  expect(nums.at(-1)![0]).toBe(nums.at(-1)![1]);
+  const out = JSON.parse(r.out);
+  // the space of the answer: every candidate is settled, the rules' share counted at the merge
+  expect(nums.at(-1)![1]).toBeLessThanOrEqual(out.stats.spaceSize);
+});

@@ -199,7 +199,7 @@ test('synchronous searches waited on the shared pool behind a schedule\'s marks:
       ['m3', job],
       ['search', request],
     ] as const;
-    const gates = new Map(named.map(([n]) => [n, gate()]));
+    const gates = new Map<string, ReturnType<typeof gate>>(named.map(([n]) => [n, gate()]));
     const started: string[] = [];
     let wake: () => void = () => {};
     for (const [n] of named) void gates.get(n)!.entered.then(() => {

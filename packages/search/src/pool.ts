@@ -82,11 +82,19 @@ export interface PoolSearchOptions {
   /** after `stop`, how long the workers may take to return before they are aborted, ms (default 2000) */
   stopGraceMs?: number;
   onSlice?: (done: number, total: number) => void;
+  /**
+   * the work done, a few times a second while the slices run: candidates settled (judged, or ruled
+   * out by a bound or the rules) out of the candidates the slices hold
+   */
+  onProgress?: (settled: number, size: number) => void;
   /** each Pareto point with what rules out its lighter neighbours, and the nearest misses always present (limits.ts), judged on the workers */
   explain?: boolean;
   /** whose search this is: its tasks take turns on the pool's queue with other flows' (FairTaskQueue) */
   flow?: Flow;
 }
+
+/** How often the pool reads the slices' progress, ms. */
+const PROGRESS_MS = 250;
 
 export async function searchOnPool(pool: SearchPool, task: SearchTask, o: PoolSearchOptions = {}): Promise<SearchResult> {
   const onSlice = o.onSlice;
@@ -120,16 +128,34 @@ export async function searchOnPool(pool: SearchPool, task: SearchTask, o: PoolSe
   if (o.stop?.aborted) onStop();
   else o.stop?.addEventListener('abort', onStop, { once: true });
   let done = 0;
+  // the slices write (settled, size) pairs here; read a few times a second for onProgress
+  const progressBuf = o.onProgress ? new SharedArrayBuffer(16 * nSlices) : undefined;
+  let lastSettled = -1;
+  const readProgress = (): void => {
+    const v = new Float64Array(progressBuf!);
+    let settled = 0;
+    let size = 0;
+    for (let k = 0; k < nSlices; k++) {
+      settled += v[2 * k]!;
+      size += v[2 * k + 1]!;
+    }
+    if (size > 0 && settled !== lastSettled) {
+      lastSettled = settled;
+      o.onProgress!(settled, size);
+    }
+  };
+  const ticker = progressBuf ? setInterval(readProgress, PROGRESS_MS) : undefined;
   try {
     const settled = await Promise.allSettled(
       Array.from({ length: nSlices }, (_, slot) =>
-        (pool.piscina.run(inFlow({ kind: 'slice', task, runs: plates, shared, searchId, ...(o.stop ? { stop: stopFlag } : {}), ...(nSlices > 1 ? { part: { slot, of: nSlices } } : {}) } satisfies WorkerMessage, o.flow), { signal: runSignal }) as Promise<SliceResult>).then((r) => {
+        (pool.piscina.run(inFlow({ kind: 'slice', task, runs: plates, shared, searchId, ...(o.stop ? { stop: stopFlag } : {}), ...(progressBuf ? { progress: progressBuf } : {}), ...(nSlices > 1 ? { part: { slot, of: nSlices } } : {}) } satisfies WorkerMessage, o.flow), { signal: runSignal }) as Promise<SliceResult>).then((r) => {
           onSlice?.(++done, nSlices);
           return r;
         }),
       ),
     );
     if (o.signal?.aborted) throw o.signal.reason;
+    if (progressBuf) readProgress();
     const results: SliceResult[] = [];
     for (const s of settled) {
       if (s.status === 'fulfilled') results.push(s.value);
@@ -149,6 +175,7 @@ export async function searchOnPool(pool: SearchPool, task: SearchTask, o: PoolSe
     answers.forEach((a, k) => a.points.forEach((x, j) => (explainedPoints[j * pool.threads + k] = x)));
     return { ...explained(merged, { points: explainedPoints, misses: answers[0]!.misses }), stats: { ...merged.stats, wallMs: performance.now() - t0 } };
   } finally {
+    clearInterval(ticker);
     clearTimeout(grace);
     o.stop?.removeEventListener('abort', onStop);
   }

@@ -26,6 +26,8 @@ export interface SliceMessage {
    * returns the verified points found so far, marked incomplete
    */
   stop?: SharedArrayBuffer;
+  /** progress out: Float64 pairs (settled, size) per slot (part.slot, or 0), written as the slice goes */
+  progress?: SharedArrayBuffer;
 }
 
 export interface PingMessage {
@@ -52,7 +54,15 @@ export default function run(msg: WorkerMessage): SliceResult | Explanation | 'po
   for (const wi of msg.webIdx ?? []) runs.push([wi, 1]);
   const flag = msg.stop ? new Int32Array(msg.stop) : undefined;
   const w = flag ? watchStop(() => Atomics.load(flag, 0) !== 0) : undefined;
-  const r = searchSlice(preparedFor(msg), runs, w?.signal, msg.shared ? new SharedStairs(msg.shared) : undefined, msg.part);
+  const out = msg.progress ? new Float64Array(msg.progress) : undefined;
+  const slot = 2 * (msg.part?.slot ?? 0);
+  const report = out
+    ? (settled: number, size: number) => {
+        out[slot] = settled;
+        out[slot + 1] = size;
+      }
+    : undefined;
+  const r = searchSlice(preparedFor(msg), runs, w?.signal, msg.shared ? new SharedStairs(msg.shared) : undefined, msg.part, report);
   return w?.cut() ? { ...r, complete: false } : r;
 }
 

@@ -73,7 +73,7 @@ export interface Engine {
    * A search: the analysis on a worker, then the slices; at its budget the workers hand back the
    * verified points found so far and the answer is `aborted` (never an error).
    */
-  search(input: SearchInput, o?: RunOptions & { onSlice?: (done: number, total: number) => void }): Promise<PublishedSearch>;
+  search(input: SearchInput, o?: RunOptions & { onSlice?: (done: number, total: number) => void; onProgress?: (settled: number, size: number) => void }): Promise<PublishedSearch>;
   /** a search of a prepared task outside the admission gate (schedule marks); rejects when `signal` aborts */
   searchTask(task: SearchTask, signal?: AbortSignal, flow?: Flow): Promise<SearchResult>;
   /** the calculation record of one girder as HTML (the check and the document on a worker), admitted and budgeted like a check */
@@ -182,6 +182,7 @@ export function createEngine(opts: EngineOptions = {}): Engine {
             ...(opts.stopGraceMs !== undefined ? { stopGraceMs: opts.stopGraceMs } : {}),
             ...(o.onSlice ? { onSlice: o.onSlice } : {}),
             ...(o.flow ? { flow: o.flow } : {}),
+            ...(o.onProgress ? { onProgress: o.onProgress } : {}),
             explain: true,
           });
         } catch (e) {

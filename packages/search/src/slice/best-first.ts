@@ -32,9 +32,18 @@ import { createSliceState, type OuterBound } from './state.js';
  * a slice): the Pareto set of overall depth against the objective, for that slice. A run may hold
  * several web plates or part of one; the parts of one plate in different runs are searched apart
  * (the same answer, less sharing). `part` shares the slice's runs out between workers; `signal`
- * stops the search (the points found so far are returned).
+ * stops the search (the points found so far are returned). `progress` is told, every few thousand
+ * nodes and at the end, how many of the slice's candidates are settled (judged, or ruled out by a
+ * bound or the rules) out of its size: the work done, for a progress display.
  */
-export function searchSlice(prep: Prepared, runs: readonly (readonly [first: number, count: number])[], signal?: { aborted: boolean }, outer?: OuterBound, part?: SlicePart): SliceResult {
+export function searchSlice(
+  prep: Prepared,
+  runs: readonly (readonly [first: number, count: number])[],
+  signal?: { aborted: boolean },
+  outer?: OuterBound,
+  part?: SlicePart,
+  progress?: (settled: number, size: number) => void,
+): SliceResult {
   const byPlate = platesOfRuns(prep.plateStarts, runs);
   // the fabrication rules can leave no flange option or no web configuration: nothing to search
   // (the candidates they left out are counted when the slices are merged, mergeSlices)
@@ -42,8 +51,11 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
   const s = createSliceState(prep, byPlate, signal, outer, part);
   seedRuns(s);
   const { heap, pruned } = s;
+  let pops = 0;
+  if (progress) progress(settledOf(s.pruned, s.fullEvaluations), s.spaceSize);
   for (;;) {
     if (s.signal?.aborted) break;
+    if (progress && (++pops & (PROGRESS_EVERY - 1)) === 0) progress(settledOf(s.pruned, s.fullEvaluations), s.spaceSize);
     const nd = heap.pop();
     if (!nd) break;
     if (nd.kind === 0) {
@@ -60,7 +72,18 @@ export function searchSlice(prep: Prepared, runs: readonly (readonly [first: num
     } else if (nd.kind === 1) judgePlates(s, nd);
     else judgeLayouts(s, nd);
   }
+  if (progress) progress(settledOf(s.pruned, s.fullEvaluations), s.spaceSize);
   return { front: [...s.stairs], nearMisses: nearMissesOf(s), spaceSize: s.spaceSize, fullEvaluations: s.fullEvaluations, pruned, failedBy: s.failedBy };
+}
+
+/** How many nodes between two progress reports (a power of two). */
+const PROGRESS_EVERY = 4096;
+
+/** Candidates settled so far: judged in full, or counted under the bound or rule that ruled them out. */
+function settledOf(pruned: SliceResult['pruned'], judged: number): number {
+  let n = judged;
+  for (const k in pruned) n += pruned[k as keyof typeof pruned];
+  return n;
 }
 
 function emptySlice(): SliceResult {

@@ -4,28 +4,40 @@ import { EXIT, InputError, type Out } from '../io.js';
 import { caution, renderAssumptions } from '../render.js';
 import { count, fmt, progressBar, table, TABLE_WIDTH } from '../table.js';
 
-/** Progress of a search on standard error: a bar on a terminal, one plain line per step otherwise. */
-export function searchProgress(io: Out, quiet: boolean, tty = process.stderr.isTTY === true): (done: number, total: number) => void {
+/**
+ * Progress of a search on standard error, by work done: candidates settled (judged, or ruled out by
+ * a bound or the fabrication rules) out of the space, with the time taken and an estimate of the
+ * time left. A bar on a terminal; otherwise one plain line per tenth of the work. The estimate is
+ * rough: bounds rule out large parts of the space at once, most of them near the end.
+ */
+export function searchProgress(io: Out, quiet: boolean, tty = process.stderr.isTTY === true): (settled: number, size: number) => void {
   const t0 = performance.now();
-  return (done, total) => {
-    if (quiet) return;
+  let lastTenth = -1;
+  return (settled, size) => {
+    if (quiet || size <= 0) return;
+    const f = Math.min(1, settled / size);
     const s = (performance.now() - t0) / 1000;
-    const left = done < total ? `, about ${Math.ceil((s / done) * (total - done))} s left` : '';
-    const line = `${done}/${total} parts of the space searched (${s.toFixed(1)} s${left})`;
-    if (tty) process.stderr.write(`\r${progressBar(done, total)} ${line}`.padEnd(100) + (done === total ? '\n' : ''));
-    else io.err(`[search] ${line}`);
+    const left = f > 0 && f < 1 ? `, about ${Math.ceil((s / f) * (1 - f))} s left` : '';
+    const line = `${count(settled)} of ${count(size)} candidates settled (${(f * 100).toFixed(f < 1 ? 1 : 0)} %, ${s.toFixed(1)} s${left})`;
+    if (tty) process.stderr.write(`\r${progressBar(settled, size)} ${line}`.padEnd(100) + (f >= 1 ? '\n' : ''));
+    else {
+      const tenth = Math.floor(f * 10);
+      if (tenth === lastTenth) return;
+      lastTenth = tenth;
+      io.err(`[search] ${line}`);
+    }
   };
 }
 
 /** The search of one input on a fresh engine (its own worker pool), within `budgetMs` when given. */
-export async function solve(input: unknown, opts: { threads?: number; budgetMs?: number; onProgress?: (done: number, total: number) => void } = {}): Promise<PublishedSearch> {
+export async function solve(input: unknown, opts: { threads?: number; budgetMs?: number; onProgress?: (settled: number, size: number) => void } = {}): Promise<PublishedSearch> {
   const parsed = parseWith(SearchInput, input);
   if (!parsed.ok) throw new InputError(formatIssues(parsed.issues));
   const engine = createEngine(opts.threads !== undefined ? { threads: opts.threads } : {});
   try {
     return await engine.search(parsed.value, {
       ...(opts.budgetMs !== undefined ? { budgetMs: opts.budgetMs } : {}),
-      ...(opts.onProgress ? { onSlice: opts.onProgress } : {}),
+      ...(opts.onProgress ? { onProgress: opts.onProgress } : {}),
     });
   } finally {
     await engine.close();
@@ -60,7 +72,7 @@ export function renderSearch(r: PublishedSearch, title?: string, wide = false): 
     lines.push(`Pareto set: overall depth against ${r.objective} (each row: nothing shallower or as shallow is lighter)`);
     lines.push(
       table(
-        ['depth (mm)', 'mass (kg)', 'kg/m', ...(r.objective === 'cost' ? [unit] : []), 'section', 'governing check', ...(wide ? ['clause'] : []), 'util.', 'not lighter because'],
+        ['depth (mm)', 'mass (kg)', 'kg/m', ...(r.objective === 'cost' ? [unit] : []), 'section', 'governing check', ...(wide ? ['clause'] : []), 'util.', ...(wide ? ['not lighter because'] : [])],
         r.pareto.map((p) => [
           p.depth,
           fmt(p.mass, 5),
@@ -70,13 +82,13 @@ export function renderSearch(r: PublishedSearch, title?: string, wide = false): 
           p.governing.id,
           ...(wide ? [p.governing.clause] : []),
           p.governing.utilisation?.toFixed(3) ?? 'inf',
-          limitsText(p.limitedBy, r.objective),
+          ...(wide ? [limitsText(p.limitedBy, r.objective)] : []),
         ]),
-        ['r', 'r', 'r', ...(r.objective === 'cost' ? ['r' as const] : []), 'l', 'l', ...(wide ? ['l' as const] : []), 'r', 'l'],
+        ['r', 'r', 'r', ...(r.objective === 'cost' ? ['r' as const] : []), 'l', 'l', ...(wide ? ['l' as const] : []), 'r', ...(wide ? ['l' as const] : [])],
         max,
       ),
     );
-    lines.push(`not lighter because: each one-step lighter change (${LIMIT_LEGEND}) and the check that fails it with its utilisation; "heavier": it passes but is no ${r.objective === 'cost' ? 'cheaper' : 'lighter'} overall`);
+    if (wide) lines.push(`not lighter because: each one-step lighter change (${LIMIT_LEGEND}) and the check that fails it with its utilisation; "heavier": it passes but is no ${r.objective === 'cost' ? 'cheaper' : 'lighter'} overall`);
     const l = r.lightest!;
     lines.push('', `Lightest${r.objective === 'cost' ? ' (cheapest)' : ''}: ${describe(l.section)} — ${fmt(l.mass, 5)} kg, depth ${l.depth} mm, governed by ${l.governing.id} (${l.governing.clause}) at ${l.governing.utilisation?.toFixed(3)}`);
     for (const x of l.limitedBy ?? []) lines.push(`  ${x.change} mm: ${limitWords(x, r.objective)}`);
