@@ -11,7 +11,7 @@
 import { parseWith, SearchInput, toSearchTask } from '@platesmith/schema';
 import { bruteForce, problemOf, search } from '@platesmith/search';
 import { createSearchPool, pingPool, searchOnPool, warmPool } from '@platesmith/search/pool';
-import { Worker } from 'node:worker_threads';
+import { machineLine, machineReference } from './machine.js';
 import { PROBLEMS } from './problems.js';
 
 const json = process.argv.includes('--json');
@@ -23,35 +23,8 @@ function task(input: Record<string, unknown>) {
   return toSearchTask(p.value, 1e12);
 }
 
-/**
- * What this machine's two cores give right now, for reading the figures: the same fixed arithmetic
- * loop timed alone, then on two threads at once (slowest of the two). On a shared host both swing
- * (on this project's machine the mono-symmetric figure and the paired loop moved together by ~2x
- * from one hour to the next), so figures from different runs compare only beside these.
- */
-const LOOP = 'let s = 0; for (let i = 1; i < 2e7; i++) s += Math.sqrt(i) % 7; return s;';
-function loopMs(): number {
-  const t0 = performance.now();
-  new Function(LOOP)();
-  return performance.now() - t0;
-}
-async function machineReference(): Promise<{ loopMsAlone: number; loopMsPaired: number }> {
-  loopMs();
-  const alone = loopMs();
-  const w = new Worker(
-    `const { parentPort } = require('node:worker_threads'); parentPort.once('message', () => { const t0 = performance.now(); (function () { ${LOOP} })(); parentPort.postMessage(performance.now() - t0); });`,
-    { eval: true },
-  );
-  await new Promise((r) => w.once('online', r));
-  const other = new Promise<number>((r) => w.once('message', r));
-  w.postMessage('go');
-  const mine = loopMs();
-  const paired = Math.max(mine, await other);
-  await w.terminate();
-  return { loopMsAlone: Math.round(alone), loopMsPaired: Math.round(paired) };
-}
 const machine = await machineReference();
-if (!json) process.stdout.write(`machine reference: a fixed loop takes ${machine.loopMsAlone} ms alone, ${machine.loopMsPaired} ms on two threads at once\n`);
+if (!json) process.stdout.write(machineLine(machine) + '\n');
 
 const pool = createSearchPool();
 await pingPool(pool);

@@ -199,10 +199,12 @@ export function toSpace(j: SpaceJsonT): SpaceSpec {
     return { b: f.width, t: f.thickness };
   });
   if (panelsNorm.some((n) => n > 0) && flats.length === 0) throw new DomainError('EMPTY_SPACE', 'stiffened layouts are asked for but space.flats is empty', 'give flats, or panels [0]', 'space.flats');
+  const tw = grid(j.webThickness, d.tw, 'space.webThickness', 150);
+  const bf = grid(j.flangeWidth, d.bf, 'space.flangeWidth', 3000);
   return {
     hw: grid(j.webDepth, d.hw, 'space.webDepth', 10_000),
-    tw: grid(j.webThickness, d.tw, 'space.webThickness', 150),
-    bf: grid(j.flangeWidth, d.bf, 'space.flangeWidth', 3000),
+    tw,
+    bf,
     tf,
     symmetric: j.symmetric,
     panels: panelsNorm,
@@ -245,6 +247,14 @@ export function toSearchTask(j: SearchInput, cap = DEFAULT_SPACE_CAP): SearchTas
   const size = spaceSize(space);
   if (size > cap) {
     throw new DomainError('SPACE_TOO_LARGE', `the space holds ${size.toExponential(3)} candidates, over the cap of ${cap.toExponential(0)}`, 'narrow the grids (fewer widths, thicknesses or panel counts) or ask the operator to raise the cap', 'space', { size, cap });
+  }
+  // every flange wider than every web: the check library takes no other section (EN 1993 I-section),
+  // so a narrower width would stop the search at its first such candidate, not be judged (checked
+  // after the size: a space too large to search is refused as such first)
+  const bfMin = Math.min(...space.bf);
+  const twMax = Math.max(...space.tw);
+  if (bfMin <= twMax) {
+    throw new DomainError('FLANGE_NARROWER_THAN_WEB', `space.flangeWidth holds ${bfMin} mm, not wider than the thickest web of the space (${twMax} mm)`, 'every flange width must exceed every web thickness of the space (widths and thicknesses in mm)', 'space.flangeWidth', { value: bfMin, limit: twMax });
   }
   const supports = supportsOf(j);
   const { options, assumptions } = resolveOptions(j.options, supports);
