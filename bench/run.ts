@@ -11,7 +11,7 @@
 import { parseWith, SearchInput, toSearchTask } from '@platesmith/schema';
 import { bruteForce, problemOf, search } from '@platesmith/search';
 import { createSearchPool, pingPool, searchOnPool, warmPool } from '@platesmith/search/pool';
-import { machineReference } from './machine.js';
+import { machineLine, machineReference } from './machine.js';
 import { PROBLEMS } from './problems.js';
 
 const json = process.argv.includes('--json');
@@ -24,7 +24,7 @@ function task(input: Record<string, unknown>) {
 }
 
 const machine = await machineReference();
-if (!json) process.stdout.write(`machine reference: a fixed loop takes ${machine.loopMsAlone} ms alone, ${machine.loopMsPaired} ms on two threads at once\n`);
+if (!json) process.stdout.write(machineLine(machine) + '\n');
 
 const pool = createSearchPool();
 await pingPool(pool);

@@ -109,10 +109,110 @@ describe('3. unbounded synchronous work on the event loop', () => {
     expect(r.status).toBe(422);
     expect(named(r.body)).toContain('actions');
   });
+  test('the client leaving did not stop it: now its work on the worker is stopped when the client goes', async () => {
+    // the fixture worker holds the check's own message on the pool's one thread; the client then
+    // leaves; the request's task is aborted (piscina ends the thread) without the gate ever opening
+    const { FIXTURE_WORKER, gate } = await import('../../services/app/test/fixtures/worker.js');
+    const g = gate();
+    const w = await start({ threads: 1, workerFile: FIXTURE_WORKER, routes: (app) => app.post('/_test/hold', async () => app.engine.run({ kind: 'hold', on: 'check', gate: g.buffer })) });
+    try {
+      expect((await w.post('/_test/hold', {})).body).toBe('held');
+      const client = new AbortController();
+      // the greatest budget, so that only the client's leaving can stop the work within the wait below
+      const sent = fetch(`${w.url}/v1/checks?budgetMs=300000`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(checkBody()), signal: client.signal }).catch(() => 'left');
+      await g.entered;
+      expect(w.app.engine.active()).toBe(1);
+      client.abort();
+      expect(await sent).toBe('left');
+      // bounded wait (the work is stopped at once; 20 s is a liveness limit for a loaded host, far below the budget)
+      for (let i = 0; i < 200 && w.app.engine.active() > 0; i++) await new Promise((r) => setTimeout(r, 100));
+      expect(w.app.engine.active()).toBe(0);
+      // the pool replaced the thread: the next check is answered
+      expect((await w.post('/v1/checks', checkBody())).status).toBe(200);
+    } finally {
+      g.open();
+      await w.close();
+    }
+  });
   test('a check is answered while the event loop stays free: /health answers during it', async () => {
     const pending = srv.post('/v1/checks', checkBody({ spans: [30000, 30000, 30000], gridDivisions: 400 }));
     await healthy();
     expect((await pending).status).toBe(200);
+  });
+});
+
+describe('3c. a schedule\'s finish (rationalisation) and the calculation record ran on the event loop', () => {
+  // One pool thread running the fixture worker: its `hold` makes the next message of a kind wait
+  // on a gate, so the test sees that message reach the pool (it never did while the work ran on
+  // the event loop: the wait for `entered` fails) and looks at the service while it is held there.
+  // The liveness limit is generous (5 s, as the issue asks): a liveness check, not a speed target.
+  const LIVENESS_MS = 5000;
+  const reached = (g: { entered: Promise<void> }, what: string) =>
+    Promise.race([g.entered, new Promise<never>((_, reject) => setTimeout(() => reject(new Error(`${what} never reached a worker: it ran on the event loop`)), 60_000).unref())]);
+  const alive = async (w: Running) => {
+    const t0 = performance.now();
+    const h = await w.get('/health');
+    expect(h.status).toBe(200);
+    expect(performance.now() - t0).toBeLessThan(LIVENESS_MS);
+  };
+
+  test('a large calculation record runs on a worker: /health answers while it is held there, and the record is the full HTML', async () => {
+    const { FIXTURE_WORKER, gate } = await import('../../services/app/test/fixtures/worker.js');
+    const g = gate();
+    const w = await start({ threads: 1, workerFile: FIXTURE_WORKER, routes: (app) => app.post('/_test/hold', async () => app.engine.run({ kind: 'hold', on: 'record', gate: g.buffer })) });
+    try {
+      expect((await w.post('/_test/hold', {})).body).toBe('held');
+      let settled = false;
+      // three 30 m spans at 400 grid divisions: a record of many stations (the largest the check form takes in a few seconds)
+      const pending = w.post('/v1/records', checkBody({ spans: [30000, 30000, 30000], gridDivisions: 400, title: { mark: 'G-99' } })).finally(() => (settled = true));
+      await reached(g, 'the record');
+      await alive(w);
+      expect(settled).toBe(false);
+      g.open();
+      // while the record's check and document are built on the worker, /health keeps answering
+      while (!settled) await alive(w);
+      const r = await pending;
+      expect(r.status).toBe(200);
+      expect(r.headers.get('content-type')).toMatch(/text\/html/);
+      expect(String(r.body)).toMatch(/G-99/);
+    } finally {
+      g.open();
+      await w.close();
+    }
+  });
+
+  test('a schedule\'s finish with its rationalisation runs on a worker within the job: /health answers while it is held there, and the job then finishes with it', async () => {
+    const { FIXTURE_WORKER, gate } = await import('../../services/app/test/fixtures/worker.js');
+    const g = gate();
+    const w = await start({ threads: 1, workerFile: FIXTURE_WORKER, routes: (app) => app.post('/_test/hold', async () => app.engine.run({ kind: 'hold', on: 'finish', gate: g.buffer })) });
+    try {
+      expect((await w.post('/_test/hold', {})).body).toBe('held');
+      const sub = await w.post('/v1/schedules', {
+        name: 'finish',
+        defaults: { ...PROBLEM, space: TINY_SPACE },
+        tender: { rationalise: 2 },
+        girders: [{ mark: 'F1', quantity: 2 }, { mark: 'F2', quantity: 1, spans: [10000] }],
+      });
+      expect(sub.status).toBe(202);
+      await reached(g, 'the schedule\'s finish');
+      await alive(w);
+      // every mark is done, the finish is held on the worker: the job is still running
+      const st = await w.get(`/v1/schedules/${sub.body.id}`);
+      expect(st.body.status).toBe('running');
+      g.open();
+      let job: any;
+      do {
+        await alive(w);
+        job = (await w.get(`/v1/schedules/${sub.body.id}`)).body;
+      } while (!['done', 'failed', 'cancelled'].includes(job.status));
+      expect(job.status).toBe('done');
+      const result = (await w.get(`/v1/schedules/${sub.body.id}/result`)).body;
+      expect(result.tender.rationalisation.marks).toEqual(['F1', 'F2']);
+      expect(result.tender.rationalisation.byK.length).toBeGreaterThan(0);
+    } finally {
+      g.open();
+      await w.close();
+    }
   });
 });
 
@@ -160,6 +260,32 @@ describe('5. slow clients', () => {
     });
     expect(closed).toMatch(/^HTTP\/1\.1 408/);
     await healthy();
+  });
+  test('9 900 half-sent requests were all held (the file-descriptor limit reached): connections past the cap are refused by the socket', async () => {
+    const w = await start({ threads: 1, maxConnections: 2 });
+    const url = new URL(w.url);
+    const open = (): Promise<{ s: ReturnType<typeof connect>; closed: Promise<void> }> =>
+      new Promise((resolve) => {
+        const s = connect(Number(url.port), url.hostname, () => {
+          // half a request: held until the headers timeout (10 s by default)
+          s.write('POST /v1/checks HTTP/1.1\r\nHost: x\r\n');
+          resolve({ s, closed });
+        });
+        const closed = new Promise<void>((done) => s.on('close', () => done()));
+        s.on('error', () => {});
+      });
+    try {
+      const held = [await open(), await open()];
+      // the third is over the cap: the server closes it at once, while the two held ones stay open
+      const third = await open();
+      await third.closed;
+      for (const h of held) expect(h.s.destroyed).toBe(false);
+      for (const h of held) h.s.destroy();
+      await Promise.all(held.map((h) => h.closed));
+      expect((await w.get('/health')).status).toBe(200);
+    } finally {
+      await w.close();
+    }
   });
 });
 
@@ -280,5 +406,15 @@ describe('11. smaller', () => {
       g.open();
       await one.close();
     }
+  });
+});
+
+describe('found by the fuzz test', () => {
+  test('a space whose flange widths include one not wider than its webs (flangeWidth [0.5, 250, 300]) → 422 naming space.flangeWidth, not a 500', async () => {
+    // it was a 500 WORKER_FAILED: the check library refuses such a section (FLANGE_NARROWER_THAN_WEB) and the search stopped there
+    const r = await srv.post('/v1/searches', { ...PROBLEM, space: { ...TINY_SPACE, flangeWidth: [0.5, 250, 300] } });
+    expect(r.status).toBe(422);
+    expect(r.body).toMatchObject({ code: 'FLANGE_NARROWER_THAN_WEB', field: 'space.flangeWidth' });
+    await healthy();
   });
 });

@@ -178,3 +178,51 @@ test('retention: finished jobs older than the retention are removed with their m
   expect((await store.list({ limit: 10 })).map((j) => j.id)).toEqual(['waiting']);
   await m.shutdown();
 });
+
+test('synchronous searches waited on the shared pool behind a schedule\'s marks: now a request\'s task is the next one out after the mark\'s next task', async () => {
+  // the real pool (one thread) with the fixture worker: each task a gate the test opens, so the
+  // order in which the thread takes them is read exactly (no clock). A schedule job's flow has
+  // one task running and three queued (a mark's slices and explanations); then a synchronous
+  // search's first task arrives. First-in first-out ran the request after all three; the pool's
+  // queue now takes flows in turns (the README's "Fair jobs" rule, one level down).
+  const { createEngine } = await import('../../services/app/src/engine.js');
+  const { FIXTURE_WORKER, gate } = await import('../../services/app/test/fixtures/worker.js');
+  const engine = createEngine({ threads: 1, maxActive: 16, workerFile: FIXTURE_WORKER });
+  try {
+    await engine.ping();
+    const job = { owner: '', flow: 'job-1' };
+    const request = { owner: '', flow: 'request:1' };
+    const named = [
+      ['m0', job],
+      ['m1', job],
+      ['m2', job],
+      ['m3', job],
+      ['search', request],
+    ] as const;
+    const gates = new Map<string, ReturnType<typeof gate>>(named.map(([n]) => [n, gate()]));
+    const started: string[] = [];
+    let wake: () => void = () => {};
+    for (const [n] of named) void gates.get(n)!.entered.then(() => {
+      started.push(n);
+      wake();
+    });
+    const startedCount = (k: number): Promise<void> => new Promise((resolve) => {
+      wake = () => started.length >= k && resolve();
+      wake();
+    });
+    const runs: Promise<unknown>[] = [];
+    // m0 takes the thread; the rest queue in this order
+    runs.push(engine.run({ kind: 'gate', gate: gates.get('m0')!.buffer }, { flow: job }));
+    await gates.get('m0')!.entered;
+    for (const [n, flow] of named.slice(1)) runs.push(engine.run({ kind: 'gate', gate: gates.get(n)!.buffer }, { flow }));
+    // open each task as it starts: the thread then takes the next one the queue gives
+    for (let i = 0; i < named.length; i++) {
+      await startedCount(i + 1);
+      gates.get(started[i]!)!.open();
+    }
+    await Promise.all(runs);
+    expect(started).toEqual(['m0', 'm1', 'search', 'm2', 'm3']);
+  } finally {
+    await engine.close();
+  }
+});

@@ -5,7 +5,7 @@
  * (README's team section and DEVELOPERS). No engineering value is asserted.
  */
 import { spawn } from 'node:child_process';
-import { readFileSync } from 'node:fs';
+import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { expect, test } from 'vitest';
 import { optionsFromEnv, SETTINGS } from '../../services/api/src/index.js';
@@ -65,4 +65,26 @@ test('every setting is in README (with its default) and DEVELOPERS', () => {
     expect.soft(readme, s.name).toMatch(new RegExp('`' + s.name + '`[^\\n]*\\|[^\\n]*\\|'));
     expect.soft(dev, s.name).toContain('`' + s.name + '`');
   }
+});
+
+test('every variable of the environment the code reads has a row with its default in README\'s "Running it for a team" table', () => {
+  // the variables named in the service's and the CLI's sources (settings.ts, the server, the PDF printer, …)
+  const sources = ['services/api/src', 'services/app/src', 'services/cli/src', 'packages/report/src', 'packages/schedule/src', 'packages/schema/src'];
+  const names = new Set<string>(['HOST', 'PORT', 'LOG_LEVEL']);
+  for (const dir of sources) {
+    for (const f of readdirSync(join(root, dir), { recursive: true }) as string[]) {
+      if (!f.endsWith('.ts')) continue;
+      for (const m of readFileSync(join(root, dir, f), 'utf8').matchAll(/PLATESMITH_[A-Z_]+[A-Z]/g)) names.add(m[0]);
+    }
+  }
+  const readme = readFileSync(join(root, 'README.md'), 'utf8');
+  const team = readme.slice(readme.indexOf('## Running it for a team'), readme.indexOf('\n## ', readme.indexOf('## Running it for a team') + 3));
+  const rows = team.split('\n').filter((l) => l.startsWith('| `'));
+  for (const name of names) {
+    const row = rows.find((l) => l.split('|')[1]!.includes('`' + name + '`'));
+    expect.soft(row, `${name} has no row in the team section's table`).toBeDefined();
+    // three cells: setting, what, default (non-empty)
+    if (row) expect.soft(row.split('|')[3]!.trim(), `${name}'s default`).not.toBe('');
+  }
+  expect(names.size).toBeGreaterThan(SETTINGS.length);
 });

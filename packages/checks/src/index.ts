@@ -25,7 +25,20 @@ export {
   type ShearCheckId,
 } from './registry.js';
 export { prepare, withBearing } from './context.js';
-export { sizeBearing, lightestFittingBearing, bearingCandidates, type BearingCandidates } from './bearing-sizing.js';
+export {
+  sizeBearing,
+  lightestFittingBearing,
+  bearingCandidates,
+  bearingOptions,
+  bearingFlatArea,
+  BEARING_MAX_PAIRS,
+  BEARING_MIN_WIDTH,
+  BEARING_WIDTH_STEP,
+  BEARING_MAX_WIDTH,
+  type BearingCandidates,
+  type BearingFloor,
+  type BearingOption,
+} from './bearing-sizing.js';
 export { defaultOptions, FACTOR_SETS, E_STEEL, G_STEEL } from './options.js';
 export {
   epsilon,
@@ -40,6 +53,7 @@ export {
   compressionSide,
   panelsOf,
   resolveBearing,
+  bearingPairCount,
   girderMass,
   girderSelfWeight,
   assertSection,
@@ -98,7 +112,7 @@ export {
 export { shearArea, vplRd } from './en1993-1-5/shear-plastic.js';
 export { interaction71, rho628 } from './en1993-1-5/interaction.js';
 export { stiffenerSection, stiffenerIstMin, stiffenerAxialForce, strutResistance, flatTorsion } from './en1993-1-5/stiffeners.js';
-export { rigidEndPost, bearingCrushing } from './en1993-1-5/end-post.js';
+export { rigidEndPost, bearingCrushing, bearingColumnSection } from './en1993-1-5/end-post.js';
 
 // EN 1993-1-1 bending family and the clauses beneath it
 export { bendingChecks } from './en1993-1-1/bending-family.js';

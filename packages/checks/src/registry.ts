@@ -292,7 +292,7 @@ export const CHECKS = [
     file: 'en1993-1-5/shear-family.ts',
     fn: 'bearingStiffenerCheck',
     beneath: [{ clause: 'EN 1993-1-5 9.4', fn: 'bearingStiffenerAt', file: 'en1993-1-5/end-post.ts' }],
-    values: { R: 'N', NbRd: 'N', chi: '-', lambdaBar: '-', A: 'mm2', Abearing: 'mm2', FbRd: 'N', support: 'text' },
+    values: { R: 'N', NbRd: 'N', chi: '-', lambdaBar: '-', A: 'mm2', Abearing: 'mm2', FbRd: 'N', pairs: '-', support: 'text' },
   },
   {
     id: 'lateral-torsional-buckling',

@@ -309,9 +309,18 @@ export interface MassBreakdown {
 }
 
 /**
+ * Double-sided bearing-stiffener pairs on a girder: `pairs` side by side over each of its
+ * `supports`, and at a rigid end post one more pair e from the end (EN 1993-1-5 9.3.1: the end
+ * post's second double-sided stiffener). An integer, so every mass formula multiplies by the same value.
+ */
+export function bearingPairCount(endPost: 'rigid' | 'non-rigid', supports: number, pairs: number): number {
+  return supports * pairs + (endPost === 'rigid' ? 2 : 0);
+}
+
+/**
  * Steel mass of the girder of length L (mm): plates, intermediate stiffeners (full web depth,
- * one flat per side), bearing stiffeners at every support (double-sided; two pairs at a rigid
- * end post). Density 7850 kg/m³. Welds and snipes are ignored (common practice, no source).
+ * one flat per side), bearing stiffeners at every support (double-sided, `bearing.pairs` pairs
+ * over each support; one more pair at a rigid end post: bearingPairCount). Density 7850 kg/m³. Welds and snipes are ignored (common practice, no source).
  */
 export function girderMass(s: Section, L: number, supports: readonly number[], bearing: BearingStiffener): MassBreakdown {
   const k = STEEL_KG_PER_MM3;
@@ -320,10 +329,7 @@ export function girderMass(s: Section, L: number, supports: readonly number[], b
   const bottomFlange = s.bot.b * s.bot.t * L * k;
   const { stiffenerXs } = panelsOf(supports, s.stiffeners?.a ?? null);
   const stiffeners = s.stiffeners ? stiffenerXs.length * s.stiffeners.sides * s.stiffeners.bs * s.stiffeners.ts * s.hw * k : 0;
-  const ends = 2;
-  const inner = Math.max(0, supports.length - 2);
-  const pairsAtEnd = s.endPost === 'rigid' ? 2 : 1;
-  const bearingMass = (ends * pairsAtEnd + inner) * 2 * bearing.bs * bearing.ts * s.hw * k;
+  const bearingMass = bearingPairCount(s.endPost, supports.length, bearing.pairs ?? 1) * 2 * bearing.bs * bearing.ts * s.hw * k;
   const total = web + topFlange + bottomFlange + stiffeners + bearingMass;
   return { web, topFlange, bottomFlange, stiffeners, bearing: bearingMass, total, perMetre: total / (L / 1000) };
 }

@@ -26,6 +26,11 @@ export interface BearingStiffener {
   ts: number;
   /** rigid end post only: distance between the two pairs, mm (EN 1993-1-5 9.3.1(3): e >= 0.1 hw) */
   e: number;
+  /**
+   * double-sided pairs side by side over each support, acting as one column (default 1); a rigid
+   * end post adds its one outer pair e from the bearing group
+   */
+  pairs?: number | undefined;
 }
 
 export type EndPost = 'rigid' | 'non-rigid';
@@ -134,6 +139,8 @@ export interface CheckOptions {
   snipe: number;
   /** flats to size bearing stiffeners from when the section does not give them (double-sided) */
   bearingFlats: { b: number; t: number }[];
+  /** plate thicknesses (mm) bearing stiffeners may also be cut from when no pair of flats passes; default the catalogue's PLATE_THICKNESSES */
+  bearingPlates?: readonly number[] | undefined;
 }
 
 /** A check's id (trade words, a public contract): the ids of the registry (registry.ts). */

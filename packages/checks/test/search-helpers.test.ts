@@ -1,7 +1,7 @@
 import { describe, expect } from 'vitest';
 import { fc, test } from '@fast-check/vitest';
 import { fy } from '@platesmith/catalogue';
-import { chi, chiValue, mcr, mcrOf, assembleVerdict, bearingCandidates, bearingCrushing, flatTorsion, iyNeedRange, minIyForDeflectionAt, checkGirder, defaultOptions, firstFailure, firstFailureAmong, judgeGirder, LAYOUT_IDS, PANEL_ONLY, PLATE_IDS, type Judged, minIyForDeflection, panelsOf, patchBendingFloor, patchBendingMelNeed, patchEta2s, patchUtilisation, prepare, type Effects, type Section } from '../src/index.js';
+import { chi, chiValue, mcr, mcrOf, assembleVerdict, bearingCandidates, bearingCrushing, bearingFlatArea, bearingOptions, bearingPairCount, flatTorsion, iyNeedRange, minIyForDeflectionAt, checkGirder, defaultOptions, firstFailure, firstFailureAmong, judgeGirder, LAYOUT_IDS, PANEL_ONLY, PLATE_IDS, type Judged, minIyForDeflection, panelsOf, patchBendingFloor, patchBendingMelNeed, patchEta2s, patchUtilisation, prepare, type Effects, type Section } from '../src/index.js';
 import { effectsOf } from './span-effects.js';
 
 /**
@@ -168,57 +168,76 @@ describe('functions the search relies on', () => {
   });
 });
 
-/** area of the lightest stock bearing flat that fits the narrower outstand (what the floor was before the reaction was read) */
-const lightestFitting = (flats: readonly { b: number; t: number }[], r: { bt: number; bb: number; tw: number }): number =>
-  Math.min(...flats.filter((f) => f.b <= (Math.min(r.bt, r.bb) - r.tw) / 2).map((f) => f.b * f.t));
-
 describe('bearing floor (bearingCandidates)', () => {
   let checked = 0;
   let bitten = 0;
-  // consistency property: the floor the search puts on the bearing flats is never above what the sizing returns for a section whose bearing checks pass
-  test.prop([sectionArb, loadArb, fc.double({ min: 0.2, max: 6, noNaN: true })], { numRuns: 300 })('is at most the sized flat whenever the bearing checks pass', (r, l, k) => {
+  let plated = 0;
+  // consistency property: the floor the search puts on the bearing stiffeners (each term the objectives read) is never above what the sizing returns for a section whose bearing checks pass
+  test.prop([sectionArb, loadArb, fc.double({ min: 0.2, max: 12, noNaN: true })], { numRuns: 300 })('is at most the sized stiffeners whenever the bearing checks pass', (r, l, k) => {
     const s = sectionOf(r);
     const e0 = effectsOf(l.L, l.w, l.P, l.sag);
-    // reactions scaled independently of the span's effects: light to crushing
+    // reactions scaled independently of the span's effects: light to crushing a pair of flats
     const e: Effects = { ...e0, reactions: e0.reactions.map((x, i) => ({ x: x.x, R: x.R * k * (i === 0 ? 1 : 0.7) })) };
     const o = defaultOptions(l.L);
     const v = checkGirder(s, e, o);
     const ok = v.checks.filter((c) => c.id === 'end-post' || c.id === 'bearing-stiffener' || c.id === 'stiffener-torsion').every((c) => c.passes);
     const Rmax = Math.max(...e.reactions.map((x) => Math.abs(x.R)));
-    const floor = bearingCandidates(o.bearingFlats, (t) => fy('S355', t, o.fySource), o).lightestFor(Math.min(r.bt, r.bb), r.tw, Rmax);
-    const fits = o.bearingFlats.some((f) => f.b <= (Math.min(r.bt, r.bb) - r.tw) / 2);
-    if (ok && v.bearingSized && fits) {
+    const cands = bearingCandidates(o, 'S355');
+    const floor = cands.floorFor(Math.min(r.bt, r.bb), r.tw, Rmax, s.endPost);
+    if (ok && v.bearingSized && floor !== null) {
       checked++;
-      if (floor && floor.b * floor.t > lightestFitting(o.bearingFlats, r)) bitten++;
-      expect(floor).not.toBeNull();
-      expect(floor!.b * floor!.t).toBeLessThanOrEqual(v.bearing.bs * v.bearing.ts);
+      if ((v.bearing.pairs ?? 1) > 1 || !o.bearingFlats.some((f) => f.b === v.bearing.bs && f.t === v.bearing.ts)) plated++;
+      const none = cands.floorFor(Math.min(r.bt, r.bb), r.tw, 0, s.endPost);
+      expect(floor).not.toBe('none');
+      if (floor === 'none' || none === null || none === 'none') return;
+      if (floor.area > none.area) bitten++;
+      expect(floor.area).toBeLessThanOrEqual(bearingFlatArea(s.endPost, o.supports.length, v.bearing));
+      expect(floor.flats).toBeLessThanOrEqual(2 * bearingPairCount(s.endPost, o.supports.length, v.bearing.pairs ?? 1));
+      expect(floor.bs).toBeLessThanOrEqual(v.bearing.bs);
     }
   });
 
-  test('the property above was tested on sections whose bearing checks pass, and the floor was above the lightest fitting flat in some', () => {
+  test('the property above was tested on sections whose bearing checks pass, with stiffeners cut from plate or in several pairs, and the floor was above the lightest fitting option in some', () => {
     expect(checked).toBeGreaterThan(30);
     expect(bitten).toBeGreaterThan(5);
+    expect(plated).toBeGreaterThan(3);
   });
 
-  test('a large reaction excludes the flats that would crush (EN 1993-1-5 9.4 bearing: 2·(bs − snipe)·ts·fy/γM0 ≥ R)', () => {
+  test('a large reaction excludes the options that would crush (EN 1993-1-5 9.4 bearing: n·2·(bs − snipe)·ts·fy/γM0 ≥ R)', () => {
     const o = defaultOptions(12000);
-    const cands = bearingCandidates(o.bearingFlats, (t) => fy('S355', t, o.fySource), o);
-    const light = cands.lightestFor(400, 12, 0)!;
+    const cands = bearingCandidates(o, 'S355');
+    const light = cands.floorFor(400, 12, 0, 'non-rigid');
     const R = 1.2e6;
-    const heavy = cands.lightestFor(400, 12, R)!;
-    expect(heavy.b * heavy.t).toBeGreaterThan(light.b * light.t);
-    expect(bearingCrushing(heavy.b, heavy.t, o.snipe, fy('S355', heavy.t, o.fySource), o.factors.gammaM0).FbRd).toBeGreaterThanOrEqual(R);
-    // every lighter flat that fits and meets the torsional requirement (9.2.1(8)) would crush under R
+    const heavy = cands.floorFor(400, 12, R, 'non-rigid');
+    if (light === null || light === 'none' || heavy === null || heavy === 'none') throw new Error('options fit a 400 mm flange');
+    expect(heavy.area).toBeGreaterThan(light.area);
+    // every option that fits, with less steel than the floor, would crush under R; one option with the floor's steel does not
     let lighter = 0;
-    for (const f of o.bearingFlats) {
-      if (f.b > (400 - 12) / 2 || f.b * f.t >= heavy.b * heavy.t) continue;
-      const fyf = fy('S355', f.t, o.fySource);
-      const tors = flatTorsion(f.b, f.t, fyf, o.E);
-      if (tors.ItOverIp < tors.limit) continue;
-      lighter++;
-      expect(bearingCrushing(f.b, f.t, o.snipe, fyf, o.factors.gammaM0).FbRd).toBeLessThan(R);
+    let atFloor = 0;
+    for (const f of bearingOptions(o, 'S355')) {
+      if (f.bs > (400 - 12) / 2) continue;
+      const FbRd = f.pairs * bearingCrushing(f.bs, f.ts, o.snipe, fy('S355', f.ts, o.fySource), o.factors.gammaM0).FbRd;
+      const area = bearingFlatArea('non-rigid', 2, f);
+      if (area < heavy.area) {
+        lighter++;
+        expect(FbRd).toBeLessThan(R);
+      } else if (area === heavy.area && FbRd >= R) atFloor++;
     }
     expect(lighter).toBeGreaterThan(0);
+    expect(atFloor).toBeGreaterThan(0);
+  });
+
+  // EN 1993-1-1:2005 Table 5.2 (sheet 2, outstand flanges): Class 3 limit c/t ≤ 14ε, ε = √(235/fy)
+  test.each(['S235', 'S275', 'S355', 'S420', 'S460'])('every option the sizing may choose in %s meets 9.2.1(8), so it is at most Class 3 as an outstand (EN 1993-1-1 Table 5.2: c/t ≤ 14ε)', (grade) => {
+    const o = defaultOptions(12000);
+    const all = bearingOptions(o, grade);
+    expect(all.length).toBeGreaterThan(100);
+    for (const f of all) {
+      const fyf = fy(grade, f.ts, o.fySource);
+      const tors = flatTorsion(f.bs, f.ts, fyf, o.E);
+      expect(tors.ItOverIp).toBeGreaterThanOrEqual(tors.limit);
+      expect(f.bs / f.ts).toBeLessThanOrEqual(14 * Math.sqrt(235 / fyf));
+    }
   });
 });
 

@@ -22,10 +22,12 @@ export class PdfUnavailable extends Error {
 /**
  * Prints a self-contained HTML document to PDF with headless Chromium (`--print-to-pdf`; the
  * page size and margins come from the document's @page rule). A child process, so the caller's
- * event loop is free while it prints; killed after `timeoutMs`. Each call gets its own profile
- * directory, so prints may run side by side.
+ * event loop is free while it prints; killed after `timeoutMs` or when `signal` aborts (the
+ * promise then rejects with the signal's reason). Each call gets its own profile directory, so
+ * prints may run side by side.
  */
-export async function htmlToPdf(html: string, opts: { timeoutMs?: number } = {}): Promise<Buffer> {
+export async function htmlToPdf(html: string, opts: { timeoutMs?: number; signal?: AbortSignal } = {}): Promise<Buffer> {
+  opts.signal?.throwIfAborted();
   const bin = chromiumPath();
   if (!bin) throw new PdfUnavailable('chromium is not installed (bash scripts/install-chromium.sh, or set PLATESMITH_CHROMIUM)');
   const dir = await mkdtemp(join(tmpdir(), 'platesmith-pdf-'));
@@ -50,13 +52,20 @@ export async function htmlToPdf(html: string, opts: { timeoutMs?: number } = {})
         if (err.length < 4000) err += b.toString();
       });
       const timer = setTimeout(() => child.kill('SIGKILL'), opts.timeoutMs ?? 60_000);
+      const onAbort = (): void => {
+        child.kill('SIGKILL');
+      };
+      opts.signal?.addEventListener('abort', onAbort, { once: true });
       child.on('error', (e) => {
         clearTimeout(timer);
+        opts.signal?.removeEventListener('abort', onAbort);
         reject(new PdfUnavailable(`chromium could not start: ${e.message}`));
       });
       child.on('close', (code, signal) => {
         clearTimeout(timer);
-        if (code === 0 && existsSync(out)) resolve();
+        opts.signal?.removeEventListener('abort', onAbort);
+        if (opts.signal?.aborted) reject(opts.signal.reason);
+        else if (code === 0 && existsSync(out)) resolve();
         else reject(new PdfUnavailable(`chromium did not print the PDF (${signal ?? `exit ${code}`}): ${err.split('\n').filter((l) => l.trim()).slice(-2).join(' ')}`));
       });
     });

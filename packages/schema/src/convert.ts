@@ -20,7 +20,9 @@ export function toSection(j: SectionJson): Section {
     bot: { b: j.bottomFlange.width, t: j.bottomFlange.thickness },
     stiffeners: j.stiffeners ? { a: j.stiffeners.spacing, bs: j.stiffeners.width, ts: j.stiffeners.thickness, sides: j.stiffeners.sides } : null,
     endPost: j.endPost ?? 'rigid',
-    bearing: j.bearing ? { bs: j.bearing.width, ts: j.bearing.thickness, e: j.bearing.spacing ?? Math.max(50, Math.floor((0.1 * j.web.depth) / 10) * 10 + 10) } : undefined,
+    bearing: j.bearing
+      ? { bs: j.bearing.width, ts: j.bearing.thickness, e: j.bearing.spacing ?? Math.max(50, Math.floor((0.1 * j.web.depth) / 10) * 10 + 10), ...(j.bearing.pairs !== undefined && j.bearing.pairs !== 1 ? { pairs: j.bearing.pairs } : {}) }
+      : undefined,
     grade: grade as Section['grade'] & { web: GradeName },
   };
 }
@@ -34,7 +36,7 @@ export function fromSection(s: Section): SectionJson {
     bottomFlange: { width: s.bot.b, thickness: s.bot.t },
     stiffeners: s.stiffeners ? { spacing: s.stiffeners.a, width: s.stiffeners.bs, thickness: s.stiffeners.ts, sides: s.stiffeners.sides } : null,
     endPost: s.endPost,
-    ...(s.bearing ? { bearing: { width: s.bearing.bs, thickness: s.bearing.ts, spacing: s.bearing.e } } : {}),
+    ...(s.bearing ? { bearing: { width: s.bearing.bs, thickness: s.bearing.ts, spacing: s.bearing.e, ...((s.bearing.pairs ?? 1) !== 1 ? { pairs: s.bearing.pairs } : {}) } } : {}),
     grade: same ? s.grade.web : { web: s.grade.web, flanges: s.grade.top, stiffeners: s.grade.stiffener },
   };
 }
@@ -117,13 +119,17 @@ export function toCheckOptions(j: CheckOptionsJson, supports: number[]): CheckOp
   return resolveOptions(j, supports).options;
 }
 
+/** What the tool does when bearing stiffeners are not given (checks' sizeBearing). */
+export const BEARING_SIZING_NOTE =
+  'bearing stiffeners sized by the tool: the lightest pair of stock flats that passes end post (9.3.1), bearing stiffener (9.4) and torsion (9.2.1(8)); when none does, the least steel of flats and plates of the plate stock, 1 to 3 pairs side by side over each support, within the flange outstand, that passes them';
+
 /** The defaults a section of the request took (end post, grade, stiffeners, bearing stiffeners). */
 export function sectionAssumptions(j: SectionJson, field = 'section'): Assumption[] {
   const out: Assumption[] = [];
   if (j.endPost === undefined) out.push({ field: `${field}.endPost`, value: 'rigid', note: 'rigid end posts (EN 1993-1-5 5.3, 9.3.1): two double-sided stiffeners at each end support' });
   if (j.grade === undefined) out.push({ field: `${field}.grade`, value: 'S355', note: 'every plate S355' });
   if (j.stiffeners === undefined) out.push({ field: `${field}.stiffeners`, value: 'none', note: 'no intermediate transverse stiffeners (bearing stiffeners at the supports only)' });
-  if (j.bearing === undefined) out.push({ field: `${field}.bearing`, value: 'sized', note: 'bearing stiffeners sized by the tool: the lightest stock flat pair that passes end post, bearing and torsion' });
+  if (j.bearing === undefined) out.push({ field: `${field}.bearing`, value: 'sized', note: BEARING_SIZING_NOTE });
   return out;
 }
 

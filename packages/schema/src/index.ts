@@ -2,7 +2,7 @@ export { LIMITS, bounded } from './limits.js';
 export { mm, Grade, Plate, Web, Stiffeners, Bearing, GradeSpec, SectionJson } from './section.js';
 export { FactorsJson, RestraintJson, CheckOptionsJson } from './options.js';
 export { SpanMm, EffectJson, SlsUdlJson, CheckEffectsInput } from './check-input.js';
-export { toSection, fromSection, toCheckOptions, resolveOptions, sectionAssumptions, toCheckEffects, assertStockThickness, type Assumption } from './convert.js';
+export { toSection, fromSection, toCheckOptions, resolveOptions, sectionAssumptions, toCheckEffects, assertStockThickness, BEARING_SIZING_NOTE, type Assumption } from './convert.js';
 export { parseWith, formatIssues, pathString, MAX_LISTED_ISSUES, type FieldIssue, type Parsed } from './parse.js';
 export { VALUE_UNITS, unitOf, roundPublished, publishCheck, publishVerdict, type PublishedCheck, type PublishedVerdict } from './output.js';
 export { kN, kNm, toN, toNmm, fromN, fromNmm, convertValue, type ValueUnit } from './units.js';

@@ -21,6 +21,8 @@ export const LIMITS = {
   loadValue: 100_000,
   /** stiff bearing length, mm */
   bearingLengthMm: 10_000,
+  /** double-sided bearing-stiffener pairs side by side over one support (a section given) */
+  bearingPairs: 10,
   /** partial and combination factors (γ, ξ) */
   factor: 10,
   /** deflection limit ratio span/ratio */

@@ -4,7 +4,7 @@ import { checkGirder, girderSelfWeight, type CheckOptions, type Effects, type Gi
 import { DEFAULT_COST, defaultSpace, spaceSize, stiffenerStations, type CostModel, type SearchTask, type SpaceSpec } from '@platesmith/search';
 import { designEffects } from '@platesmith/actions';
 import { z } from 'zod';
-import { assertStockThickness, resolveOptions, sectionAssumptions, toSection, type Assumption } from './convert.js';
+import { assertStockThickness, BEARING_SIZING_NOTE, resolveOptions, sectionAssumptions, toSection, type Assumption } from './convert.js';
 import { ProblemFields, problemShape, type ProblemJson } from './problem.js';
 import { SectionJson } from './section.js';
 import { CostJson, SpaceJson, type SpaceJson as SpaceJsonT } from './space.js';
@@ -199,10 +199,12 @@ export function toSpace(j: SpaceJsonT): SpaceSpec {
     return { b: f.width, t: f.thickness };
   });
   if (panelsNorm.some((n) => n > 0) && flats.length === 0) throw new DomainError('EMPTY_SPACE', 'stiffened layouts are asked for but space.flats is empty', 'give flats, or panels [0]', 'space.flats');
+  const tw = grid(j.webThickness, d.tw, 'space.webThickness', 150);
+  const bf = grid(j.flangeWidth, d.bf, 'space.flangeWidth', 3000);
   return {
     hw: grid(j.webDepth, d.hw, 'space.webDepth', 10_000),
-    tw: grid(j.webThickness, d.tw, 'space.webThickness', 150),
-    bf: grid(j.flangeWidth, d.bf, 'space.flangeWidth', 3000),
+    tw,
+    bf,
     tf,
     symmetric: j.symmetric,
     panels: panelsNorm,
@@ -246,6 +248,14 @@ export function toSearchTask(j: SearchInput, cap = DEFAULT_SPACE_CAP): SearchTas
   if (size > cap) {
     throw new DomainError('SPACE_TOO_LARGE', `the space holds ${size.toExponential(3)} candidates, over the cap of ${cap.toExponential(0)}`, 'narrow the grids (fewer widths, thicknesses or panel counts) or ask the operator to raise the cap', 'space', { size, cap });
   }
+  // every flange wider than every web: the check library takes no other section (EN 1993 I-section),
+  // so a narrower width would stop the search at its first such candidate, not be judged (checked
+  // after the size: a space too large to search is refused as such first)
+  const bfMin = Math.min(...space.bf);
+  const twMax = Math.max(...space.tw);
+  if (bfMin <= twMax) {
+    throw new DomainError('FLANGE_NARROWER_THAN_WEB', `space.flangeWidth holds ${bfMin} mm, not wider than the thickest web of the space (${twMax} mm)`, 'every flange width must exceed every web thickness of the space (widths and thicknesses in mm)', 'space.flangeWidth', { value: bfMin, limit: twMax });
+  }
   const supports = supportsOf(j);
   const { options, assumptions } = resolveOptions(j.options, supports);
   const spans = spansOf(supports);
@@ -260,6 +270,7 @@ export function toSearchTask(j: SearchInput, cap = DEFAULT_SPACE_CAP): SearchTas
   const spaceDefaults = Object.keys(SpaceJson.shape).filter((k) => (j.space as Record<string, unknown>)[k] === undefined && !['minDepth', 'maxDepth'].includes(k));
   const all = [...problemAssumptions(j), ...assumptions];
   if (spaceDefaults.length > 0) all.push({ field: 'space', value: spaceDefaults.join(', '), note: 'these fields of the space take the catalogue defaults (see the API schema)' });
-  // the search sizes bearing stiffeners from the flats and reports both end-post types only when asked
+  // the search sizes bearing stiffeners as check does (sizeBearing) and reports both end-post types only when asked
+  all.push({ field: 'bearing', value: 'sized', note: BEARING_SIZING_NOTE });
   return { space, options, analysis, objective: j.objective, cost: toCost(j.cost), assumptions: all };
 }

@@ -6,7 +6,7 @@ import { z } from 'zod';
 import { CheckEffectsInput } from './check-input.js';
 import { parseWith, type Parsed } from './parse.js';
 import { CAUTION, SCOPE } from './caution.js';
-import { fromSection, toCheckEffects } from './convert.js';
+import { BEARING_SIZING_NOTE, fromSection, toCheckEffects } from './convert.js';
 import { CheckOptionsJson } from './options.js';
 import { publishVerdict, roundPublished, type PublishedVerdict } from './output.js';
 import { CheckProblemInput, toCheckProblem, runCheckJob } from './problem-convert.js';
@@ -170,7 +170,7 @@ export interface RecordData {
       mass: number;
     };
     classes: { sign: string; section: number; flange: number; web: number }[];
-    bearing: { width: number; thickness: number; sized: boolean };
+    bearing: { width: number; thickness: number; pairs: number; sized: boolean };
   };
   verdict: PublishedVerdict;
   /** utilisation at every station of the checks judged station by station (-) */
@@ -226,7 +226,7 @@ function defaultsTaken(rawOptions: unknown, parsed: CheckOptionsJson, o: CheckOp
   return out;
 }
 
-function platesInWords(s: SectionJson, grades: { web: string; flanges: string; stiffeners: string }, bearing: { width: number; thickness: number; spacing?: number | undefined }): string[] {
+function platesInWords(s: SectionJson, grades: { web: string; flanges: string; stiffeners: string }, bearing: { width: number; thickness: number; spacing?: number | undefined; pairs?: number | undefined }): string[] {
   const out = [
     `web plate ${s.web.depth} mm deep × ${s.web.thickness} mm thick, ${grades.web}`,
     `top flange plate ${s.topFlange.width} mm wide × ${s.topFlange.thickness} mm thick, ${grades.flanges}`,
@@ -239,7 +239,7 @@ function platesInWords(s: SectionJson, grades: { web: string; flanges: string; s
       : 'no intermediate transverse stiffeners',
   );
   out.push(
-    `bearing stiffeners at the supports: flats ${bearing.width} mm × ${bearing.thickness} mm on both faces${s.endPost === 'rigid' ? `, two pairs ${bearing.spacing ?? '?'} mm apart at each end (rigid end post)` : ' (non-rigid end post)'}`,
+    `bearing stiffeners at the supports: ${(bearing.pairs ?? 1) > 1 ? `${bearing.pairs} pairs side by side over each support of ` : ''}flats ${bearing.width} mm × ${bearing.thickness} mm on both faces${s.endPost === 'rigid' ? `, and one more pair ${bearing.spacing ?? '?'} mm from each end (rigid end post)` : ' (non-rigid end post)'}`,
   );
   return out;
 }
@@ -352,7 +352,7 @@ export function publishRecord(input: CheckEffectsInput | CheckProblemInput, raw:
   const parsedOptions = input.options;
   const assumptions = defaultsTaken(optionsRaw, parsedOptions, options);
   if (section.stiffeners === null) assumptions.push('no intermediate transverse stiffeners: web panels run from support to support');
-  if (b.verdict.bearingSized) assumptions.push(`bearing stiffeners not given: sized from the stock flats as the lightest pair that passes (${bearing.bs} × ${bearing.ts} mm)`);
+  if (b.verdict.bearingSized) assumptions.push(`bearing stiffeners not given: sized by the tool (${(bearing.pairs ?? 1) > 1 ? `${bearing.pairs} pairs of ` : ''}${bearing.bs} × ${bearing.ts} mm): ${BEARING_SIZING_NOTE.replace(/^bearing stiffeners sized by the tool: /, '')}`);
   if (!('effects' in input) && input.envelope === undefined) {
     if (input.factors === undefined) assumptions.push('EN 1990 Table A1.2(B) recommended factors γG,sup = 1.35, γG,inf = 1.00, γQ = 1.50, ξ = 0.85');
     if (rawObj.combination === undefined) assumptions.push('combination by EN 1990 eq. 6.10');
@@ -459,7 +459,7 @@ export function publishRecord(input: CheckEffectsInput | CheckProblemInput, raw:
     },
     section: {
       json: sj,
-      plates: platesInWords(sj, grades, sj.bearing ?? { width: bearing.bs, thickness: bearing.ts, spacing: bearing.e }),
+      plates: platesInWords(sj, grades, sj.bearing ?? { width: bearing.bs, thickness: bearing.ts, spacing: bearing.e, pairs: bearing.pairs }),
       properties: {
         h: gp.h,
         A: r(gp.A),
@@ -480,7 +480,7 @@ export function publishRecord(input: CheckEffectsInput | CheckProblemInput, raw:
         mass: r(mass.total),
       },
       classes,
-      bearing: { width: bearing.bs, thickness: bearing.ts, sized: b.verdict.bearingSized },
+      bearing: { width: bearing.bs, thickness: bearing.ts, pairs: bearing.pairs ?? 1, sized: b.verdict.bearingSized },
     },
     verdict,
     alongSpan,

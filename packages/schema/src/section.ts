@@ -42,8 +42,15 @@ export const Bearing = z
     width: mm('bearing stiffener outstand', 1000, 10),
     thickness: mm('bearing stiffener thickness', 150, 1),
     spacing: mm('distance e between the two pairs of a rigid end post', 5000, 10).optional(),
+    pairs: z
+      .number({ error: 'bearing stiffener pairs must be a whole number' })
+      .int({ message: 'bearing stiffener pairs must be a whole number' })
+      .min(1, { message: 'bearing stiffener pairs: at least 1' })
+      .max(LIMITS.bearingPairs, { message: `bearing stiffener pairs: at most ${LIMITS.bearingPairs} over one support` })
+      .optional()
+      .meta({ description: 'double-sided pairs side by side over each support, acting as one column (EN 1993-1-5 9.4); default 1. A rigid end post adds one outer pair `spacing` from the end' }),
   })
-  .meta({ description: 'bearing stiffeners at supports (double-sided); default from the stiffener flats or the flange outstand' });
+  .meta({ description: 'bearing stiffeners at supports (double-sided); when not given, sized by the tool: one pair of stock flats, else flats or plates of the plate stock in 1 to 3 pairs' });
 
 export const GradeSpec = z.union(
   [Grade, z.strictObject({ web: Grade, flanges: Grade, stiffeners: Grade.optional() }).meta({ description: 'hybrid girder: web and flange grades' })],

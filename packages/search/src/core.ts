@@ -1,9 +1,9 @@
 import type { FySource } from '@platesmith/catalogue';
-import { lightestFittingBearing, panelsOf, resolveBearing, type CheckOptions, type GirderVerdict, type Section } from '@platesmith/checks';
+import { bearingCandidates, bearingFlatArea, bearingPairCount, panelsOf, resolveBearing, type BearingCandidates, type BearingFloor, type CheckOptions, type EndPost, type GirderVerdict, type Section } from '@platesmith/checks';
 import { fy, G_ACC, STEEL_KG_PER_MM3 as KG_PER_MM3 } from '@platesmith/catalogue';
 import type { LoadModel } from './load.js';
 import type { Limit, SpaceEdge } from './limits.js';
-import { bearingPairs, buildSection, costOf, flangeMass, type CostModel, type WebParts } from './objective.js';
+import { buildSection, costOf, flangeMass, type CostModel, type WebParts } from './objective.js';
 
 import { flangeGroups, WebTable, type FlangeGroup, type FlangeOption, type SpaceSpec, type WebConfig } from './space.js';
 
@@ -109,6 +109,8 @@ export interface Prepared {
   fySource: FySource;
   /** kg of intermediate stiffeners per mm of web depth for the heaviest layout in the space */
   stiffKgPerHw: number;
+  /** per stiffener grade: the bearing stiffeners the sizing can accept (made when first asked for) */
+  bearingByGrade: Map<string, BearingCandidates>;
 }
 
 export function prepareSearch(p: SearchProblem): Prepared {
@@ -134,7 +136,7 @@ export function prepareSearch(p: SearchProblem): Prepared {
     const count = panelsOf(supports, Lmax / n).stiffenerXs.length;
     for (const f of p.space.flats) for (const sides of p.space.sides) stiffKgPerHw = Math.max(stiffKgPerHw, count * sides * f.b * f.t * KG_PER_MM3);
   }
-  return { p, webs, groups, flanges, groupStart, plateStarts, L, Lmax, supports, fySource, stiffKgPerHw };
+  return { p, webs, groups, flanges, groupStart, plateStarts, L, Lmax, supports, fySource, stiffKgPerHw, bearingByGrade: new Map() };
 }
 
 /** The relative margin by which selfWeightRange widens its ends (round-off between two ways of summing the same masses). */
@@ -159,42 +161,59 @@ export function throatOf(v: GirderVerdict, fallback: number): number {
   return typeof t === 'number' ? t : fallback;
 }
 
-/** Bearing-stiffener flats count (double-sided pairs × 2). */
-function bearingFlatCount(w: WebConfig, supports: readonly number[]): number {
-  return bearingPairs(w.endPost, supports) * 2;
+/** The bearing stiffeners the check library's sizing can accept, per stiffener grade (bearingCandidates). */
+export function bearingCandidatesOf(prep: Prepared, grade: string): BearingCandidates {
+  let hit = prep.bearingByGrade.get(grade);
+  if (!hit) prep.bearingByGrade.set(grade, (hit = bearingCandidates(prep.p.options, grade)));
+  return hit;
 }
 
 /**
- * The least bearing-stiffener flat the library's sizing can return for this candidate (it fits
+ * Bearing stiffeners as the objectives read them, per end post: steel area × count (bearingFlatArea),
+ * single flats on the girder, outstand. Either a floor (the least of each term over what the sizing
+ * can return) or the exact terms of one bearing stiffener.
+ */
+export type BearingFlat = Readonly<Record<EndPost, BearingFloor>>;
+
+/** The exact terms of one bearing stiffener (both end posts). */
+export function bearingTerms(supports: readonly number[], b: { bs: number; ts: number; pairs?: number | undefined }): BearingFlat {
+  const S = supports.length;
+  const n = b.pairs ?? 1;
+  const of = (ep: EndPost): BearingFloor => ({ area: bearingFlatArea(ep, S, b), flats: 2 * bearingPairCount(ep, S, n), bs: b.bs, tsMin: b.ts, tsMax: b.ts });
+  return { rigid: of('rigid'), 'non-rigid': of('non-rigid') };
+}
+
+/** The floor of the sizing's bearing stiffeners for a reaction up to R: null when none fits the flanges, 'none' when none that fits carries R. */
+export function bearingFloorOfCandidates(c: BearingCandidates, minB: number, tw: number, R: number): BearingFlat | null | 'none' {
+  const r = c.floorFor(minB, tw, R, 'rigid');
+  if (r === null || r === 'none') return r;
+  const n = c.floorFor(minB, tw, R, 'non-rigid') as BearingFloor;
+  return { rigid: r, 'non-rigid': n };
+}
+
+/**
+ * The least bearing stiffeners the library's sizing can return for this candidate (they fit
  * within the narrower flange outstand), or the default it falls back to when none fits.
  */
 function bearingFloor(prep: Prepared, w: WebConfig, parts: WebParts, T: FlangeOption, B: FlangeOption, cache: Map<number, BearingFlat>): BearingFlat {
   const minB = Math.min(T.b, B.b);
   let hit = cache.get(minB);
   if (!hit) {
-    const f = lightestFittingBearing(prep.p.options.bearingFlats, minB, w.tw);
-    if (f) hit = { bs: f.b, ts: f.t };
-    else {
-      hit = defaultBearing(prep, buildSection(w, parts, T, B));
-    }
+    const f = bearingFloorOfCandidates(bearingCandidatesOf(prep, w.grade), minB, w.tw, 0);
+    hit = f === null || f === 'none' ? defaultBearing(prep, buildSection(w, parts, T, B)) : f;
     cache.set(minB, hit);
   }
   return hit;
 }
 
-/** The bearing flats the check library falls back on for a section when no stock flat fits (resolveBearing). */
+/** The bearing stiffeners the check library falls back on for a section when nothing of the stock fits (resolveBearing). */
 export function defaultBearing(prep: Prepared, s: Section): BearingFlat {
   const d = resolveBearing(s, fy(s.grade.stiffener, s.stiffeners?.ts ?? s.tw, prep.fySource));
-  return { bs: d.bs, ts: d.ts };
+  return bearingTerms(prep.supports, d);
 }
 
-export interface BearingFlat {
-  bs: number;
-  ts: number;
-}
-
-function bearingKg(prep: Prepared, w: WebConfig, b: BearingFlat): number {
-  return bearingFlatCount(w, prep.supports) * b.bs * b.ts * w.hw * KG_PER_MM3;
+function bearingKg(w: WebConfig, b: BearingFlat): number {
+  return b[w.endPost].area * w.hw * KG_PER_MM3;
 }
 
 /** The value of a candidate's objective before its checks are known: exact for mass, a lower bound for cost. */
@@ -214,19 +233,23 @@ export function price(prep: Prepared, w: WebConfig, parts: WebParts, T: FlangeOp
   // flanges added together first, so that swapping top and bottom gives the identical float
   const plates = parts.webMass + parts.stiffMass + (flangeMass(T, prep.L) + flangeMass(B, prep.L));
   const floor = bearingFloor(prep, w, parts, T, B, cache);
-  if (prep.p.objective === 'mass') return { plates, lb: plates + bearingKg(prep, w, floor) };
+  if (prep.p.objective === 'mass') return { plates, lb: plates + bearingKg(w, floor) };
   return { plates, lb: priceCost(prep, w, parts, T, B, floor, minThroat) };
 }
 
 /** After the checks: the objective's value with the bearing flats and weld throat the checks settled on. */
 export function settle(prep: Prepared, w: WebConfig, parts: WebParts, T: FlangeOption, B: FlangeOption, plates: number, v: GirderVerdict, minThroat: number): { mass: number; value: number } {
-  const b = { bs: v.bearing.bs, ts: v.bearing.ts };
-  const mass = plates + bearingKg(prep, w, b);
+  const b = bearingTerms(prep.supports, v.bearing);
+  const mass = plates + bearingKg(w, b);
   if (prep.p.objective === 'mass') return { mass, value: mass };
   return { mass, value: priceCost(prep, w, parts, T, B, b, throatOf(v, minThroat)) };
 }
 
 export function priceCost(prep: Prepared, w: WebConfig, parts: WebParts, T: FlangeOption, B: FlangeOption, b: BearingFlat, throat: number): number {
-  return costOf(prep.p.cost, w, parts, T, B, bearingKg(prep, w, b), bearingFlatCount(w, prep.supports), b.bs, prep.L, throat).cost;
+  const e = b[w.endPost];
+  const cm = prep.p.cost;
+  // the bearing plates' rate depends only on which side of thickAbove they are: the cheaper of the floor's extremes
+  const cheaper = (cm.thickFactor < 1) === (e.tsMax > cm.thickAbove) ? e.tsMax : e.tsMin;
+  return costOf(cm, w, parts, T, B, bearingKg(w, b), e.flats, e.bs, cheaper, prep.L, throat).cost;
 }
 

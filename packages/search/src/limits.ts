@@ -13,7 +13,7 @@
  * A neighbour that passes and is lighter (cheaper) at no greater depth would contradict the
  * search's exactness; the exactness tests hold that it never happens.
  */
-import { fy, isDomainError } from '@platesmith/catalogue';
+import { DomainError, fy } from '@platesmith/catalogue';
 import { checkGirder, girderSelfWeight, type CheckId, type GirderVerdict, type Section } from '@platesmith/checks';
 import { settle, type Evaluated, type Prepared } from './core.js';
 import type { SearchResult } from './search.js';
@@ -150,13 +150,12 @@ export function limitsOf(prep: Prepared, e: Evaluated): Limit[] {
     if (n.reason) return { ...head, outcome: 'outside-space' as const, reason: n.reason };
     const depth = w.hw + T.t + B.t;
     if (depth < sp.minDepth) return { ...head, outcome: 'outside-space' as const, reason: `overall depth ${depth} mm below minDepth ${sp.minDepth} mm` };
-    // a neighbour that is no girder at all (e.g. a flange one step narrower than the web is thick)
-    // is outside the space, as the search never builds it: named, never a failed worker
     let judged: ReturnType<typeof judge>;
     try {
       judged = judge(prep, w, T, B);
     } catch (err) {
-      if (isDomainError(err)) return { ...head, outcome: 'outside-space' as const, reason: err.message };
+      // a neighbour the check library cannot take as a section (e.g. a flange not wider than the web): not a girder of the space
+      if (err instanceof DomainError) return { ...head, outcome: 'outside-space' as const, reason: err.message };
       throw err;
     }
     const { verdict, value } = judged;

@@ -166,11 +166,6 @@ export function buildSection(w: WebConfig, parts: WebParts, top: FlangeOption, b
   };
 }
 
-/** Number of double-sided bearing-stiffener pairs over the supports. */
-export function bearingPairs(endPost: 'rigid' | 'non-rigid', supports: readonly number[]): number {
-  return 2 * (endPost === 'rigid' ? 2 : 1) + Math.max(0, supports.length - 2);
-}
-
 /** Flange plate mass, kg. */
 export function flangeMass(f: FlangeOption, L: number): number {
   return f.A * L * KG_PER_MM3;
@@ -186,6 +181,7 @@ export function costOf(
   bearingKg: number,
   bearingFlats: number,
   bearingBs: number,
+  bearingTs: number,
   L: number,
   aw: number,
 ): { cost: number; material: number; fabrication: number; minutes: number } {
@@ -195,7 +191,9 @@ export function costOf(
     parts.webMass * rate(w.grade, w.tw) +
     flangeMass(top, L) * rate(top.grade, top.t) +
     flangeMass(bot, L) * rate(bot.grade, bot.t) +
-    (parts.stiffMass + bearingKg) * rate(w.grade, tStiff);
+    parts.stiffMass * rate(w.grade, tStiff) +
+    // bearing stiffeners at the rate of their own thickness (cut from thick plate they may cost more per kg)
+    bearingKg * rate(w.grade, bearingTs);
   const mass = parts.webMass + parts.stiffMass + bearingKg + flangeMass(top, L) + flangeMass(bot, L);
   const kappa = MIN_PARTS + parts.stiffCount + bearingFlats;
   const T1 = assemblyMinutes(cm, kappa, mass);

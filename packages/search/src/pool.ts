@@ -9,6 +9,9 @@ import { zeroPrunes, type SliceResult } from './core.js';
 import type { WorkerMessage } from './worker.js';
 import { createSharedStairs, depthGrid } from './shared-bound.js';
 import { warmUpTasks } from './warm-up.js';
+import { FairTaskQueue, inFlow, type Flow } from './fair-queue.js';
+
+export { FairTaskQueue, inFlow, type Flow } from './fair-queue.js';
 
 /**
  * The worker pool for searches: created once per process and reused. Runs from TypeScript
@@ -42,6 +45,11 @@ export function createSearchPool(opts: SearchPoolOptions = {}): SearchPool {
     minThreads: threads,
     maxThreads: threads,
     maxQueue: opts.maxQueue ?? threads * 64,
+    // taken in turns by owner and flow (a request, a schedule job), not first-in first-out
+    taskQueue: new FairTaskQueue(),
+    // a task taken from the queue when no worker was free goes back to its place (the front),
+    // not to the tail: the queue's turns would otherwise be lost at every finished task
+    stricterFIFO: true,
     // from source the workers need the TypeScript loader; from the build they need nothing, and
     // inheriting the parent's loader flags (e.g. a TypeScript bench script) makes them 2× slower
     execArgv: fromSource ? ['--conditions=@platesmith/source', '--import', 'tsx'] : [],
@@ -81,6 +89,8 @@ export interface PoolSearchOptions {
   onProgress?: (settled: number, size: number) => void;
   /** each Pareto point with what rules out its lighter neighbours, and the nearest misses always present (limits.ts), judged on the workers */
   explain?: boolean;
+  /** whose search this is: its tasks take turns on the pool's queue with other flows' (FairTaskQueue) */
+  flow?: Flow;
 }
 
 /** How often the pool reads the slices' progress, ms. */
@@ -138,7 +148,7 @@ export async function searchOnPool(pool: SearchPool, task: SearchTask, o: PoolSe
   try {
     const settled = await Promise.allSettled(
       Array.from({ length: nSlices }, (_, slot) =>
-        (pool.piscina.run({ kind: 'slice', task, runs: plates, shared, searchId, ...(o.stop ? { stop: stopFlag } : {}), ...(progressBuf ? { progress: progressBuf } : {}), ...(nSlices > 1 ? { part: { slot, of: nSlices } } : {}) } satisfies WorkerMessage, { signal: runSignal }) as Promise<SliceResult>).then((r) => {
+        (pool.piscina.run(inFlow({ kind: 'slice', task, runs: plates, shared, searchId, ...(o.stop ? { stop: stopFlag } : {}), ...(progressBuf ? { progress: progressBuf } : {}), ...(nSlices > 1 ? { part: { slot, of: nSlices } } : {}) } satisfies WorkerMessage, o.flow), { signal: runSignal }) as Promise<SliceResult>).then((r) => {
           onSlice?.(++done, nSlices);
           return r;
         }),
@@ -159,7 +169,7 @@ export async function searchOnPool(pool: SearchPool, task: SearchTask, o: PoolSe
     const parts = Array.from({ length: Math.max(1, Math.min(pool.threads, merged.pareto.length)) }, (_, k) => merged.pareto.filter((_, i) => i % pool.threads === k));
     const misses = needsMisses(merged);
     const answers = await Promise.all(
-      parts.map((points, k) => pool.piscina.run({ kind: 'explain', task, searchId, points, misses: misses && k === 0 } satisfies WorkerMessage, o.signal ? { signal: o.signal } : {}) as Promise<Explanation>),
+      parts.map((points, k) => pool.piscina.run(inFlow({ kind: 'explain', task, searchId, points, misses: misses && k === 0 } satisfies WorkerMessage, o.flow), o.signal ? { signal: o.signal } : {}) as Promise<Explanation>),
     );
     const explainedPoints: Explanation['points'] = new Array(merged.pareto.length);
     answers.forEach((a, k) => a.points.forEach((x, j) => (explainedPoints[j * pool.threads + k] = x)));

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect } from 'vitest';
 import { fc, test } from '@fast-check/vitest';
 import { checkGirder, defaultOptions, girderMass, girderSelfWeight, type GirderVerdict, type Section } from '@platesmith/checks';
 import { analyse } from '@platesmith/actions';
-import { DEFAULT_COST, problemOf, search, stiffenerStations, type Evaluated, type Limit, type SearchTask, type SpaceSpec } from '../src/index.js';
+import { DEFAULT_COST, explainPoints, prepareSearch, problemOf, search, stiffenerStations, type Evaluated, type Limit, type SearchTask, type SpaceSpec } from '../src/index.js';
 import { createSearchPool, searchOnPool, type SearchPool } from '../src/pool.js';
 import { simpleSpanModel } from './fixtures.js';
 import { SMALL_LISTS, spaceArb, spaceOf } from './spaces.js';
@@ -176,4 +176,16 @@ describe('the nearest misses are always there when nothing passes', () => {
       expect(pooled.pareto.length + pooled.nearMisses.length).toBeGreaterThan(0);
     }
   });
+});
+
+// regression of the fuzz test (seed 20261203): a flange width below the web thickness in the space made a
+// neighbour the check library rejects as a section (DomainError), and the worker failed with a 500
+test('a neighbour that is not a section (a flange not wider than the web) is outside the space, not a failure of the search', () => {
+  const sp: SpaceSpec = { hw: [700], tw: [8], bf: [0.5, 250], tf: [12, 15], symmetric: true, panels: [0], flats: [], sides: [2], endPosts: ['rigid'], webGrades: ['S355'], flangeGrades: ['S355'], minDepth: 0, maxDepth: Infinity, rules: {} };
+  const problem = { space: sp, options: defaultOptions(12000, { restraint: { kind: 'continuous' } }), load: simpleSpanModel(12000, 30, 0, 20), objective: 'mass' as const, cost: DEFAULT_COST };
+  const r = search(problem);
+  expect(r.pareto.length).toBeGreaterThan(0);
+  const narrower = explainPoints(prepareSearch(problem), r.pareto).flatMap((x) => x.limitedBy).filter((l) => l.move === 'flange-width');
+  expect(narrower.length).toBeGreaterThan(0);
+  for (const l of narrower) expect(l.outcome).toBe('outside-space');
 });

@@ -54,7 +54,7 @@ describe('costFloor', () => {
     'is never above costOf of a candidate of at least its mass, surface and throat, with rates of the given grades',
     (c) => {
       const { cm, w, T, B, parts, bearingKg } = candidate(c);
-      const exact = costOf(cm, w, parts, T, B, bearingKg, c.bearingFlats, c.bearingBs, c.L, c.aw);
+      const exact = costOf(cm, w, parts, T, B, bearingKg, c.bearingFlats, c.bearingBs, c.bearingTs, c.L, c.aw);
       // the floor as the search takes it: mass of the plates and bearing flats summed in another order
       const kg = bearingKg + parts.stiffMass + T.A * c.L * STEEL_KG_PER_MM3 + B.A * c.L * STEEL_KG_PER_MM3 + parts.webMass;
       const rate = materialRateFloor(cm, [w.grade, T.grade, B.grade]);
@@ -65,7 +65,7 @@ describe('costFloor', () => {
 
   test.prop([candidateArb], { numRuns: 300 })('is tight for an unstiffened girder of the cheapest grade at its own throat', (c) => {
     const { cm, w, T, B, parts } = candidate({ ...c, panels: 0, webGrade: 'S235', topGrade: 'S235', botGrade: 'S235', tt: 20, tb: 20, tw: 10, thickFactor: 1 });
-    const exact = costOf(cm, w, parts, T, B, 0, 0, 0, c.L, c.aw);
+    const exact = costOf(cm, w, parts, T, B, 0, 0, 0, 0, c.L, c.aw);
     const kg = parts.webMass + T.A * c.L * STEEL_KG_PER_MM3 + B.A * c.L * STEEL_KG_PER_MM3;
     const floor = costFloor(cm, materialRateFloor(cm, ['S235']), kg, platesSurface(w, T, B, c.L), c.aw, c.L);
     expect(floor).toBeLessThanOrEqual(exact.cost);
@@ -90,7 +90,7 @@ describe('costOf by hand (Farkas–Jármai cost function, closed form)', () => {
     const Tsp = 1 * 3e-6 * As;
     const Tp = 2 * (3e-6 + 4.15e-6) * As;
     const K = M + (T1 + T2 + 0.3 * T2 + Tsp + Tp); // km = 1, kf = kf/km · km = 1, S355 rate factor 1
-    const r = costOf(cm, w, parts, F, F, 0, 0, 0, L, 5);
+    const r = costOf(cm, w, parts, F, F, 0, 0, 0, 0, L, 5);
     expect(Math.abs(r.cost / K - 1)).toBeLessThan(1e-12);
     expect(Math.abs(platesSurface(w, F, F, L) / As - 1)).toBeLessThan(1e-15);
   });

@@ -159,11 +159,14 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
   });
 
   // schedules search on the same pool, outside the synchronous searches' gate: each mark takes a
-  // fair turn (round-robin over keys, then jobs) within the mark's and the job's time budgets
+  // fair turn (round-robin over keys, then jobs) within the mark's and the job's time budgets, and
+  // on the pool its tasks take turns with the synchronous requests' (flows of the pool's queue)
   const jobs: Jobs = queued ?? embeddedJobs(new JobManager(
     opts.jobStore ?? new MemoryJobStore(),
-    (input, signal, onProgress, turn) => runSchedule(input, { search: (task) => turn((s) => app.engine.searchTask(task, s)), onProgress, spaceCap }, signal),
+    (input, signal, onProgress, turn) => runSchedule(input, { search: (task) => turn((s, flow) => app.engine.searchTask(task, s, flow)), onProgress, spaceCap }, signal),
     {
+      // the finish (records, tonnage, the rationalisation's checks and HiGHS solves) on a worker, in the job's flow and budget
+      finish: (input, marks, signal, flow) => app.engine.finish(input, marks, { signal, flow }),
       ...opts.jobs,
       ...(opts.jobConcurrency !== undefined ? { slots: opts.jobConcurrency } : {}),
       ...(opts.maxQueuedJobs !== undefined ? { maxActive: opts.maxQueuedJobs } : {}),
@@ -197,7 +200,7 @@ export async function buildApp(opts: ApiOptions = {}): Promise<FastifyInstance> 
   await app.register(effectsRoutes, { budget });
   await app.register(searchRoutes, { budget, spaceCap });
   await app.register(scheduleRoutes, { jobs });
-  await app.register(recordRoutes, { jobs });
+  await app.register(recordRoutes, { jobs, budget });
   return app;
 }
 

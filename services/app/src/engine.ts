@@ -1,8 +1,9 @@
 import { availableParallelism } from 'node:os';
 import { DomainError } from '@platesmith/catalogue';
-import { DEFAULT_SPACE_CAP, supportsOf, type EffectsSummaryJson, type ProblemJson, type PublishedSearch, type SearchInput } from '@platesmith/schema';
+import type { MarkResult, ScheduleJson, ScheduleRunResult } from '@platesmith/schedule';
+import { DEFAULT_SPACE_CAP, supportsOf, type EffectsSummaryJson, type ProblemJson, type PublishedSearch, type RecordRequest, type SearchInput } from '@platesmith/schema';
 import { mergeSlices, type SearchResult, type SearchTask } from '@platesmith/search';
-import { createSearchPool, pingPool, searchOnPool, warmPool, type SearchPool } from '@platesmith/search/pool';
+import { createSearchPool, inFlow, pingPool, searchOnPool, warmPool, type Flow, type SearchPool } from '@platesmith/search/pool';
 import { publishSearchOf, type CheckRequest, type CheckResponse } from './requests.js';
 import type { AppMessage, Answers, RequestMessage } from './worker.js';
 
@@ -53,6 +54,11 @@ export interface RunOptions {
   signal?: AbortSignal;
   /** the request's time budget, ms (absent: none) */
   budgetMs?: number;
+  /**
+   * whose work this is (the key's id, '' without keys; and the request or job): its tasks take
+   * turns on the pool's queue with every other flow's, schedule marks included (FairTaskQueue)
+   */
+  flow?: Flow;
 }
 
 export interface Engine {
@@ -69,7 +75,14 @@ export interface Engine {
    */
   search(input: SearchInput, o?: RunOptions & { onSlice?: (done: number, total: number) => void; onProgress?: (settled: number, size: number) => void }): Promise<PublishedSearch>;
   /** a search of a prepared task outside the admission gate (schedule marks); rejects when `signal` aborts */
-  searchTask(task: SearchTask, signal?: AbortSignal): Promise<SearchResult>;
+  searchTask(task: SearchTask, signal?: AbortSignal, flow?: Flow): Promise<SearchResult>;
+  /** the calculation record of one girder as HTML (the check and the document on a worker), admitted and budgeted like a check */
+  record(request: RecordRequest, o?: RunOptions): Promise<string>;
+  /**
+   * a schedule's finish (records, tonnage, the rationalisation's checks and MILP solves) on a
+   * worker, outside the admission gate (a job's work: its budget is the job's, given by `signal`)
+   */
+  finish(schedule: ScheduleJson, marks: readonly MarkResult[], o?: Pick<RunOptions, 'signal' | 'flow'>): Promise<ScheduleRunResult>;
   /** any message on the pool, admitted and budgeted like a request (tests send fixture messages) */
   run(msg: AppMessage | { kind: string; [k: string]: unknown }, o?: RunOptions): Promise<unknown>;
   ping(signal?: AbortSignal): Promise<void>;
@@ -119,7 +132,7 @@ export function createEngine(opts: EngineOptions = {}): Engine {
   async function onPool(msg: AppMessage | { kind: string; [k: string]: unknown }, o: RunOptions, budget: AbortSignal | undefined): Promise<unknown> {
     const signal = signalOf(o, budget);
     try {
-      return await pool.piscina.run(msg, signal ? { signal } : {});
+      return await pool.piscina.run(inFlow(msg, o.flow), signal ? { signal } : {});
     } catch (e) {
       throw failure(e, o, budget);
     }
@@ -140,6 +153,12 @@ export function createEngine(opts: EngineOptions = {}): Engine {
     active: () => active,
     check: (input, o = {}) => admitted(() => request({ kind: 'check', input }, o, budgetOf(o))),
     effects: (input, o = {}) => admitted(() => request({ kind: 'effects', input }, o, budgetOf(o))),
+    record: (r, o = {}) => admitted(() => request({ kind: 'record', request: r }, o, budgetOf(o))),
+    finish: async (schedule, marks, o = {}) => {
+      const { format, version, caution, scope, name, ...tail } = await request({ kind: 'finish', schedule, marks: [...marks] }, o, undefined);
+      // the marks stay here (they crossed once); the result's fields in finishSchedule's order
+      return { format, version, caution, scope, name, marks: [...marks], ...tail };
+    },
     run: (msg, o = {}) => admitted(() => onPool(msg, o, budgetOf(o))),
     search: (input, o = {}) =>
       admitted(async () => {
@@ -162,6 +181,7 @@ export function createEngine(opts: EngineOptions = {}): Engine {
             ...(budget ? { stop: budget } : {}),
             ...(opts.stopGraceMs !== undefined ? { stopGraceMs: opts.stopGraceMs } : {}),
             ...(o.onSlice ? { onSlice: o.onSlice } : {}),
+            ...(o.flow ? { flow: o.flow } : {}),
             ...(o.onProgress ? { onProgress: o.onProgress } : {}),
             explain: true,
           });
@@ -170,7 +190,7 @@ export function createEngine(opts: EngineOptions = {}): Engine {
         }
         return publishSearchOf(r, task, r.status === 'aborted' ? abort : undefined);
       }),
-    searchTask: (task, signal) => searchOnPool(pool, task, signal ? { signal } : {}),
+    searchTask: (task, signal, flow) => searchOnPool(pool, task, { ...(signal ? { signal } : {}), ...(flow ? { flow } : {}) }),
     ping: (signal) => pingPool(pool, signal),
     warmUp: (rounds, signal) => warmPool(pool, rounds, signal),
     close: () => pool.close(),

@@ -5,4 +5,5 @@
  */
 export { CheckRequest, parseCheckRequest, checkSection, effectsOf, searchTaskOf, publishSearchOf, type CheckResponse } from './requests.js';
 export { createEngine, EngineError, isEngineError, type Engine, type EngineOptions, type EngineErrorCode, type RunOptions } from './engine.js';
-export type { AppMessage, RequestMessage, Answer, Answers } from './worker.js';
+export type { AppMessage, RequestMessage, Answer, Answers, FinishedWithoutMarks } from './worker.js';
+export type { Flow } from '@platesmith/search/pool';

@@ -50,18 +50,35 @@ export function bearingCrushing(bs: number, ts: number, snipe: number, fy: numbe
   return { Abearing, FbRd: (Abearing * fy) / gammaM0 };
 }
 
-/** One support reaction on its bearing stiffener: column (9.4) and crushing. */
+/**
+ * The column of n double-sided pairs side by side over a support (9.4(2), 9.1(2)): one pair with
+ * its web strips (stiffenerSection), and each further pair's two flats added about the web
+ * mid-plane; the web between the pairs is not counted (ours, stated: conservative, it only adds
+ * area and stiffness). n = 1 is stiffenerSection itself, bit for bit.
+ */
+export function bearingColumnSection(bs: number, ts: number, n: number, tw: number, w1: number, w2: number): { A: number; I: number } {
+  const one = stiffenerSection(bs, ts, 2, tw, w1, w2);
+  if (n === 1) return { A: one.A, I: one.I };
+  const Aflat = bs * ts;
+  const d = tw / 2 + bs / 2;
+  const Iflat = (ts * (bs * bs * bs)) / 12;
+  return { A: one.A + (n - 1) * 2 * Aflat, I: one.I + (n - 1) * 2 * (Iflat + Aflat * d * d) };
+}
+
+/** One support reaction on its bearing stiffener: column (9.4) and crushing, `pairs` double-sided pairs. */
 export function bearingStiffenerAt(ctx: CheckContext, r: Reaction) {
   const { s, m, o } = ctx;
   const b = ctx.bearing;
+  const n = b.pairs ?? 1;
   const strips = bearingWebStrips(ctx, r.x);
-  const sec = stiffenerSection(b.bs, b.ts, 2, s.tw, strips.w1, strips.w2);
+  const sec = bearingColumnSection(b.bs, b.ts, n, s.tw, strips.w1, strips.w2);
   const fy = Math.min(m.fyw, m.fyBearing);
   const strut = strutResistance(sec.A, sec.I, 0.75 * s.hw, fy, o.E, o.factors.gammaM1);
-  const crush = bearingCrushing(b.bs, b.ts, o.snipe, m.fyBearing, o.factors.gammaM0);
+  const one = bearingCrushing(b.bs, b.ts, o.snipe, m.fyBearing, o.factors.gammaM0);
+  const crush = n === 1 ? one : { Abearing: n * one.Abearing, FbRd: n * one.FbRd };
   const R = Math.abs(r.R);
   const ratio = (cap: number) => (R === 0 ? 0 : R / cap);
   const utilisation = Math.max(ratio(strut.NbRd), ratio(crush.FbRd));
   const endPost: EndPost | 'interior' = strips.atEnd ? s.endPost : 'interior';
-  return { R, A: sec.A, I: sec.I, ...strut, ...crush, utilisation, endPost, w1: strips.w1, w2: strips.w2 };
+  return { R, A: sec.A, I: sec.I, ...strut, ...crush, utilisation, endPost, pairs: n, w1: strips.w1, w2: strips.w2 };
 }

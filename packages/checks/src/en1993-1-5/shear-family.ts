@@ -255,6 +255,7 @@ export function bearingStiffenerCheck(ctx: CheckContext, e: Effects): CheckResul
       A: r.A,
       Abearing: r.Abearing,
       FbRd: r.FbRd,
+      pairs: r.pairs,
       support: r.endPost,
     });
     if (best === null || res.utilisation > best.utilisation) best = res;

@@ -143,7 +143,7 @@ export function sectionKey(s: SectionJson): string {
   const gs = s.grade ?? 'S355';
   const g = typeof gs === 'string' ? gs : `${gs.web}/${gs.flanges}/${gs.stiffeners ?? gs.web}`;
   const st = s.stiffeners ? `a${s.stiffeners.spacing}-${s.stiffeners.sides}x${s.stiffeners.width}x${s.stiffeners.thickness}` : 'none';
-  const br = s.bearing ? `${s.bearing.width}x${s.bearing.thickness}${s.bearing.spacing !== undefined ? `e${s.bearing.spacing}` : ''}` : 'auto';
+  const br = s.bearing ? `${(s.bearing.pairs ?? 1) > 1 ? `${s.bearing.pairs}p` : ''}${s.bearing.width}x${s.bearing.thickness}${s.bearing.spacing !== undefined ? `e${s.bearing.spacing}` : ''}` : 'auto';
   return `${s.web.depth}x${s.web.thickness}|${s.topFlange.width}x${s.topFlange.thickness}|${s.bottomFlange.width}x${s.bottomFlange.thickness}|${st}|${s.endPost}|${br}|${g}`;
 }
 

@@ -1,5 +1,5 @@
 import { DomainError, STEEL_KG_PER_MM3, type GradeName } from '@platesmith/catalogue';
-import { material, resolveBearing } from '@platesmith/checks';
+import { bearingPairCount, material, resolveBearing } from '@platesmith/checks';
 import { toSection, type SectionJson } from '@platesmith/schema';
 
 /**
@@ -131,8 +131,7 @@ export function tenderGirder(mark: string, quantity: number, section: SectionJso
       for (let k = 1; s0 + k * a < s1 - 1; k++) positions++;
     }
   }
-  const pairsAtEnd = section.endPost === 'rigid' ? 2 : 1;
-  const pairs = 2 * pairsAtEnd + Math.max(0, supports.length - 2);
+  const pairs = bearingPairCount(section.endPost ?? 'rigid', supports.length, section.bearing?.pairs ?? 1);
   return { mark, quantity, length: L, section, stiffenerPositions: positions, bearingFlats: 2 * pairs };
 }
 

@@ -13,7 +13,7 @@ import { assembleVerdict, failsWebOnly, firstFailureAmong, girderSelfWeight, LAY
 import { priceCost, settle, type CandidateKey } from '../core.js';
 import { buildSection, flangeMass } from '../objective.js';
 import { ltbFailsAt, ltbPlatesFail } from './ltb.js';
-import { bearingFloorFor, bearingFloorOf, bearingFlatCount, flatFailsTorsion, panelOk, partOf } from './plate-tables.js';
+import { bearingFloorFor, bearingFloorOf, flatFailsTorsion, panelOk, partOf } from './plate-tables.js';
 import { admit, keepMiss, prunes } from './staircase.js';
 import { doubles, KG_PER_MM3, type LayoutsNode, type PlatesNode, type SliceState } from './state.js';
 
@@ -58,14 +58,14 @@ export function judgePlates(s: SliceState, nd: PlatesNode): void {
   if (s.isMass) {
     // the order of the layouts depends on the plates only through the bearing floor: cached
     const minB = Math.min(T.b, B.b);
-    const key = ps.fit ? `${ps.fit.bs}x${ps.fit.ts}` : `none:${minB}`;
+    const key = ps.fit ? `${ps.fit.rigid.area}|${ps.fit['non-rigid'].area}` : `none:${minB}`;
     let hit = plate.orders.get(key);
     if (!hit) {
       const add = new Float64Array(nL);
       for (let j = 0; j < nL; j++) {
         const w = webs.at(plate.layouts[j]!);
         const b = bearingFloorOf(s, ps, j);
-        add[j] = partOf(s, plate, j).stiffMass + bearingFlatCount(s, w.endPost) * b.bs * b.ts * w.hw * KG_PER_MM3;
+        add[j] = partOf(s, plate, j).stiffMass + b[w.endPost].area * w.hw * KG_PER_MM3;
       }
       const idx = Array.from({ length: nL }, (_, j) => j);
       idx.sort((x, y) => add[x]! - add[y]! || plate.layouts[x]! - plate.layouts[y]!);

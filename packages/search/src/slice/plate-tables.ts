@@ -3,10 +3,10 @@
  * plate: the quantities of its layouts, the torsion of its flats, patch loading (6.4 and the 7.2
  * floor) per top flange and panel count, Mel,Rd, and the bearing flats the sizing can return.
  */
-import { bearingCandidates, flatTorsion, lightestFittingBearing, patchBendingMelNeed, patchEta2s, plateStackMel, type BearingCandidates, type EndPost } from '@platesmith/checks';
+import { bearingPairCount, flatTorsion, patchBendingMelNeed, patchEta2s, plateStackMel } from '@platesmith/checks';
 import { fy } from '@platesmith/catalogue';
-import { defaultBearing, type BearingFlat } from '../core.js';
-import { bearingPairs, buildSection, flangeMass, webPartsWith, type WebParts } from '../objective.js';
+import { bearingCandidatesOf, bearingFloorOfCandidates, defaultBearing, type BearingFlat } from '../core.js';
+import { buildSection, flangeMass, webPartsWith, type WebParts } from '../objective.js';
 import type { FlangeOption, WebConfig } from '../space.js';
 import type { Plate, Plates, SliceState } from './state.js';
 
@@ -107,55 +107,42 @@ export function panelOk(s: SliceState, ps: Plates, np: number): boolean {
   return !(need > 0) || melRdOf(s, ps) >= need * (1 - 1e-9);
 }
 
-/** Per stiffener grade: the bearing flats the sizing can accept (torsion, crushing under a reaction). */
-function bearingOf(s: SliceState, grade: WebConfig['grade']): BearingCandidates {
-  let hit = s.bearingByGrade.get(grade);
-  if (!hit) {
-    const fySource = s.prep.fySource;
-    hit = bearingCandidates(s.o.bearingFlats, (t) => fy(grade, t, fySource), s.o);
-    s.bearingByGrade.set(grade, hit);
-  }
-  return hit;
-}
-
 /**
- * The bearing floor of a set of plates under a largest support reaction R: null when no stock
- * flat fits the flanges (the sizing keeps the section's default), 'none' when flats fit but
- * none of them can pass (every layout of these plates fails), else the lightest that can.
+ * The bearing floor of a set of plates under a largest support reaction R: null when nothing of
+ * the bearing stock fits the flanges (the sizing keeps the section's default), 'none' when some
+ * fits but none can carry R (every layout of these plates fails), else the least of each term
+ * over what can (bearingCandidates), per end post.
  */
 export function bearingFloorFor(s: SliceState, plate: Plate, minB: number, R: number): BearingFlat | null | 'none' {
-  if (!fitOf(s, plate, minB)) return null;
-  const f = bearingOf(s, plate.w.grade).lightestFor(minB, plate.w.tw, R);
-  return f ? { bs: f.b, ts: f.t } : 'none';
-}
-
-function fitOf(s: SliceState, plate: Plate, minB: number): BearingFlat | null {
-  let hit = plate.fit.get(minB);
-  if (hit === undefined) {
-    const f = lightestFittingBearing(s.o.bearingFlats, minB, plate.w.tw);
-    hit = f ? { bs: f.b, ts: f.t } : null;
-    plate.fit.set(minB, hit);
+  if (R === 0) {
+    let hit = plate.fit.get(minB);
+    if (hit === undefined) {
+      const f = bearingFloorOfCandidates(bearingCandidatesOf(s.prep, plate.w.grade), minB, plate.w.tw, 0);
+      hit = f === 'none' ? null : f;
+      plate.fit.set(minB, hit);
+    }
+    return hit;
   }
-  return hit;
+  return bearingFloorOfCandidates(bearingCandidatesOf(s.prep, plate.w.grade), minB, plate.w.tw, R);
 }
 
-/** The least bearing flats a layout's sizing can return: the plates' bearing floor (bearingFloorFor), or the section's default when no stock flat fits. */
+/** The least bearing stiffeners a layout's sizing can return: the plates' bearing floor (bearingFloorFor), or the section's default when nothing of the stock fits. */
 export function bearingFloorOf(s: SliceState, ps: Plates, j: number): BearingFlat {
   if (ps.fit) return ps.fit;
   const w = s.webs.at(ps.plate.layouts[j]!);
   return defaultBearing(s.prep, buildSection(w, partOf(s, ps.plate, j), ps.T, ps.B));
 }
 
-/** The least bearing-flat area (mm²) the sizing can return on a web of thickness tw (a stock flat, or a default of resolveBearing). */
-export function bearingAreaFloor(s: SliceState, tw: number): number {
-  let a = Math.min(s.minStockBearing, 40 * tw);
+/** The least bs·ts (mm²) the sizing can return on a web of thickness tw (an option of the bearing stock, or a default of resolveBearing). */
+export function bearingAreaFloor(s: SliceState, grade: WebConfig['grade'], tw: number): number {
+  let a = Math.min(bearingCandidatesOf(s.prep, grade).minArea, 40 * tw);
   for (const f of s.sp.flats) a = Math.min(a, f.b * Math.max(f.t, tw));
   return a;
 }
 
-/** Bearing-stiffener flats with this end post (double-sided pairs × 2). */
-export function bearingFlatCount(s: SliceState, ep: EndPost): number {
-  return bearingPairs(ep, s.supports) * 2;
+/** The least single bearing flats with this end post (one double-sided pair over each support, and the rigid end post's outer pairs). */
+export function bearingFlatCount(s: SliceState, ep: WebConfig['endPost']): number {
+  return bearingPairCount(ep, s.supports.length, 1) * 2;
 }
 
 /** The masses of a group's flange options, kg (widths ascending, so masses ascending). */

@@ -9,7 +9,7 @@ import type { DeflectionAffine } from '../load.js';
 import type { FlangeOption } from '../space.js';
 import { floorOf, surfaceOf } from './cost-floor.js';
 import { ltbBlockDead, ltbPairDead, runSelfWeights } from './ltb.js';
-import { bearingFloorFor, bearingFlatCount, panelOk, patchOf } from './plate-tables.js';
+import { bearingFloorFor, panelOk, patchOf } from './plate-tables.js';
 import { prunes } from './staircase.js';
 import { KG_PER_MM3, type Plates, type RunNode, type SliceState } from './state.js';
 
@@ -112,7 +112,7 @@ export function tryPair(s: SliceState, c: RunNode, ti: number, bi: number, kg: n
   }
   let layoutKg = Infinity;
   if (fit) {
-    for (const [ep, st] of plate.minStiff) layoutKg = Math.min(layoutKg, st + bearingFlatCount(s, ep) * fit.bs * fit.ts * w.hw * KG_PER_MM3);
+    for (const [ep, st] of plate.minStiff) layoutKg = Math.min(layoutKg, st + fit[ep].area * w.hw * KG_PER_MM3);
   } else layoutKg = plate.minLayoutKg;
   const lb = floorOf(s, kg + layoutKg, surfaceOf(s, w, T, B));
   if (prunes(s, d, lb)) {

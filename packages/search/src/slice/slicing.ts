@@ -149,7 +149,7 @@ export function seedRuns(s: SliceState): void {
     if (pat.nonRigid < Infinity) minStiff.set('non-rigid', pat.nonRigid * w.hw * KG_PER_MM3);
     const layouts = new Int32Array(nL);
     for (let j = 0; j < nL; j++) layouts[j] = first + j;
-    const aFloor = bearingAreaFloor(s, w.tw);
+    const aFloor = bearingAreaFloor(s, w.grade, w.tw);
     let minLayoutKg = Infinity;
     for (const [ep, st] of minStiff) minLayoutKg = Math.min(minLayoutKg, st + bearingFlatCount(s, ep) * aFloor * w.hw * KG_PER_MM3);
     const fib = (always: boolean) => (always ? maxCompressionFlangeAreaFIB({ hw: w.hw, tw: w.tw, fyfMin: 1, k: s.kFibMax, E: o.E }) : Infinity);

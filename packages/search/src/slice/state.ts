@@ -6,7 +6,8 @@
 import {
   momentEnvelopeOf,
   panelsOf,
-  type BearingCandidates,
+  bearingPairCount,
+  BEARING_MAX_PAIRS,
   type CheckContext,
   type CheckId,
   type CheckOptions,
@@ -25,7 +26,7 @@ import { STEEL_KG_PER_MM3 } from '@platesmith/catalogue';
 import { G_ACC, type BearingFlat, type Evaluated, type CandidateKey, type Prepared, type PruneStats, type SearchProblem } from '../core.js';
 import type { DemandBound } from '../load.js';
 import { ltbSetBound, type LtbSetBound, type Segments } from '../ltb-bound.js';
-import { bearingPairs, C2, flangeMass, type CostModel, type WebParts } from '../objective.js';
+import { C2, flangeMass, type CostModel, type WebParts } from '../objective.js';
 import type { FlangeGroup, FlangeOption, SpaceSpec, WebConfig, WebTable } from '../space.js';
 import { Heap } from './heap.js';
 import type { SlicePart } from './slicing.js';
@@ -257,7 +258,6 @@ export interface SliceState {
   gMax: number;
   nFlange: number;
   kFibMax: number;
-  minStockBearing: number;
   lightestOption: FlangeOption;
   heaviestOption: FlangeOption;
 
@@ -288,7 +288,6 @@ export interface SliceState {
   groupPairs: (readonly [number, number])[];
   pairsPerWeb: number;
   patterns: Map<string, { rigid: number; nonRigid: number; panelCounts: number[] }>;
-  bearingByGrade: Map<string, BearingCandidates>;
   massOfGroup: Float64Array[];
 
   // lateral-torsional buckling (ltb.ts)
@@ -333,8 +332,6 @@ export function createSliceState(
   const nFlange = flanges.length;
   let lightestFlange = Infinity;
   for (const f of flanges) lightestFlange = Math.min(lightestFlange, flangeMass(f, L));
-  let minStockBearing = Infinity;
-  for (const f of o.bearingFlats) minStockBearing = Math.min(minStockBearing, f.b * f.t);
 
   const stiffCount = new Map<number, number>();
   const panelsByCount = new Map<number, { x0: number; x1: number; a: number }[]>();
@@ -404,7 +401,6 @@ export function createSliceState(
     gMax,
     nFlange,
     kFibMax: o.kFib === 'auto' ? 0.55 : o.kFib,
-    minStockBearing,
     lightestOption: flanges.reduce((a, b) => (b.A < a.A ? b : a)),
     heaviestOption: flanges.reduce((a, b) => (b.A > a.A ? b : a)),
     stiffCount,
@@ -426,7 +422,6 @@ export function createSliceState(
     groupPairs: sp.symmetric ? groups.map((_, i) => [i, i] as const) : groups.flatMap((_, i) => groups.map((__, j) => [i, j] as const)),
     pairsPerWeb: sp.symmetric ? nFlange : nFlange * nFlange,
     patterns: new Map(),
-    bearingByGrade: new Map(),
     massOfGroup: [],
     ltbSet,
     signPresent,
@@ -445,6 +440,6 @@ function maxMassPerLength(prep: Prepared): number {
   const minA = Math.min(...sp.panels.filter((n) => n > 0).map((n) => prep.Lmax / n), Infinity);
   const stiffPerMm = minA === Infinity ? 0 : (2 * flat * hw) / minA;
   // bearing stiffeners: at most 2 pairs per end, one per inner support, flats no larger than the flange outstand × 100 mm
-  const bearing = ((bearingPairs('rigid', prep.supports) * 2 * Math.max(flat, (Math.max(...sp.bf) / 2) * 150) * hw) / prep.L) * 1.5;
+  const bearing = ((bearingPairCount('rigid', prep.supports.length, BEARING_MAX_PAIRS) * 2 * Math.max(flat, (Math.max(...sp.bf) / 2) * 150) * hw) / prep.L) * 1.5;
   return KG_PER_MM3 * (hw * tw + 2 * Af + stiffPerMm + bearing);
 }

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { DomainError, isDomainError } from '@platesmith/catalogue';
-import { finishSchedule, type MarkResult, type ScheduleJson, type ScheduleProgress, type ScheduleResult } from '@platesmith/schedule';
+import { finishSchedule, type MarkResult, type ScheduleJson, type ScheduleProgress, type ScheduleResult, type ScheduleRunResult } from '@platesmith/schedule';
 import { ApiError } from '../errors.js';
 import { FairGate } from './fair.js';
 import { TERMINAL, type JobPatch, type JobRecord, type JobStore, type JobSummary } from './store.js';
@@ -13,9 +13,22 @@ export type JobEvent = { type: 'progress' | 'done'; job: JobSummary };
  * budget. A mark past its budget rejects with the DomainError MARK_BUDGET_EXCEEDED (the mark
  * fails alone, as data); a job past its budget is stopped.
  */
-export type Turn = <T>(search: (signal: AbortSignal) => Promise<T>) => Promise<T>;
+export type Turn = <T>(search: (signal: AbortSignal, flow: JobFlow) => Promise<T>) => Promise<T>;
+
+/** Whose work a job's pool tasks are: its owner ('' without keys) and the job (the pool's queue takes flows in turns). */
+export interface JobFlow {
+  owner: string;
+  flow: string;
+}
 
 export type ScheduleWork = (input: ScheduleJson, signal: AbortSignal, onProgress: (p: ScheduleProgress) => void, turn: Turn) => Promise<ScheduleResult>;
+
+/**
+ * A schedule's finish once its marks are done (records, tonnage, the rationalisation): the
+ * service runs it on a worker (engine.finish); `signal` aborts on cancellation, shutdown and at
+ * what is left of the job's budget.
+ */
+export type FinishWork = (input: ScheduleJson, marks: readonly MarkResult[], signal: AbortSignal, flow: JobFlow) => Promise<ScheduleRunResult>;
 
 /** Defaults of the job settings (README: "Running it for a team"). */
 export const JOB_DEFAULTS = {
@@ -41,6 +54,8 @@ export interface JobManagerOptions {
   jobBudgetMs?: number;
   /** finished jobs are deleted this long after they finished, ms; 0 keeps them (default 7 days) */
   retentionMs?: number;
+  /** the finish of a job (default finishSchedule in this thread; the service passes its engine's worker) */
+  finish?: FinishWork;
   /** called with an unexpected failure of a job or of a store write (for the log) */
   onFailure?: (id: string, err: unknown) => void;
   /**
@@ -88,7 +103,8 @@ export class JobManager {
   readonly #store: JobStore;
   readonly #work: ScheduleWork;
   readonly #gate: FairGate;
-  readonly #o: Required<Omit<JobManagerOptions, 'onFailure' | 'resume' | 'now'>>;
+  readonly #o: Required<Omit<JobManagerOptions, 'onFailure' | 'resume' | 'now' | 'finish'>>;
+  readonly #finish: FinishWork;
   readonly #onFailure: (id: string, err: unknown) => void;
   readonly #now: () => number;
   readonly #active = new Map<string, Active>();
@@ -112,6 +128,7 @@ export class JobManager {
       retentionMs: opts.retentionMs ?? JOB_DEFAULTS.retentionMs,
     };
     this.#gate = new FairGate(this.#o.slots);
+    this.#finish = opts.finish ?? ((input, marks) => finishSchedule(input, marks));
     this.#onFailure = opts.onFailure ?? (() => {});
     this.#now = opts.now ?? Date.now;
     this.#ready = opts.resume === false ? Promise.resolve() : this.#recover();
@@ -261,7 +278,7 @@ export class JobManager {
         const byJob = left < markBudgetMs;
         const timer = AbortSignal.timeout(Math.max(1, Math.ceil(byJob ? left : markBudgetMs)));
         try {
-          return await search(AbortSignal.any([a.ac.signal, timer]));
+          return await search(AbortSignal.any([a.ac.signal, timer]), this.#flowOf(a));
         } catch (e) {
           if (!timer.aborted || a.ac.signal.aborted) throw e;
           if (byJob) {
@@ -280,6 +297,35 @@ export class JobManager {
         release();
       }
     };
+  }
+
+  #flowOf(a: Active): JobFlow {
+    return { owner: a.job.owner ?? '', flow: a.job.id };
+  }
+
+  /**
+   * The job's finish within what is left of its budget (its time counts in the job's, as its
+   * turns do): past it the job stops with JOB_BUDGET_EXCEEDED; cancellation and shutdown stop it.
+   */
+  async #finishing(a: Active, input: ScheduleJson, marks: readonly MarkResult[]): Promise<ScheduleRunResult> {
+    const left = this.#o.jobBudgetMs - a.spentMs;
+    if (left <= 0) {
+      a.ac.abort(JOB_BUDGET);
+      throw JOB_BUDGET;
+    }
+    const timer = AbortSignal.timeout(Math.max(1, Math.ceil(left)));
+    const t0 = performance.now();
+    try {
+      return await this.#finish(input, marks, AbortSignal.any([a.ac.signal, timer]), this.#flowOf(a));
+    } catch (e) {
+      if (timer.aborted && !a.ac.signal.aborted) {
+        a.ac.abort(JOB_BUDGET);
+        throw JOB_BUDGET;
+      }
+      throw e;
+    } finally {
+      a.spentMs += performance.now() - t0;
+    }
   }
 
   async #run(a: Active, given: ScheduleJson | null): Promise<void> {
@@ -318,7 +364,7 @@ export class JobManager {
       const marks = girders.map((g, i) => kept.get(i) ?? fresh.get(i));
       const missing = girders.filter((_, i) => marks[i] === undefined).map((g) => g.mark);
       if (missing.length > 0) throw new Error(`the work returned no result for marks ${missing.join(', ')}`);
-      patch = { status: 'done', result: await finishSchedule(input, marks as MarkResult[]) };
+      patch = { status: 'done', result: await this.#finishing(a, input, marks as MarkResult[]) };
     } catch (e) {
       const reason: unknown = ac.signal.aborted ? ac.signal.reason : undefined;
       if (reason === SHUTDOWN) {
@@ -329,7 +375,7 @@ export class JobManager {
       }
       if (reason === JOB_BUDGET) {
         const done = (a.job.progress?.marksDone ?? 0);
-        patch = { status: 'failed', error: { code: 'JOB_BUDGET_EXCEEDED', message: `the schedule's searches ran past the job's time budget of ${this.#o.jobBudgetMs} ms; ${done} of ${a.job.marks} marks finished (GET its marks); split the schedule or narrow its spaces` } };
+        patch = { status: 'failed', error: { code: 'JOB_BUDGET_EXCEEDED', message: `the schedule's searches and finish ran past the job's time budget of ${this.#o.jobBudgetMs} ms; ${done} of ${a.job.marks} marks finished (GET its marks); split the schedule or narrow its spaces` } };
       } else if (ac.signal.aborted) patch = { status: 'cancelled' };
       else if (isDomainError(e)) patch = { status: 'failed', error: { code: e.code, message: e.message } };
       else {

@@ -1,6 +1,6 @@
 import { DomainError } from '@platesmith/catalogue';
 import type { Engine } from '@platesmith/app';
-import { finishSchedule, runSchedule, type MarkResult, type ScheduleJson } from '@platesmith/schedule';
+import { runSchedule, type MarkResult, type ScheduleJson } from '@platesmith/schedule';
 import { DEFAULT_SPACE_CAP } from '@platesmith/schema';
 import { Worker, WaitingError, type Job } from 'bullmq';
 import { Redis } from 'ioredis';
@@ -271,7 +271,8 @@ export class QueueWorker {
       await this.#failJob(id, 'INTERNAL', `marks ${missing.slice(0, 10).join(', ')}${missing.length > 10 ? ', …' : ''} failed in the queue after their retries; the schedule run failed unexpectedly (logged under the job id)`);
       return { finished: false };
     }
-    const result = await finishSchedule(input, marks as MarkResult[]);
+    // on this process's pool (records, tonnage, the rationalisation's solves): the event loop keeps renewing BullMQ's locks
+    const result = await this.#o.engine.finish(input, marks as MarkResult[]);
     const n = input.girders.length;
     const r = await this.store.updateIfActive(id, {
       status: 'done',

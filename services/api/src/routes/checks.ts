@@ -3,7 +3,7 @@ import { PublishedVerdictJson } from '@platesmith/schema';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { budgetQuery, type BudgetLimits } from '../budget.js';
 import { ProblemDetailsJson } from '../problem-json.js';
-import { requestSignal } from '../signal.js';
+import { requestFlow, requestSignal } from '../signal.js';
 import { withParser } from '../validate.js';
 
 const Body = withParser(CheckRequest, parseCheckRequest);
@@ -23,6 +23,6 @@ export const checkRoutes: FastifyPluginAsyncZod<{ budget: BudgetLimits }> = asyn
         errors: ['UNPROCESSABLE'],
       },
     },
-    async (req, reply) => app.engine.check(req.body as CheckRequestT, { signal: requestSignal(reply, app.shutdownSignal), budgetMs: req.query.budgetMs ?? budget.defaultMs }),
+    async (req, reply) => app.engine.check(req.body as CheckRequestT, { signal: requestSignal(reply, app.shutdownSignal), flow: requestFlow(req), budgetMs: req.query.budgetMs ?? budget.defaultMs }),
   );
 };

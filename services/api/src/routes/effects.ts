@@ -2,7 +2,7 @@ import { EffectsSummaryJson, ProblemJson } from '@platesmith/schema';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { budgetQuery, type BudgetLimits } from '../budget.js';
 import { ProblemDetailsJson } from '../problem-json.js';
-import { requestSignal } from '../signal.js';
+import { requestFlow, requestSignal } from '../signal.js';
 
 export const effectsRoutes: FastifyPluginAsyncZod<{ budget: BudgetLimits }> = async (app, { budget }) => {
   app.post(
@@ -19,6 +19,6 @@ export const effectsRoutes: FastifyPluginAsyncZod<{ budget: BudgetLimits }> = as
         errors: ['UNPROCESSABLE'],
       },
     },
-    async (req, reply) => app.engine.effects(req.body, { signal: requestSignal(reply, app.shutdownSignal), budgetMs: req.query.budgetMs ?? budget.defaultMs }),
+    async (req, reply) => app.engine.effects(req.body, { signal: requestSignal(reply, app.shutdownSignal), flow: requestFlow(req), budgetMs: req.query.budgetMs ?? budget.defaultMs }),
   );
 };

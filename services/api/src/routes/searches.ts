@@ -2,7 +2,7 @@ import { PublishedSearchJson, SearchInput } from '@platesmith/schema';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { budgetQuery, type BudgetLimits } from '../budget.js';
 import { ProblemDetailsJson } from '../problem-json.js';
-import { requestSignal } from '../signal.js';
+import { requestFlow, requestSignal } from '../signal.js';
 
 export const searchRoutes: FastifyPluginAsyncZod<{ budget: BudgetLimits; spaceCap: number }> = async (app, { budget, spaceCap }) => {
   app.post(
@@ -21,7 +21,7 @@ export const searchRoutes: FastifyPluginAsyncZod<{ budget: BudgetLimits; spaceCa
     },
     async (req, reply) => {
       const budgetMs = req.query.budgetMs ?? budget.defaultMs;
-      const result = await app.engine.search(req.body, { signal: requestSignal(reply, app.shutdownSignal), budgetMs });
+      const result = await app.engine.search(req.body, { signal: requestSignal(reply, app.shutdownSignal), flow: requestFlow(req), budgetMs });
       // on the request's one log line
       req.logExtra = { ...req.logExtra, search: { status: result.status, ...result.stats, paretoPoints: result.pareto.length, lightestMass: result.lightest?.mass ?? null } };
       return result;

@@ -137,10 +137,13 @@ export function describe(s: PublishedSearch['pareto'][number]['section']): strin
   const fl = (f: { width: number; thickness: number }) => `${f.width}×${f.thickness}`;
   const same = s.topFlange.width === s.bottomFlange.width && s.topFlange.thickness === s.bottomFlange.thickness;
   const flanges = same ? `2 fl ${fl(s.topFlange)}` : `top ${fl(s.topFlange)} / bot ${fl(s.bottomFlange)}`;
-  const st = s.stiffeners ? `stiff ${s.stiffeners.width}×${s.stiffeners.thickness} @${Math.round(s.stiffeners.spacing)}${s.stiffeners.sides === 1 ? ' 1-side' : ''}` : 'no stiff';
+  // without intermediate stiffeners the bearing stiffeners and the end post are still there (and their checks can govern)
+  const st = s.stiffeners ? `stiff ${s.stiffeners.width}×${s.stiffeners.thickness} @${Math.round(s.stiffeners.spacing)}${s.stiffeners.sides === 1 ? ' 1-side' : ''}` : 'no intermediate';
+  const b = s.bearing;
+  const brg = b ? `, bearing ${(b.pairs ?? 1) > 1 ? `${b.pairs}× ` : ''}${b.width}×${b.thickness}` : '';
   const gs = s.grade ?? 'S355';
   const grade = typeof gs === 'string' ? gs : `${gs.web}/${gs.flanges}`;
-  return `web ${s.web.depth}×${s.web.thickness}, ${flanges}, ${st}, ${s.endPost ?? 'rigid'} end post, ${grade}`;
+  return `web ${s.web.depth}×${s.web.thickness}, ${flanges}, ${st}${brg}, ${s.endPost ?? 'rigid'} end post, ${grade}`;
 }
 
 /**
