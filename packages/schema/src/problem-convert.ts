@@ -142,8 +142,10 @@ export function checkProblemsFor(j: Omit<CheckProblemInput, 'section'>): (s: Sec
       analysis = toAnalysis(j, [...(section.stiffeners ? exactStiffenerXs(supports, section.stiffeners.a) : []), ...restraint]);
       analyses.set(a, analysis);
     }
-    const g = analysis.kind === 'envelope' ? 0 : selfWeight(section, supports);
-    return { section, effects: designEffects(analysis, g), options, analysis, g, assumptions: [...general, ...sectionAssumptions(s)] };
+    // load-bearing stiffeners without positions stand under every concentrated force (whose positions do not depend on the self-weight)
+    const withLoads = section.loadStiffeners && s.loadStiffeners?.at === undefined ? toSection(s, analysis.forces.map((f) => f.x)) : section;
+    const g = analysis.kind === 'envelope' ? 0 : selfWeight(withLoads, supports);
+    return { section: withLoads, effects: designEffects(analysis, g), options, analysis, g, assumptions: [...general, ...sectionAssumptions(s)] };
   };
 }
 
@@ -208,6 +210,7 @@ export function toSpace(j: SpaceJsonT): SpaceSpec {
     panels: panelsNorm,
     flats,
     sides: j.stiffenerSides === 'both' ? [1, 2] : [j.stiffenerSides],
+    loadStiffeners: [null, ...(j.loadStiffeners ?? []).map((f) => ({ b: f.width, t: f.thickness }))],
     endPosts: j.endPost === 'both' ? ['rigid', 'non-rigid'] : [j.endPost],
     webGrades: grades.web,
     flangeGrades: grades.flanges,
@@ -260,6 +263,12 @@ export function toSearchTask(j: SearchInput, cap = DEFAULT_SPACE_CAP): SearchTas
   const spaceDefaults = Object.keys(SpaceJson.shape).filter((k) => (j.space as Record<string, unknown>)[k] === undefined && !['minDepth', 'maxDepth'].includes(k));
   const all = [...problemAssumptions(j), ...assumptions];
   if (spaceDefaults.length > 0) all.push({ field: 'space', value: spaceDefaults.join(', '), note: 'these fields of the space take the catalogue defaults (see the API schema)' });
+  // load-bearing stiffeners: offered only when asked for (today's girders otherwise), and only where there are concentrated forces
+  const forces = analysis.forces;
+  if (forces.length > 0 && j.space.loadStiffeners === undefined) {
+    all.push({ field: 'space.loadStiffeners', value: 'none offered', note: 'concentrated forces enter the web unstiffened (patch loading, EN 1993-1-5 6, and the web-to-flange welds); list flats in space.loadStiffeners to let the search place load-bearing stiffeners under them (EN 1993-1-5 9.4)' });
+  }
+  const task = forces.length === 0 && (space.loadStiffeners?.length ?? 1) > 1 ? { ...space, loadStiffeners: [null] } : space;
   // the search sizes bearing stiffeners from the flats and reports both end-post types only when asked
-  return { space, options, analysis, objective: j.objective, cost: toCost(j.cost), assumptions: all };
+  return { space: task, options, analysis, objective: j.objective, cost: toCost(j.cost), assumptions: all };
 }

@@ -61,7 +61,7 @@ describe('every candidate of a set of plates has its own self-weight within self
     const options = defaultOptions(supports[supports.length - 1]!, { supports });
     const prep = prepareSearch({ space, options, load: analysisLoadModel(analysis), objective: 'mass', cost: DEFAULT_COST });
     for (const w of webConfigs(space, prep.fySource)) {
-      const parts = webParts(w, prep.L, supports, prep.Lmax);
+      const parts = webParts(w, prep.L, supports, prep.Lmax, prep.forceXs);
       for (const T of prep.flanges.slice(0, 3)) {
         for (const B of prep.flanges.slice(-2)) {
           const [lo, hi] = selfWeightRange(prep, w, T, B);
