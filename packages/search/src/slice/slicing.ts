@@ -84,7 +84,7 @@ export function pairsOf(s: SliceState, gt: number, gb: number): Pairs {
  * load-bearing pairs of a layout with them), and their panel
  * counts, most first. Whole plates with the same flat filter list the same layouts: once per pattern.
  */
-function patternOf(s: SliceState, first: number, nL: number, tw: number): { rigid: number; nonRigid: number; panelCounts: number[] } {
+export function patternOf(s: SliceState, first: number, nL: number, tw: number): { rigid: number; nonRigid: number; panelCounts: number[] } {
   const { plateStarts, webs } = s;
   const whole = first === plateStarts[lastAtOrBelow(plateStarts, first)] && nL === plateLength(plateStarts, first);
   const key = whole ? `${nL}|${s.sp.rules.stiffenerAtLeastWeb ? tw : ''}` : '';
