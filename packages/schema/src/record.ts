@@ -238,6 +238,8 @@ function platesInWords(s: SectionJson, grades: { web: string; flanges: string; s
       ? `intermediate transverse stiffeners: flats ${st.width} mm × ${st.thickness} mm, ${st.sides === 2 ? 'both faces' : 'one face'} of the web, at ${st.spacing} mm, ${grades.stiffeners}`
       : 'no intermediate transverse stiffeners',
   );
+  const ls = s.loadStiffeners;
+  if (ls) out.push(`load-bearing stiffeners under the concentrated forces: flats ${ls.width} mm × ${ls.thickness} mm on both faces, fitted to the loaded flange, at ${ls.at && ls.at.length > 0 ? ls.at.map((x) => `${x} mm`).join(', ') : 'no position (no concentrated force)'}, ${grades.stiffeners}`);
   out.push(
     `bearing stiffeners at the supports: flats ${bearing.width} mm × ${bearing.thickness} mm on both faces${s.endPost === 'rigid' ? `, two pairs ${bearing.spacing ?? '?'} mm apart at each end (rigid end post)` : ' (non-rigid end post)'}`,
   );
