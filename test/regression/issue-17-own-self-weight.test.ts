@@ -102,3 +102,57 @@ describe('the search returns exactly what check passes, each candidate with its 
     expect(Math.min(...result.pareto.map((e) => e.mass))).toBeCloseTo(lightest, 6);
   });
 });
+
+/**
+ * The same through the public path on a two-span girder (9 m + 13 m, point load in the long span):
+ * the search's analysis holds the stiffener stations of every layout of the space, `check`'s only
+ * those of the section it checks; the verdicts must still agree, utilisation for utilisation.
+ * Invented scenario.
+ */
+describe('on a two-span girder the search and check agree on every point and on the lightest', () => {
+  const two = {
+    spans: [9000, 13000],
+    actions: [
+      { kind: 'permanent', load: 'udl', value: 12 },
+      { kind: 'variable', load: 'udl', value: 18, category: 'B' },
+      { kind: 'variable', load: 'point', value: 160, at: 15000, category: 'B' },
+    ],
+    options: { restraint: { spacing: 2750 }, bottomRestraint: { spacing: 2750 } },
+  };
+  const space = { webDepth: [900, 1100], webThickness: [8, 10], flangeWidth: [250, 300], flangeThickness: [12, 15, 20], symmetric: true, panels: [0, 3, 5], flats: [{ width: 100, thickness: 10 }], stiffenerSides: 2, endPost: 'non-rigid', grade: 'S355' };
+  const input = parseWith(SearchInput, { ...two, space });
+  if (!input.ok) throw new Error(JSON.stringify(input.issues));
+  const result = search(problemOf(toSearchTask(input.value)));
+  const checkedTwo = (section: Record<string, unknown>) => {
+    const p = parseWith(CheckProblemInput, { ...two, section });
+    if (!p.ok) throw new Error(JSON.stringify(p.issues));
+    const job = toCheckProblem(p.value);
+    const verdict = checkGirder(job.section, job.effects, job.options);
+    return { verdict, depth: job.section.hw + 2 * job.section.top.t, mass: girderMass(job.section, 22000, [0, 9000, 22000], verdict.bearing).total };
+  };
+  test('every point: the same verdict, governing check and utilisation as check', () => {
+    expect(result.pareto.length).toBeGreaterThan(0);
+    for (const e of result.pareto) {
+      const c = checkedTwo(fromSection(e.section) as unknown as Record<string, unknown>);
+      expect(c.verdict.passes).toBe(true);
+      for (const r of e.verdict.checks) {
+        const mine = c.verdict.checks.find((x) => x.id === r.id)!;
+        expect(mine.utilisation, r.id).toBe(r.utilisation);
+      }
+    }
+  });
+  test('no candidate that check passes is lighter at no greater depth', () => {
+    const all: Record<string, unknown>[] = [];
+    for (const depth of space.webDepth)
+      for (const thickness of space.webThickness)
+        for (const width of space.flangeWidth)
+          for (const tf of space.flangeThickness)
+            for (const n of space.panels) {
+              const flange = { width, thickness: tf };
+              all.push({ web: { depth, thickness }, topFlange: flange, bottomFlange: flange, stiffeners: n === 0 ? null : { spacing: 13000 / n, width: 100, thickness: 10, sides: 2 }, endPost: 'non-rigid', grade: 'S355' });
+            }
+    const passing = all.map(checkedTwo).filter((c) => c.verdict.passes);
+    expect(passing.length).toBeGreaterThan(0);
+    for (const e of result.pareto) for (const c of passing) if (c.depth <= e.depth) expect(c.mass).toBeGreaterThanOrEqual(e.mass - 1e-6);
+  });
+});

@@ -1,4 +1,5 @@
 import type { Effects } from '@platesmith/checks';
+import { analyse } from '@platesmith/actions';
 import type { LoadModel } from '../src/index.js';
 import { affineDemandBound, type AffineDemand } from '../src/index.js';
 
@@ -40,4 +41,21 @@ export function simpleSpanModel(L: number, q: number, P: number, qk: number, gam
     deflectionFloor: (gLo) =>
       xs.map((x) => ({ bend: ((qk + gLo) * x * (L ** 3 - 2 * L * x * x + x ** 3)) / 24, shear: ((qk + gLo) * x * (L - x)) / 2, limit: L / 250 })),
   };
+}
+
+/**
+ * Test fixture: the analysis of a girder over `spans` (mm) under a permanent UDL g and a variable
+ * UDL q (kN/m, category B) and, when P > 0, a variable point load P (kN, category E) at `at` of the
+ * first span. The beams the property tests of the load model's bounds draw.
+ */
+export function beamAnalysis(b: { spans: number[]; g: number; q: number; P: number; combination: '6.10' | '6.10ab' }, at = 1 / 3) {
+  return analyse({
+    spans: b.spans,
+    actions: [
+      { kind: 'permanent', load: 'udl', value: b.g },
+      { kind: 'variable', load: 'udl', value: b.q, category: 'B' },
+      ...(b.P > 0 ? [{ kind: 'variable' as const, load: 'point' as const, value: b.P * 1e3, at: b.spans[0]! * at, ss: 150, category: 'E' }] : []),
+    ],
+    combination: b.combination,
+  });
 }

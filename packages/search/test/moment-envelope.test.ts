@@ -1,7 +1,8 @@
 import { describe, expect } from 'vitest';
+import { beamAnalysis } from './fixtures.js';
 import { fc, test } from '@fast-check/vitest';
 import { bendingForSign, checkGirder, defaultOptions, ltbUtilisation, momentEnvelopeOf, prepare, type Section } from '@platesmith/checks';
-import { analyse, designEffects } from '@platesmith/actions';
+import { designEffects } from '@platesmith/actions';
 import { analysisMomentEnvelope, momentEnvelopeFor } from '../src/index.js';
 
 /**
@@ -20,21 +21,10 @@ const beamArb = fc.record({
   selfWeight: fc.double({ min: 0, max: 40, noNaN: true }),
 });
 
-function analysisOf(b: { spans: number[]; g: number; q: number; P: number; combination: '6.10' | '6.10ab' }) {
-  return analyse({
-    spans: b.spans,
-    actions: [
-      { kind: 'permanent', load: 'udl', value: b.g },
-      { kind: 'variable', load: 'udl', value: b.q, category: 'B' },
-      ...(b.P > 0 ? [{ kind: 'variable' as const, load: 'point' as const, value: b.P * 1e3, at: b.spans[0]! / 3, ss: 150, category: 'E' }] : []),
-    ],
-    combination: b.combination,
-  });
-}
 
 describe('moment envelope for lateral-torsional buckling', () => {
   test.prop([beamArb], { numRuns: 60 })('built from the analysis = built from the design effects, bit for bit', (b) => {
-    const a = analysisOf(b);
+    const a = beamAnalysis(b);
     const ref = momentEnvelopeOf(designEffects(a, b.selfWeight).stations);
     expect(momentEnvelopeFor(a)(b.selfWeight)).toEqual(ref);
     expect(analysisMomentEnvelope(a, b.selfWeight)).toEqual(ref);
@@ -54,7 +44,7 @@ describe('moment envelope for lateral-torsional buckling', () => {
     modified: fc.boolean(),
   });
   test.prop([beamArb, sectionArb], { numRuns: 120 })('ltbUtilisation: exact = the utilisation of the lateral-torsional buckling check; the screen a lower bound', (b, s) => {
-    const a = analysisOf(b);
+    const a = beamAnalysis(b);
     const L = b.spans.reduce((x, y) => x + y, 0);
     const supports = [0, ...b.spans.map((_, i) => b.spans.slice(0, i + 1).reduce((x, y) => x + y, 0))];
     const at = (n: number) => (n === 0 ? { kind: 'continuous' as const } : { kind: 'at' as const, at: Array.from({ length: n * b.spans.length + 1 }, (_, i) => (L * i) / (n * b.spans.length)) });

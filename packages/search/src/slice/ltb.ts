@@ -153,14 +153,17 @@ export function ltbPlatesFail(s: SliceState, ps: Plates, section: Section): bool
 /**
  * ltbFails for a layout of ps at its own self-weight g, once per distinct g of the set (layouts
  * with the same stiffener mass share it): the exact screen where the set bound could not decide.
- * Only a self-weight range too wide for the set bound, or a side it does not bound, gets here with
- * a failure; the layout-free checks would find it too, after the layout checks.
+ * Most sets that get here fail it: the set bound leaves out the destabilising load-height term
+ * (see ltb-bound.ts), the exact screen does not. The section's context and its bending
+ * resistances are made once per set (the layouts share the plates).
  */
 export function ltbFailsAt(s: SliceState, ps: Plates, g: number): boolean {
   const memo = (ps.ltbAt ??= new Map());
   let dead = memo.get(g);
   if (dead === undefined) {
-    dead = ltbFails(s, ps.section!, g);
+    const c = (ps.ltbCtx ??= { ctx: prepare(ps.section!, s.o), bending: {} });
+    const u = ltbUtilisation(c.ctx, s.envelopeOf(g), (side) => (c.bending[side] ??= bendingForSign(c.ctx, side)), LTB_SCREEN_LIMIT);
+    dead = !(u <= LTB_SCREEN_LIMIT);
     memo.set(g, dead);
   }
   return dead;

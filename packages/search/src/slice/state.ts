@@ -7,6 +7,7 @@ import {
   momentEnvelopeOf,
   panelsOf,
   type BearingCandidates,
+  type CheckContext,
   type CheckId,
   type CheckOptions,
   type CheckResult,
@@ -18,6 +19,7 @@ import {
   type Material,
   type MomentEnvelope,
   type Section,
+  type SignBending,
 } from '@platesmith/checks';
 import { STEEL_KG_PER_MM3 } from '@platesmith/catalogue';
 import { G_ACC, type BearingFlat, type Evaluated, type CandidateKey, type Prepared, type PruneStats, type SearchProblem } from '../core.js';
@@ -94,6 +96,8 @@ export interface Plates {
   plateResults?: Map<number, Judged['results'] | CheckResult>;
   /** per own self-weight: whether the exact LTB screen fails it (ltbFailsAt) */
   ltbAt?: Map<number, boolean>;
+  /** the screen's context of the plates' section and its bending resistances per sign (ltbFailsAt) */
+  ltbCtx?: { ctx: CheckContext; bending: Partial<Record<'top' | 'bot', SignBending>> };
   /** the section of layout 0 (the layout-free checks read its plates only) */
   section?: Section;
   order?: Int32Array;
