@@ -40,6 +40,7 @@ export {
   compressionSide,
   panelsOf,
   loadStiffenerPositions,
+  restraintStiffenerPositions,
   resolveBearing,
   girderMass,
   girderSelfWeight,
@@ -99,6 +100,7 @@ export {
 export { shearArea, vplRd } from './en1993-1-5/shear-plastic.js';
 export { interaction71, rho628 } from './en1993-1-5/interaction.js';
 export { stiffenerSection, stiffenerIstMin, stiffenerAxialForce, strutResistance, flatTorsion, stiffenedAt } from './en1993-1-5/stiffeners.js';
+export { restraintStiffenerCheck, restraintStiffenerAt, restraintForce } from './en1993-1-1/restraint-stiffener.js';
 export { loadStiffenerCheck, loadStiffenerAt, loadStiffenerLcr, loadStiffenerWelds, heldAt } from './en1993-1-5/load-stiffener.js';
 export { rigidEndPost, bearingCrushing } from './en1993-1-5/end-post.js';
 

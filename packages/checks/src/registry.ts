@@ -18,10 +18,12 @@ import type { CheckResult } from './types.js';
  *   patch loading and the web-to-flange welds) and the end-post type
  * - `flats`: the intermediate stiffener flats (bs, ts, sides)
  * - `loadFlats`: the load-bearing stiffener flats (bs, ts) under the concentrated forces
+ * - `restraintFlats`: the stiffener pairs at lateral restraints (bs, ts, positions); not part of
+ *   the panel layout, and one choice for a whole search space (not a layout choice)
  * - `bearing`: the bearing stiffeners over the supports (sized from the flats when not given)
  * - `loads`: the design effects (stations, forces, reactions, deflection points)
  */
-export type CheckInput = 'web' | 'flanges' | 'panels' | 'flats' | 'loadFlats' | 'bearing' | 'loads';
+export type CheckInput = 'web' | 'flanges' | 'panels' | 'flats' | 'loadFlats' | 'restraintFlats' | 'bearing' | 'loads';
 
 /**
  * Unit of a value as the check library reports it (internal units: N, N·mm, N/mm, mm, MPa);
@@ -394,6 +396,35 @@ export const CHECKS = [
     fn: 'deflectionCheck',
     beneath: [{ clause: 'EN 1990 A1.4.3', fn: 'deflection' }],
     values: { delta: 'mm', limit: 'mm', name: 'text', ratio: '-', span: 'mm', Iy: 'mm4', Av: 'mm2' },
+  },
+  {
+    id: 'restraint-stiffener',
+    clause: 'EN 1993-1-1 5.3.3',
+    family: 'bending',
+    reads: ['web', 'flanges', 'restraintFlats', 'loads'],
+    judge: 125,
+    file: 'en1993-1-1/restraint-stiffener.ts',
+    fn: 'restraintStiffenerCheck',
+    beneath: [
+      { clause: 'EN 1993-1-1 5.3.3(4)', fn: 'restraintForce' },
+      { clause: 'EN 1993-1-1 6.2.5; EN 1993-1-5 9.1(2), 9.2.1(8)', fn: 'restraintStiffenerAt' },
+    ],
+    values: {
+      part: 'text',
+      Fr: 'N',
+      alphaM: '-',
+      NEdFlange: 'N',
+      MEdFlange: 'Nmm',
+      flange: 'text',
+      forceBasis: 'text',
+      M: 'Nmm',
+      W: 'mm3',
+      MRd: 'Nmm',
+      I: 'mm4',
+      ItOverIp: '-',
+      torsionLimit: '-',
+      outstand: 'mm',
+    },
   },
   {
     id: 'web-flange-weld',

@@ -37,6 +37,7 @@ export function material(s: Section, o: Pick<CheckOptions, 'fySource'>): Materia
   const fyStiff = fy(s.grade.stiffener, tStiff, src, 'section.stiffeners.thickness');
   const fyBearing = s.bearing ? fy(s.grade.stiffener, s.bearing.ts, src, 'section.bearing.thickness') : fyStiff;
   const fyLoad = s.loadStiffeners ? fy(s.grade.stiffener, s.loadStiffeners.ts, src, 'section.loadStiffeners.thickness') : fyStiff;
+  const fyRestraint = s.restraintStiffeners ? fy(s.grade.stiffener, s.restraintStiffeners.ts, src, 'section.restraintStiffeners.thickness') : fyStiff;
   return {
     fyw,
     fyTop,
@@ -44,6 +45,7 @@ export function material(s: Section, o: Pick<CheckOptions, 'fySource'>): Materia
     fyStiff,
     fyBearing,
     fyLoad,
+    fyRestraint,
     fuw: fu(s.grade.web, s.tw, src),
     fuTop: fu(s.grade.top, s.top.t, src),
     fuBot: fu(s.grade.bot, s.bot.t, src),
@@ -263,6 +265,15 @@ export function loadStiffenerPositions(supports: readonly number[], xs: readonly
 }
 
 /**
+ * The positions of stiffeners at lateral restraints that stand inside the girder (as
+ * loadStiffenerPositions keeps load-bearing ones: away from the supports, ascending, once each).
+ * They are not counted as panel boundaries (conservative: a boundary only shortens a panel).
+ */
+export function restraintStiffenerPositions(supports: readonly number[], xs: readonly number[]): number[] {
+  return loadStiffenerPositions(supports, xs);
+}
+
+/**
  * Web panels between rigid transverse boundaries: supports, intermediate stiffeners and load-bearing
  * stiffeners. Intermediate stiffeners stand at x0 + k·a within each span, measured from the span's
  * left support; a stiffener closer than 1 mm to the next support is omitted. Load-bearing
@@ -349,6 +360,8 @@ export interface MassBreakdown {
   stiffeners: number;
   /** of which load-bearing stiffeners under concentrated forces, kg */
   loadStiffeners: number;
+  /** of which stiffeners at lateral restraints, kg */
+  restraintStiffeners: number;
   bearing: number;
   total: number;
   /** kg/m of girder length */
@@ -358,7 +371,7 @@ export interface MassBreakdown {
 /**
  * Steel mass of the girder of length L (mm): plates, intermediate stiffeners (full web depth,
  * one flat per side), load-bearing stiffeners (a full-depth pair at each position inside the
- * girder, loadStiffenerPositions), bearing stiffeners at every support (double-sided; two pairs at a rigid
+ * girder, loadStiffenerPositions), stiffener pairs at lateral restraints (restraintStiffenerPositions), bearing stiffeners at every support (double-sided; two pairs at a rigid
  * end post). Density 7850 kg/m³. Welds and snipes are ignored (common practice, no source).
  */
 export function girderMass(s: Section, L: number, supports: readonly number[], bearing: BearingStiffener): MassBreakdown {
@@ -371,18 +384,20 @@ export function girderMass(s: Section, L: number, supports: readonly number[], b
   const { stiffenerXs } = panelsOf(supports, s.stiffeners?.a ?? null, loadXs);
   const intermediate = s.stiffeners ? stiffenerXs.length * s.stiffeners.sides * s.stiffeners.bs * s.stiffeners.ts * s.hw * k : 0;
   const loadStiffeners = ls ? loadXs.length * 2 * ls.bs * ls.ts * s.hw * k : 0;
-  const stiffeners = intermediate + loadStiffeners;
+  const rs = s.restraintStiffeners;
+  const restraintStiffeners = rs ? restraintStiffenerPositions(supports, rs.xs).length * 2 * rs.bs * rs.ts * s.hw * k : 0;
+  const stiffeners = intermediate + loadStiffeners + restraintStiffeners;
   const ends = 2;
   const inner = Math.max(0, supports.length - 2);
   const pairsAtEnd = s.endPost === 'rigid' ? 2 : 1;
   const bearingMass = (ends * pairsAtEnd + inner) * 2 * bearing.bs * bearing.ts * s.hw * k;
   const total = web + topFlange + bottomFlange + stiffeners + bearingMass;
-  return { web, topFlange, bottomFlange, stiffeners, loadStiffeners, bearing: bearingMass, total, perMetre: total / (L / 1000) };
+  return { web, topFlange, bottomFlange, stiffeners, loadStiffeners, restraintStiffeners, bearing: bearingMass, total, perMetre: total / (L / 1000) };
 }
 
 /**
- * The self-weight the girder carries, N/mm (= kN/m): web, flanges, intermediate and load-bearing
- * stiffeners of this section over the girder's length (bearing stiffeners stand over the supports
+ * The self-weight the girder carries, N/mm (= kN/m): web, flanges, intermediate, load-bearing and
+ * restraint stiffeners of this section over the girder's length (bearing stiffeners stand over the supports
  * and load no span). The one definition: `check` adds it to a problem's actions and the search judges every
  * candidate with it, so both give a section the same verdict.
  */
@@ -410,6 +425,10 @@ export function assertSection(s: Section): void {
   if (s.loadStiffeners) {
     pos.push(['section.loadStiffeners.width', s.loadStiffeners.bs]);
     pos.push(['section.loadStiffeners.thickness', s.loadStiffeners.ts]);
+  }
+  if (s.restraintStiffeners) {
+    pos.push(['section.restraintStiffeners.width', s.restraintStiffeners.bs]);
+    pos.push(['section.restraintStiffeners.thickness', s.restraintStiffeners.ts]);
   }
   for (const [field, v] of pos) {
     if (!Number.isFinite(v) || v <= 0) {

@@ -39,6 +39,16 @@ export interface LoadStiffeners {
   xs: number[];
 }
 
+/**
+ * Stiffeners where a lateral restraint (cross-frame, bracing) attaches (EN 1993-1-1 5.3.3): a
+ * double-sided pair of flats bs × ts (mm) at each position xs (mm from the left end).
+ */
+export interface RestraintStiffeners {
+  bs: number;
+  ts: number;
+  xs: number[];
+}
+
 export type EndPost = 'rigid' | 'non-rigid';
 
 export interface SectionGrades {
@@ -60,6 +70,8 @@ export interface Section {
   bearing?: BearingStiffener | undefined;
   /** load-bearing stiffeners under the concentrated forces (absent or null: none, forces enter the web unstiffened) */
   loadStiffeners?: LoadStiffeners | null | undefined;
+  /** stiffeners at lateral restraints, carrying the restraint force (absent or null: none) */
+  restraintStiffeners?: RestraintStiffeners | null | undefined;
   grade: SectionGrades;
 }
 
@@ -191,6 +203,8 @@ export interface Material {
   fyBearing: number;
   /** load-bearing stiffener flats under concentrated forces (their own thickness band; fyStiff when there are none) */
   fyLoad: number;
+  /** stiffener flats at lateral restraints (their own thickness band; fyStiff when there are none) */
+  fyRestraint: number;
   fuw: number;
   fuTop: number;
   fuBot: number;

@@ -53,6 +53,7 @@ describe('check registry: the table itself', () => {
       'bearing-stiffener',
       'lateral-torsional-buckling',
       'deflection',
+      'restraint-stiffener',
       'web-flange-weld',
     ]);
   });
@@ -99,14 +100,17 @@ const sectionArb = fc.record({
   a: fc.option(fc.integer({ min: 800, max: 6000 }), { nil: null }),
   endPost: fc.constantFrom('rigid' as const, 'non-rigid' as const),
   load: fc.option(fc.constantFrom({ bs: 120, ts: 15 }, { bs: 180, ts: 20 }, { bs: 250, ts: 12 }), { nil: null }),
+  restraint: fc.option(fc.constantFrom({ bs: 100, ts: 10 }, { bs: 160, ts: 12 }), { nil: null }),
 });
 
-type SectionRecord = { hw: number; tw: number; bt: number; tt: number; bb: number; tb: number; a: number | null; endPost: 'rigid' | 'non-rigid'; load?: { bs: number; ts: number } | null };
+type SectionRecord = { hw: number; tw: number; bt: number; tt: number; bb: number; tb: number; a: number | null; endPost: 'rigid' | 'non-rigid'; load?: { bs: number; ts: number } | null; restraint?: { bs: number; ts: number } | null };
 
 /** The section of a record; its load-bearing stiffeners (if any) under the central force of effectsOf(L, …). */
 function sectionOf(r: SectionRecord, L = 16000): Section {
   return {
     ...(r.load ? { loadStiffeners: { ...r.load, xs: [L / 2] } } : {}),
+    // a pair at the lateral restraint of the tests' options (L/4, both flanges)
+    ...(r.restraint ? { restraintStiffeners: { ...r.restraint, xs: [L / 4] } } : {}),
     hw: r.hw,
     tw: r.tw,
     top: { b: r.bt, t: r.tt },
@@ -153,6 +157,10 @@ describe('check registry: each entry against its check', () => {
       ];
     },
     flats: (s, e, k) => [{ ...s, stiffeners: s.stiffeners ? { ...s.stiffeners, bs: 60 + 20 * k, ts: 8 + 2 * k, sides: k % 2 === 0 ? 1 : 2 } : null }, e],
+    restraintFlats: (s, e, k) => {
+      const L = e.stations[e.stations.length - 1]!.x;
+      return [{ ...s, restraintStiffeners: s.restraintStiffeners ? (k === 0 ? null : { bs: 80 + 40 * k, ts: 8 + 3 * k, xs: [L / 4, (3 * L) / 4].slice(0, k) }) : { bs: 120, ts: 12, xs: [L / 4] } }, e];
+    },
     loadFlats: (s, e, k) => [s.loadStiffeners ? { ...s, loadStiffeners: { ...s.loadStiffeners, bs: 60 + 50 * k, ts: 8 + 4 * k } } : s, e],
     bearing: (s, e, k) => [{ ...s, bearing: { bs: 80 + 20 * k, ts: 10 + 2 * k, e: s.bearing!.e * (0.5 + 0.2 * k) } }, e],
     loads: (s, e, k) => {
@@ -165,7 +173,7 @@ describe('check registry: each entry against its check', () => {
     test.prop([sectionArb, loadArb, fc.integer({ min: 0, max: 3 })], { numRuns: 120 })(
       `a check whose entry does not read ${input} gives the same result when only ${input} change`,
       (r, ld, k) => {
-        const o = defaultOptions(ld.L);
+        const o = defaultOptions(ld.L, { restraint: { kind: 'at', at: [0, ld.L / 4, ld.L] }, restraintBottom: { kind: 'at', at: [0, ld.L / 4, ld.L] } });
         const s = sectionOf(r, ld.L);
         const e = effectsOf(ld.L, ld.w, ld.P, ld.sag);
         const [s2, e2] = change(s, e, k);

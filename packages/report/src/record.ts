@@ -83,6 +83,13 @@ export const FORMULAS: Readonly<Record<string, { name: string; lines: readonly s
       'IT / Ip ≥ 5.3·fy / E (9.3); Ist ≥ Ist,min as a rigid panel boundary (9.6); bs within the flange outstand',
     ],
   },
+  'restraint-stiffener': {
+    name: 'Stiffeners at lateral restraints',
+    lines: [
+      'Fr = αm·NEd / 100 (EN 1993-1-1 5.3.3(4)), αm = 1, NEd = MEd / hs of the compression flange held there',
+      'Fr·hw ≤ W·fy / γM0 (the pair as a cantilever out of the web plane, W with 15ε·tw of web each side); IT / Ip ≥ 5.3·fy / E (EN 1993-1-5 9.3)',
+    ],
+  },
   'stiffener-torsion': {
     name: 'Torsional buckling of stiffeners',
     lines: ['IT / Ip ≥ 5.3·fy / E (9.3)'],

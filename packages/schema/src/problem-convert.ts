@@ -4,7 +4,7 @@ import { checkGirder, girderSelfWeight, type CheckOptions, type Effects, type Gi
 import { DEFAULT_COST, defaultSpace, spaceSize, stiffenerStations, type CostModel, type SearchTask, type SpaceSpec } from '@platesmith/search';
 import { designEffects } from '@platesmith/actions';
 import { z } from 'zod';
-import { assertStockThickness, resolveOptions, sectionAssumptions, toSection, type Assumption } from './convert.js';
+import { assertStockThickness, resolveOptions, restraintPositions, sectionAssumptions, toSection, type Assumption } from './convert.js';
 import { ProblemFields, problemShape, type ProblemJson } from './problem.js';
 import { SectionJson } from './section.js';
 import { CostJson, SpaceJson, type SpaceJson as SpaceJsonT } from './space.js';
@@ -143,7 +143,7 @@ export function checkProblemsFor(j: Omit<CheckProblemInput, 'section'>): (s: Sec
       analyses.set(a, analysis);
     }
     // load-bearing stiffeners without positions stand under every concentrated force (whose positions do not depend on the self-weight)
-    const withLoads = section.loadStiffeners && s.loadStiffeners?.at === undefined ? toSection(s, analysis.forces.map((f) => f.x)) : section;
+    const withLoads = (section.loadStiffeners && s.loadStiffeners?.at === undefined) || (section.restraintStiffeners && s.restraintStiffeners?.at === undefined) ? toSection(s, analysis.forces.map((f) => f.x), restraintPositions(options)) : section;
     const g = analysis.kind === 'envelope' ? 0 : selfWeight(withLoads, supports);
     return { section: withLoads, effects: designEffects(analysis, g), options, analysis, g, assumptions: [...general, ...sectionAssumptions(s)] };
   };
@@ -211,6 +211,7 @@ export function toSpace(j: SpaceJsonT): SpaceSpec {
     flats,
     sides: j.stiffenerSides === 'both' ? [1, 2] : [j.stiffenerSides],
     loadStiffeners: [null, ...(j.loadStiffeners ?? []).map((f) => ({ b: f.width, t: f.thickness }))],
+    restraintStiffener: j.restraintStiffeners ? { b: j.restraintStiffeners.width, t: j.restraintStiffeners.thickness } : null,
     endPosts: j.endPost === 'both' ? ['rigid', 'non-rigid'] : [j.endPost],
     webGrades: grades.web,
     flangeGrades: grades.flanges,

@@ -20,8 +20,12 @@ export function bruteForce(p: SearchProblem): { front: Evaluated[]; evaluations:
   let evaluations = 0;
   // the concentrated forces' positions (load-bearing stiffeners stand under each of them), from the load model itself
   const forceXs = p.load.effects(0).forces.map((f) => f.x);
+  // the restraint stiffener pairs the space puts on every candidate (at the options' restraint positions)
+  const f = sp.restraintStiffener;
+  const at = [...(p.options.restraint.kind === 'at' ? p.options.restraint.at : []), ...(p.options.restraintBottom.kind === 'at' ? p.options.restraintBottom.at : [])];
+  const restraint = f ? { bs: f.b, ts: f.t, xs: at } : null;
   webs.forEach((w, wi) => {
-    const parts = webParts(w, L, supports, Lmax, forceXs);
+    const parts = webParts(w, L, supports, Lmax, forceXs, restraint);
     const cache = new Map<number, BearingFlat>();
     for (let ti = 0; ti < flanges.length; ti++) {
       for (let bi = 0; bi < flanges.length; bi++) {

@@ -1,5 +1,5 @@
 import type { FySource } from '@platesmith/catalogue';
-import { lightestFittingBearing, loadStiffenerPositions, panelsOf, resolveBearing, type CheckOptions, type GirderVerdict, type Section } from '@platesmith/checks';
+import { lightestFittingBearing, loadStiffenerPositions, panelsOf, resolveBearing, restraintStiffenerPositions, type RestraintStiffeners, type CheckOptions, type GirderVerdict, type Section } from '@platesmith/checks';
 import { fy, G_ACC, STEEL_KG_PER_MM3 as KG_PER_MM3 } from '@platesmith/catalogue';
 import type { LoadModel } from './load.js';
 import type { Limit, SpaceEdge } from './limits.js';
@@ -113,6 +113,16 @@ export interface Prepared {
   forceXs: number[];
   /** the load-bearing stiffener positions a layout with them has (loadStiffenerPositions of forceXs) */
   loadXs: number[];
+  /** the stiffener pairs every candidate has at the lateral restraints (space.restraintStiffener), or null */
+  restraintPair: RestraintStiffeners | null;
+}
+
+/** The stiffener pairs at lateral restraints a space puts on every candidate: its flat at each restraint position of either flange inside the girder. */
+export function restraintPairOf(space: SpaceSpec, options: CheckOptions): RestraintStiffeners | null {
+  const f = space.restraintStiffener;
+  if (!f) return null;
+  const at = [...(options.restraint.kind === 'at' ? options.restraint.at : []), ...(options.restraintBottom.kind === 'at' ? options.restraintBottom.at : [])];
+  return { bs: f.b, ts: f.t, xs: restraintStiffenerPositions(options.supports, at) };
 }
 
 export function prepareSearch(p: SearchProblem): Prepared {
@@ -147,7 +157,10 @@ export function prepareSearch(p: SearchProblem): Prepared {
   let loadKgPerHw = 0;
   for (const f of loadOptions(p.space)) if (f) loadKgPerHw = Math.max(loadKgPerHw, loadXs.length * 2 * f.b * f.t * KG_PER_MM3);
   stiffKgPerHw += loadKgPerHw;
-  return { p, webs, groups, flanges, groupStart, plateStarts, L, Lmax, supports, fySource, stiffKgPerHw, forceXs, loadXs };
+  // the restraint pairs, on every candidate
+  const restraintPair = restraintPairOf(p.space, p.options);
+  if (restraintPair) stiffKgPerHw += restraintPair.xs.length * 2 * restraintPair.bs * restraintPair.ts * KG_PER_MM3;
+  return { p, webs, groups, flanges, groupStart, plateStarts, L, Lmax, supports, fySource, stiffKgPerHw, forceXs, loadXs, restraintPair };
 }
 
 /** The relative margin by which selfWeightRange widens its ends (round-off between two ways of summing the same masses). */

@@ -173,7 +173,7 @@ function worstFailure(v: GirderVerdict): GirderVerdict['governing'] {
 
 /** `check`'s verdict on a candidate (its own self-weight; bearing stiffeners sized by the check) and its objective value. */
 function judge(prep: Prepared, w: WebConfig, T: FlangeOption, B: FlangeOption): { section: Section; verdict: GirderVerdict; value: number; mass: number } {
-  const parts = webParts(w, prep.L, prep.supports, prep.Lmax, prep.forceXs);
+  const parts = webParts(w, prep.L, prep.supports, prep.Lmax, prep.forceXs, prep.restraintPair);
   const section = buildSection(w, parts, T, B);
   const verdict = checkGirder(section, prep.p.load.effects(girderSelfWeight(section, prep.supports)), prep.p.options);
   const plates = parts.webMass + parts.stiffMass + (flangeMass(T, prep.L) + flangeMass(B, prep.L));

@@ -23,6 +23,12 @@ export interface SpaceSpec {
    * unstiffened). Absent: [null], today's girders.
    */
   loadStiffeners?: (FlatBar | null)[] | undefined;
+  /**
+   * a pair of these flats on every candidate at each lateral restraint inside the girder (the
+   * options' restraint positions of either flange), carrying the restraint force (EN 1993-1-1
+   * 5.3.3): one choice for the space, not a layout choice. Absent or null: none.
+   */
+  restraintStiffener?: FlatBar | null | undefined;
   endPosts: EndPost[];
   webGrades: GradeName[];
   flangeGrades: GradeName[];

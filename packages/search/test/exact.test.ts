@@ -118,6 +118,10 @@ describe('search = brute force on mono-symmetric spaces with many flange widths'
       flangeGradeCount: 1,
       // rules off on two draws in three: the rows keep the 5-7 columns the stretches need above
       rules: fc.oneof({ arbitrary: fc.constant({}), weight: 2 }, { arbitrary: rulesArb, weight: 1 }),
+      // today's layouts: this test is about the LTB set bound's row stretches (the tests above draw
+      // the load-bearing and restraint stiffeners); see the known failure below for why it is held here
+      loadStiffeners: [null],
+      restraintStiffener: null,
     }),
     span: fc.constantFrom(9000, 12000, 15000, 20000),
     restraints: fc.constantFrom(1, 2, 3, 4, 6),

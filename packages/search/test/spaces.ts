@@ -7,7 +7,8 @@ import type { FabricationRules, SpaceSpec } from '../src/index.js';
  * setting of SpaceSpec that changes which candidates exist or which bounds the search may use —
  * the fabrication rules (tf ≤ k·tw, bf/tf limits, flats at least as thick as the web), hybrid
  * girders (web and flange grades drawn apart, S460 flanges on an S275 web among them),
- * load-bearing stiffeners under the concentrated forces (none, offered, or the only choice), and the
+ * load-bearing stiffeners under the concentrated forces (none, offered, or the only choice),
+ * stiffener pairs at the lateral restraints, and the
  * least and greatest overall depth. The rule values are drawn where they bite on these lists
  * (common practice, no source, for the kind of values engineers set).
  */
@@ -23,6 +24,8 @@ export interface SpaceDraw {
   endPosts: ('rigid' | 'non-rigid')[];
   /** load-bearing stiffener choices under the concentrated forces (null: none) */
   loadStiffeners: ((typeof FLAT_BARS)[number] | null)[];
+  /** stiffener pairs at the lateral restraints on every candidate (null: none) */
+  restraintStiffener: (typeof FLAT_BARS)[number] | null;
   webGrades: GradeName[];
   flangeGrades: GradeName[];
   minDepth: number;
@@ -55,6 +58,8 @@ export interface PlateLists {
   rules?: fc.Arbitrary<FabricationRules>;
   /** the load-bearing stiffener choices (loadArb unless given) */
   loadStiffeners?: readonly ((typeof FLAT_BARS)[number] | null)[];
+  /** the restraint stiffener pair (drawn unless given; null: none) */
+  restraintStiffener?: (typeof FLAT_BARS)[number] | null;
 }
 
 /** The lists of the general exactness tests. */
@@ -102,6 +107,8 @@ export function spaceArb(lists: PlateLists): fc.Arbitrary<SpaceDraw> {
     sides: lists.sides ? fc.constant([...lists.sides]) : fc.subarray([1, 2] as (1 | 2)[], { minLength: 1 }),
     endPosts: lists.endPosts ? fc.constant([...lists.endPosts]) : fc.subarray(['rigid', 'non-rigid'] as ('rigid' | 'non-rigid')[], { minLength: 1 }),
     loadStiffeners: lists.loadStiffeners ? fc.constant([...lists.loadStiffeners]) : loadArb,
+    // a pair at each lateral restraint on one draw in three (a flat that passes its torsion, and one that may not)
+    restraintStiffener: lists.restraintStiffener !== undefined ? fc.constant(lists.restraintStiffener) : fc.constantFrom(null, null, null, null, FLAT_BARS[1]!, FLAT_BARS[6]!),
     // web and flange grades drawn apart: a hybrid girder when they differ (S460 flanges on an S275 web among them)
     webGrades: fc.subarray(['S275', 'S355'] as GradeName[], { minLength: 1, maxLength: lists.webGradeCount ?? 2 }),
     flangeGrades: fc.subarray(['S275', 'S355', 'S460'] as GradeName[], { minLength: 1, maxLength: lists.flangeGradeCount ?? 2 }),
@@ -125,6 +132,7 @@ export function spaceOf(d: SpaceDraw): SpaceSpec {
     sides: [...d.sides],
     endPosts: [...d.endPosts],
     loadStiffeners: [...d.loadStiffeners],
+    restraintStiffener: d.restraintStiffener,
     webGrades: [...d.webGrades],
     flangeGrades: [...d.flangeGrades],
     minDepth: d.minDepth,

@@ -8,6 +8,7 @@ import { ltbCheck, pickSag as pickSagAt } from './ltb.js';
 import { deflectionCheck } from '../sls/deflection.js';
 import { BENDING_IDS, type BendingCheckId } from '../registry.js';
 import { weldCheck } from '../en1993-1-8/weld.js';
+import { restraintStiffenerCheck } from './restraint-stiffener.js';
 
 /** The bending family's checks, each computed on first call; shared intermediates computed once. */
 export function bendingThunks(ctx: CheckContext, e: Effects): Record<BendingCheckId, () => CheckResult> {
@@ -41,6 +42,7 @@ export function bendingThunks(ctx: CheckContext, e: Effects): Record<BendingChec
     'patch-bending': () => patchBendingCheck(ctx, e, bendingFor),
     'lateral-torsional-buckling': () => ltbCheck(ctx, e, per(), bendingFor),
     deflection: () => deflectionCheck(ctx, e),
+    'restraint-stiffener': () => restraintStiffenerCheck(ctx, e),
     'web-flange-weld': () => weldCheck(ctx, e),
   };
 }

@@ -15,7 +15,9 @@ export function partOf(s: SliceState, plate: Plate, j: number): WebParts {
   let hit = plate.parts[j];
   if (!hit) {
     const w = s.webs.at(plate.layouts[j]!);
-    hit = w.load ? webPartsWith(w, s.L, s.stiffCountLoaded.get(w.panels) ?? 0, s.Lmax, s.prep.loadXs) : webPartsWith(w, s.L, s.stiffCount.get(w.panels) ?? 0, s.Lmax);
+    hit = w.load
+      ? webPartsWith(w, s.L, s.stiffCountLoaded.get(w.panels) ?? 0, s.Lmax, s.prep.loadXs, s.prep.restraintPair)
+      : webPartsWith(w, s.L, s.stiffCount.get(w.panels) ?? 0, s.Lmax, [], s.prep.restraintPair);
     plate.parts[j] = hit;
   }
   return hit;

@@ -455,7 +455,9 @@ function maxMassPerLength(prep: Prepared): number {
   // load-bearing pairs: one under each force
   const loadFlat = loadOptions(sp).reduce((m, f) => Math.max(m, f ? f.b * f.t : 0), 0);
   const loadPerMm = (prep.loadXs.length * 2 * loadFlat * hw) / prep.L;
+  const rp = prep.restraintPair;
+  const restraintPerMm = rp ? (rp.xs.length * 2 * rp.bs * rp.ts * hw) / prep.L : 0;
   // bearing stiffeners: at most 2 pairs per end, one per inner support, flats no larger than the flange outstand × 100 mm
   const bearing = ((bearingPairs('rigid', prep.supports) * 2 * Math.max(flat, (Math.max(...sp.bf) / 2) * 150) * hw) / prep.L) * 1.5;
-  return KG_PER_MM3 * (hw * tw + 2 * Af + stiffPerMm + loadPerMm + bearing);
+  return KG_PER_MM3 * (hw * tw + 2 * Af + stiffPerMm + loadPerMm + restraintPerMm + bearing);
 }
