@@ -156,6 +156,8 @@ export function limitsOf(prep: Prepared, e: Evaluated): Limit[] {
     if (n.reason) return { ...head, outcome: 'outside-space' as const, reason: n.reason };
     const depth = w.hw + T.t + B.t;
     if (depth < sp.minDepth) return { ...head, outcome: 'outside-space' as const, reason: `overall depth ${depth} mm below minDepth ${sp.minDepth} mm` };
+    // a neighbour the check library refuses as a girder (e.g. a flange not wider than the web) is no candidate
+    if (T.b <= w.tw || B.b <= w.tw) return { ...head, outcome: 'outside-space' as const, reason: 'a flange not wider than the web is no girder (check refuses it: FLANGE_NARROWER_THAN_WEB)' };
     const { verdict, value } = judge(prep, w, T, B);
     if (!verdict.passes) {
       const g = worstFailure(verdict);
