@@ -1,5 +1,5 @@
 import { DomainError, fy } from '@platesmith/catalogue';
-import { assertSection, grossProps, material, panelsOf, resolveBearing } from './section.js';
+import { assertSection, grossProps, loadStiffenerPositions, material, panelsOf, resolveBearing } from './section.js';
 import type { BearingStiffener, CheckContext, CheckOptions, Section } from './types.js';
 
 /** Everything the check families share, computed once per section. */
@@ -12,8 +12,9 @@ export function prepare(s: Section, o: CheckOptions): CheckContext {
   const m = material(s, o);
   const g = grossProps(s, m);
   const L = sup[sup.length - 1]! - sup[0]!;
-  const { panels, stiffenerXs } = panelsOf(sup, s.stiffeners?.a ?? null);
-  const ctx: CheckContext = { s, o, m, g, L, panels, stiffenerXs, bearing: resolveBearing(s, m.fyStiff) };
+  const loadXs = s.loadStiffeners ? loadStiffenerPositions(sup, s.loadStiffeners.xs) : [];
+  const { panels, stiffenerXs } = panelsOf(sup, s.stiffeners?.a ?? null, loadXs);
+  const ctx: CheckContext = { s, o, m, g, L, panels, stiffenerXs, loadXs, bearing: resolveBearing(s, m.fyStiff) };
   return withBearing(ctx, ctx.bearing);
 }
 

@@ -52,6 +52,8 @@ export {
   flangeAndPlasticMoments,
   compressionSide,
   panelsOf,
+  loadStiffenerPositions,
+  restraintStiffenerPositions,
   resolveBearing,
   bearingPairCount,
   girderMass,
@@ -111,7 +113,9 @@ export {
 } from './en1993-1-5/shear-buckling.js';
 export { shearArea, vplRd } from './en1993-1-5/shear-plastic.js';
 export { interaction71, rho628 } from './en1993-1-5/interaction.js';
-export { stiffenerSection, stiffenerIstMin, stiffenerAxialForce, strutResistance, flatTorsion } from './en1993-1-5/stiffeners.js';
+export { stiffenerSection, stiffenerIstMin, stiffenerAxialForce, strutResistance, flatTorsion, stiffenedAt } from './en1993-1-5/stiffeners.js';
+export { restraintStiffenerCheck, restraintStiffenerAt, restraintForce } from './en1993-1-1/restraint-stiffener.js';
+export { loadStiffenerCheck, loadStiffenerAt, loadStiffenerLcr, loadStiffenerWelds, heldAt } from './en1993-1-5/load-stiffener.js';
 export { rigidEndPost, bearingCrushing, bearingColumnSection } from './en1993-1-5/end-post.js';
 
 // EN 1993-1-1 bending family and the clauses beneath it

@@ -13,12 +13,17 @@ import type { CheckResult } from './types.js';
  * What a check reads besides the options (national-annex values, supports, restraints):
  * - `web`: the web plate (hw, tw, its grade)
  * - `flanges`: the flange plates (b, t, their grades)
- * - `panels`: the panel layout: intermediate stiffener positions and the end-post type
+ * - `panels`: the panel layout: intermediate stiffener positions, whether load-bearing stiffeners
+ *   stand under the concentrated forces (they are panel boundaries too, and take the forces off
+ *   patch loading and the web-to-flange welds) and the end-post type
  * - `flats`: the intermediate stiffener flats (bs, ts, sides)
+ * - `loadFlats`: the load-bearing stiffener flats (bs, ts) under the concentrated forces
+ * - `restraintFlats`: the stiffener pairs at lateral restraints (bs, ts, positions); not part of
+ *   the panel layout, and one choice for a whole search space (not a layout choice)
  * - `bearing`: the bearing stiffeners over the supports (sized from the flats when not given)
  * - `loads`: the design effects (stations, forces, reactions, deflection points)
  */
-export type CheckInput = 'web' | 'flanges' | 'panels' | 'flats' | 'bearing' | 'loads';
+export type CheckInput = 'web' | 'flanges' | 'panels' | 'flats' | 'loadFlats' | 'restraintFlats' | 'bearing' | 'loads';
 
 /**
  * Unit of a value as the check library reports it (internal units: N, N·mm, N/mm, mm, MPa);
@@ -259,6 +264,51 @@ export const CHECKS = [
     values: { NEd: 'N', NbRd: 'N', eN: 'mm', chi: '-', lambdaBar: '-', VEd: 'N', lambdaWRemoved: '-', A: 'mm2' },
   },
   {
+    id: 'load-bearing-stiffener',
+    clause: 'EN 1993-1-5 9.4',
+    family: 'shear',
+    reads: ['web', 'flanges', 'panels', 'loadFlats', 'loads'],
+    judge: 105,
+    file: 'en1993-1-5/load-stiffener.ts',
+    fn: 'loadStiffenerCheck',
+    beneath: [
+      { clause: 'EN 1993-1-5 9.4(2); EN 1993-1-1 6.3.1', fn: 'loadStiffenerAt' },
+      { clause: 'EN 1993-1-5 9.4(2)', fn: 'loadStiffenerLcr' },
+      { clause: 'EN 1993-1-8 4.5.3.3', fn: 'loadStiffenerWelds' },
+      { clause: 'EN 1993-1-5 9.1(2), Figure 9.1', fn: 'stiffenerSection', file: 'en1993-1-5/stiffeners.ts' },
+      { clause: 'EN 1993-1-5 9.3.3(3) eq. 9.7', fn: 'stiffenerAxialForce', file: 'en1993-1-5/stiffeners.ts' },
+      { clause: 'EN 1993-1-5 9.2.1(8) eq. 9.3', fn: 'flatTorsion', file: 'en1993-1-5/stiffeners.ts' },
+    ],
+    values: {
+      part: 'text',
+      F: 'N',
+      VEd: 'N',
+      lambdaWRemoved: '-',
+      Ntf: 'N',
+      NEd: 'N',
+      A: 'mm2',
+      I: 'mm4',
+      Lcr: 'mm',
+      LcrBasis: 'text',
+      fy: 'MPa',
+      lambdaBar: '-',
+      chi: '-',
+      NbRd: 'N',
+      Abearing: 'mm2',
+      FbRd: 'N',
+      loadPath: 'text',
+      weldLength: 'mm',
+      FwEd: 'N/mm',
+      fvwd: 'MPa',
+      throat: 'mm',
+      FwRd: 'N/mm',
+      ItOverIp: '-',
+      torsionLimit: '-',
+      IstMin: 'mm4',
+      outstand: 'mm',
+    },
+  },
+  {
     id: 'stiffener-torsion',
     clause: 'EN 1993-1-5 9.2.1(8)',
     family: 'shear',
@@ -348,10 +398,40 @@ export const CHECKS = [
     values: { delta: 'mm', limit: 'mm', name: 'text', ratio: '-', span: 'mm', Iy: 'mm4', Av: 'mm2' },
   },
   {
+    id: 'restraint-stiffener',
+    clause: 'EN 1993-1-1 5.3.3',
+    family: 'bending',
+    reads: ['web', 'flanges', 'restraintFlats', 'loads'],
+    judge: 125,
+    file: 'en1993-1-1/restraint-stiffener.ts',
+    fn: 'restraintStiffenerCheck',
+    beneath: [
+      { clause: 'EN 1993-1-1 5.3.3(4)', fn: 'restraintForce' },
+      { clause: 'EN 1993-1-1 6.2.5; EN 1993-1-5 9.1(2), 9.2.1(8)', fn: 'restraintStiffenerAt' },
+    ],
+    values: {
+      part: 'text',
+      Fr: 'N',
+      alphaM: '-',
+      NEdFlange: 'N',
+      MEdFlange: 'Nmm',
+      flange: 'text',
+      forceBasis: 'text',
+      M: 'Nmm',
+      W: 'mm3',
+      MRd: 'Nmm',
+      I: 'mm4',
+      ItOverIp: '-',
+      torsionLimit: '-',
+      outstand: 'mm',
+    },
+  },
+  {
     id: 'web-flange-weld',
     clause: 'EN 1993-1-8 4.5.3.3',
     family: 'bending',
-    reads: ['web', 'flanges', 'loads'],
+    // panels: a force on a load-bearing stiffener does not pass through these welds
+    reads: ['web', 'flanges', 'panels', 'loads'],
     judge: 120,
     file: 'en1993-1-8/weld.ts',
     fn: 'weldCheck',
@@ -408,7 +488,7 @@ export const BEARING_DEPENDENT: ReadonlySet<string> = new Set(idsWhere((c) => re
  * judging order: with one self-weight for every layout of a set of plates, their verdict is the
  * same for all of those layouts.
  */
-export const PLATE_IDS: readonly CheckId[] = inJudgeOrder(idsWhere((c) => !reads(c, 'panels') && !reads(c, 'flats') && !reads(c, 'bearing')));
+export const PLATE_IDS: readonly CheckId[] = inJudgeOrder(idsWhere((c) => !reads(c, 'panels') && !reads(c, 'flats') && !reads(c, 'loadFlats') && !reads(c, 'bearing')));
 
 /**
  * Checks whose failure condemns the web and its stiffener layout on any flanges: they read neither
@@ -428,11 +508,12 @@ export const LAYOUT_IDS: readonly CheckId[] = (() => {
 })();
 
 /**
- * Layout checks that read the panel layout (stiffener positions, end-post type) but not the flats
- * or the bearing stiffeners: a failure fails every flat and every number of sides with the same
- * panels and end post on the same plates, and a pass holds for all of them.
+ * Layout checks that read the panel layout (stiffener positions, load-bearing stiffeners or not,
+ * end-post type) but no flats (intermediate or load-bearing) nor the bearing stiffeners: a failure
+ * fails every flat and every number of sides with the same panels, load-bearing choice and end
+ * post on the same plates, and a pass holds for all of them.
  */
-export const PANEL_ONLY: ReadonlySet<string> = new Set(idsWhere((c) => reads(c, 'panels') && !reads(c, 'flats') && !reads(c, 'bearing')));
+export const PANEL_ONLY: ReadonlySet<string> = new Set(idsWhere((c) => reads(c, 'panels') && !reads(c, 'flats') && !reads(c, 'loadFlats') && !reads(c, 'bearing')));
 
 /**
  * Whether a failed result condemns its web and stiffener layout on every flange: a check of

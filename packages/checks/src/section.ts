@@ -36,12 +36,16 @@ export function material(s: Section, o: Pick<CheckOptions, 'fySource'>): Materia
   const tStiff = s.stiffeners?.ts ?? s.bearing?.ts ?? s.tw;
   const fyStiff = fy(s.grade.stiffener, tStiff, src, 'section.stiffeners.thickness');
   const fyBearing = s.bearing ? fy(s.grade.stiffener, s.bearing.ts, src, 'section.bearing.thickness') : fyStiff;
+  const fyLoad = s.loadStiffeners ? fy(s.grade.stiffener, s.loadStiffeners.ts, src, 'section.loadStiffeners.thickness') : fyStiff;
+  const fyRestraint = s.restraintStiffeners ? fy(s.grade.stiffener, s.restraintStiffeners.ts, src, 'section.restraintStiffeners.thickness') : fyStiff;
   return {
     fyw,
     fyTop,
     fyBot,
     fyStiff,
     fyBearing,
+    fyLoad,
+    fyRestraint,
     fuw: fu(s.grade.web, s.tw, src),
     fuTop: fu(s.grade.top, s.top.t, src),
     fuBot: fu(s.grade.bot, s.bot.t, src),
@@ -241,28 +245,79 @@ export function flangeAndPlasticMoments(
   return { MfRd, MplRd };
 }
 
+/** How close (mm) a transverse stiffener may come to another boundary before it is omitted (the one there stands for it). */
+const BOUNDARY_MERGE_MM = 1;
+
 /**
- * Web panels between rigid transverse boundaries: supports and intermediate stiffeners.
- * Stiffeners stand at x0 + k·a within each span, measured from the span's left support;
- * a stiffener closer than 1 mm to the next support is omitted.
+ * The positions of load-bearing stiffeners that stand inside the girder: each x of `xs` more than
+ * BOUNDARY_MERGE_MM from every support (a force over a support is the bearing stiffener's),
+ * ascending, duplicates (within the same margin) once.
  */
-export function panelsOf(supports: readonly number[], a: number | null): { panels: Panel[]; stiffenerXs: number[] } {
+export function loadStiffenerPositions(supports: readonly number[], xs: readonly number[]): number[] {
+  const out: number[] = [];
+  for (const x of [...xs].sort((p, q) => p - q)) {
+    if (!(x > supports[0]! && x < supports[supports.length - 1]!)) continue;
+    if (supports.some((sx) => Math.abs(sx - x) < BOUNDARY_MERGE_MM)) continue;
+    if (out.length > 0 && x - out[out.length - 1]! < BOUNDARY_MERGE_MM) continue;
+    out.push(x);
+  }
+  return out;
+}
+
+/**
+ * The positions of stiffeners at lateral restraints that stand inside the girder (as
+ * loadStiffenerPositions keeps load-bearing ones: away from the supports, ascending, once each).
+ * They are not counted as panel boundaries (conservative: a boundary only shortens a panel).
+ */
+export function restraintStiffenerPositions(supports: readonly number[], xs: readonly number[]): number[] {
+  return loadStiffenerPositions(supports, xs);
+}
+
+/**
+ * Web panels between rigid transverse boundaries: supports, intermediate stiffeners and load-bearing
+ * stiffeners. Intermediate stiffeners stand at x0 + k·a within each span, measured from the span's
+ * left support; a stiffener closer than 1 mm to the next support is omitted. Load-bearing
+ * stiffeners (at `loadXs`, as loadStiffenerPositions keeps them) are further boundaries at their
+ * own positions, so the panels between them need not be equal; an intermediate stiffener within
+ * 1 mm of one is omitted (the load-bearing pair stands there). Without loadXs the panels are those
+ * of the equal spacing alone.
+ */
+export function panelsOf(supports: readonly number[], a: number | null, loadXs: readonly number[] = []): { panels: Panel[]; stiffenerXs: number[] } {
   const panels: Panel[] = [];
   const stiffenerXs: number[] = [];
   const first = supports[0]!;
   const last = supports[supports.length - 1]!;
+  const loads = loadXs.length > 0 ? loadStiffenerPositions(supports, loadXs) : loadXs;
   for (let i = 0; i + 1 < supports.length; i++) {
     const s0 = supports[i]!;
     const s1 = supports[i + 1]!;
     const bounds = [s0];
+    const isLoad: boolean[] = [false];
+    const inSpan = loads.filter((x) => x > s0 && x < s1);
+    let li = 0;
+    const addLoadsBelow = (x: number) => {
+      while (li < inSpan.length && inSpan[li]! < x) {
+        bounds.push(inSpan[li]!);
+        isLoad.push(true);
+        li++;
+      }
+    };
     if (a !== null && a > 0) {
-      for (let k = 1; s0 + k * a < s1 - 1; k++) bounds.push(s0 + k * a);
+      for (let k = 1; s0 + k * a < s1 - 1; k++) {
+        const x = s0 + k * a;
+        addLoadsBelow(x);
+        if (inSpan.some((y) => Math.abs(y - x) < BOUNDARY_MERGE_MM)) continue;
+        bounds.push(x);
+        isLoad.push(false);
+      }
     }
+    addLoadsBelow(Infinity);
     bounds.push(s1);
+    isLoad.push(false);
     for (let j = 0; j + 1 < bounds.length; j++) {
       const x0 = bounds[j]!;
       const x1 = bounds[j + 1]!;
-      if (j > 0) stiffenerXs.push(x0);
+      if (j > 0 && !isLoad[j]) stiffenerXs.push(x0);
       panels.push({
         x0,
         x1,
@@ -301,7 +356,12 @@ export interface MassBreakdown {
   web: number;
   topFlange: number;
   bottomFlange: number;
+  /** stiffeners standing in the span: intermediate and load-bearing (the latter also apart, below) */
   stiffeners: number;
+  /** of which load-bearing stiffeners under concentrated forces, kg */
+  loadStiffeners: number;
+  /** of which stiffeners at lateral restraints, kg */
+  restraintStiffeners: number;
   bearing: number;
   total: number;
   /** kg/m of girder length */
@@ -319,25 +379,34 @@ export function bearingPairCount(endPost: 'rigid' | 'non-rigid', supports: numbe
 
 /**
  * Steel mass of the girder of length L (mm): plates, intermediate stiffeners (full web depth,
- * one flat per side), bearing stiffeners at every support (double-sided, `bearing.pairs` pairs
- * over each support; one more pair at a rigid end post: bearingPairCount). Density 7850 kg/m³. Welds and snipes are ignored (common practice, no source).
+ * one flat per side), load-bearing stiffeners (a full-depth pair at each position inside the
+ * girder, loadStiffenerPositions), stiffener pairs at lateral restraints (restraintStiffenerPositions),
+ * bearing stiffeners at every support (double-sided, `bearing.pairs` pairs over each support; one
+ * more pair at a rigid end post: bearingPairCount). Density 7850 kg/m³. Welds and snipes are ignored
+ * (common practice, no source).
  */
 export function girderMass(s: Section, L: number, supports: readonly number[], bearing: BearingStiffener): MassBreakdown {
   const k = STEEL_KG_PER_MM3;
   const web = s.hw * s.tw * L * k;
   const topFlange = s.top.b * s.top.t * L * k;
   const bottomFlange = s.bot.b * s.bot.t * L * k;
-  const { stiffenerXs } = panelsOf(supports, s.stiffeners?.a ?? null);
-  const stiffeners = s.stiffeners ? stiffenerXs.length * s.stiffeners.sides * s.stiffeners.bs * s.stiffeners.ts * s.hw * k : 0;
+  const ls = s.loadStiffeners;
+  const loadXs = ls ? loadStiffenerPositions(supports, ls.xs) : [];
+  const { stiffenerXs } = panelsOf(supports, s.stiffeners?.a ?? null, loadXs);
+  const intermediate = s.stiffeners ? stiffenerXs.length * s.stiffeners.sides * s.stiffeners.bs * s.stiffeners.ts * s.hw * k : 0;
+  const loadStiffeners = ls ? loadXs.length * 2 * ls.bs * ls.ts * s.hw * k : 0;
+  const rs = s.restraintStiffeners;
+  const restraintStiffeners = rs ? restraintStiffenerPositions(supports, rs.xs).length * 2 * rs.bs * rs.ts * s.hw * k : 0;
+  const stiffeners = intermediate + loadStiffeners + restraintStiffeners;
   const bearingMass = bearingPairCount(s.endPost, supports.length, bearing.pairs ?? 1) * 2 * bearing.bs * bearing.ts * s.hw * k;
   const total = web + topFlange + bottomFlange + stiffeners + bearingMass;
-  return { web, topFlange, bottomFlange, stiffeners, bearing: bearingMass, total, perMetre: total / (L / 1000) };
+  return { web, topFlange, bottomFlange, stiffeners, loadStiffeners, restraintStiffeners, bearing: bearingMass, total, perMetre: total / (L / 1000) };
 }
 
 /**
- * The self-weight the girder carries, N/mm (= kN/m): web, flanges and intermediate stiffeners of
- * this section over the girder's length (bearing stiffeners stand over the supports and load no
- * span). The one definition: `check` adds it to a problem's actions and the search judges every
+ * The self-weight the girder carries, N/mm (= kN/m): web, flanges, intermediate, load-bearing and
+ * restraint stiffeners of this section over the girder's length (bearing stiffeners stand over the supports
+ * and load no span). The one definition: `check` adds it to a problem's actions and the search judges every
  * candidate with it, so both give a section the same verdict.
  */
 export function girderSelfWeight(s: Section, supports: readonly number[]): number {
@@ -360,6 +429,14 @@ export function assertSection(s: Section): void {
     pos.push(['section.stiffeners.spacing', s.stiffeners.a]);
     pos.push(['section.stiffeners.width', s.stiffeners.bs]);
     pos.push(['section.stiffeners.thickness', s.stiffeners.ts]);
+  }
+  if (s.loadStiffeners) {
+    pos.push(['section.loadStiffeners.width', s.loadStiffeners.bs]);
+    pos.push(['section.loadStiffeners.thickness', s.loadStiffeners.ts]);
+  }
+  if (s.restraintStiffeners) {
+    pos.push(['section.restraintStiffeners.width', s.restraintStiffeners.bs]);
+    pos.push(['section.restraintStiffeners.thickness', s.restraintStiffeners.ts]);
   }
   for (const [field, v] of pos) {
     if (!Number.isFinite(v) || v <= 0) {

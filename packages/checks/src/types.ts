@@ -33,6 +33,27 @@ export interface BearingStiffener {
   pairs?: number | undefined;
 }
 
+/**
+ * Load-bearing stiffeners under concentrated forces (EN 1993-1-5 9.4): a double-sided pair of flats
+ * bs × ts (mm) at each position xs (mm from the left end), fitted to the loaded flange. The public
+ * JSON gives bs and ts; the positions are those of the concentrated forces (every one of them).
+ */
+export interface LoadStiffeners {
+  bs: number;
+  ts: number;
+  xs: number[];
+}
+
+/**
+ * Stiffeners where a lateral restraint (cross-frame, bracing) attaches (EN 1993-1-1 5.3.3): a
+ * double-sided pair of flats bs × ts (mm) at each position xs (mm from the left end).
+ */
+export interface RestraintStiffeners {
+  bs: number;
+  ts: number;
+  xs: number[];
+}
+
 export type EndPost = 'rigid' | 'non-rigid';
 
 export interface SectionGrades {
@@ -52,6 +73,10 @@ export interface Section {
   endPost: EndPost;
   /** bearing stiffeners at supports; resolved by `resolveBearing` when not given */
   bearing?: BearingStiffener | undefined;
+  /** load-bearing stiffeners under the concentrated forces (absent or null: none, forces enter the web unstiffened) */
+  loadStiffeners?: LoadStiffeners | null | undefined;
+  /** stiffeners at lateral restraints, carrying the restraint force (absent or null: none) */
+  restraintStiffeners?: RestraintStiffeners | null | undefined;
   grade: SectionGrades;
 }
 
@@ -183,6 +208,10 @@ export interface Material {
   fyStiff: number;
   /** bearing-stiffener flats (their own thickness band) */
   fyBearing: number;
+  /** load-bearing stiffener flats under concentrated forces (their own thickness band; fyStiff when there are none) */
+  fyLoad: number;
+  /** stiffener flats at lateral restraints (their own thickness band; fyStiff when there are none) */
+  fyRestraint: number;
   fuw: number;
   fuTop: number;
   fuBot: number;
@@ -246,5 +275,7 @@ export interface CheckContext {
   panels: Panel[];
   /** x (mm) of intermediate stiffeners */
   stiffenerXs: number[];
+  /** x (mm) of load-bearing stiffeners (panel boundaries too), ascending; empty when the section has none */
+  loadXs: number[];
   bearing: BearingStiffener;
 }

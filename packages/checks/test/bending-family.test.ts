@@ -22,7 +22,7 @@ const udl = (w: number): Effects => ({
 describe('bendingChecks contract', () => {
   test('one result per id, in order; not-applicable checks say why', () => {
     const r = bendingChecks(prepare(s, defaultOptions(L, { restraint: { kind: 'continuous' } })), udl(60));
-    expect(r.map((c) => c.id)).toEqual(['classification', 'bending', 'flange-induced-buckling', 'patch-loading', 'patch-bending', 'lateral-torsional-buckling', 'deflection', 'web-flange-weld']);
+    expect(r.map((c) => c.id)).toEqual(['classification', 'bending', 'flange-induced-buckling', 'patch-loading', 'patch-bending', 'lateral-torsional-buckling', 'deflection', 'restraint-stiffener', 'web-flange-weld']);
     for (const c of r.filter((q) => !q.applies)) expect(c.reason).toBeTruthy();
     expect(r.find((c) => c.id === 'lateral-torsional-buckling')!.applies).toBe(false);
     // the library's default restraint is at the supports only (issue 17): the check applies

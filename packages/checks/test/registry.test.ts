@@ -47,11 +47,13 @@ describe('check registry: the table itself', () => {
       'patch-bending',
       'stiffener-stiffness',
       'stiffener-strength',
+      'load-bearing-stiffener',
       'stiffener-torsion',
       'end-post',
       'bearing-stiffener',
       'lateral-torsional-buckling',
       'deflection',
+      'restraint-stiffener',
       'web-flange-weld',
     ]);
   });
@@ -97,12 +99,18 @@ const sectionArb = fc.record({
   tb: fc.constantFrom(10, 15, 20, 25, 30, 40, 50),
   a: fc.option(fc.integer({ min: 800, max: 6000 }), { nil: null }),
   endPost: fc.constantFrom('rigid' as const, 'non-rigid' as const),
+  load: fc.option(fc.constantFrom({ bs: 120, ts: 15 }, { bs: 180, ts: 20 }, { bs: 250, ts: 12 }), { nil: null }),
+  restraint: fc.option(fc.constantFrom({ bs: 100, ts: 10 }, { bs: 160, ts: 12 }), { nil: null }),
 });
 
-type SectionRecord = { hw: number; tw: number; bt: number; tt: number; bb: number; tb: number; a: number | null; endPost: 'rigid' | 'non-rigid' };
+type SectionRecord = { hw: number; tw: number; bt: number; tt: number; bb: number; tb: number; a: number | null; endPost: 'rigid' | 'non-rigid'; load?: { bs: number; ts: number } | null; restraint?: { bs: number; ts: number } | null };
 
-function sectionOf(r: SectionRecord): Section {
+/** The section of a record; its load-bearing stiffeners (if any) under the central force of effectsOf(L, …). */
+function sectionOf(r: SectionRecord, L = 16000): Section {
   return {
+    ...(r.load ? { loadStiffeners: { ...r.load, xs: [L / 2] } } : {}),
+    // a pair at the lateral restraint of the tests' options (L/4, both flanges)
+    ...(r.restraint ? { restraintStiffeners: { ...r.restraint, xs: [L / 4] } } : {}),
     hw: r.hw,
     tw: r.tw,
     top: { b: r.bt, t: r.tt },
@@ -120,7 +128,7 @@ const byId = (checks: readonly CheckResult[]): Map<string, CheckResult> => new M
 
 describe('check registry: each entry against its check', () => {
   test.prop([sectionArb, loadArb], { numRuns: 150 })('every result names its entry\'s clause and reports only values its entry declares, numbers with a unit', (r, ld) => {
-    const v = checkGirder(sectionOf(r), effectsOf(ld.L, ld.w, ld.P, ld.sag), defaultOptions(ld.L));
+    const v = checkGirder(sectionOf(r, ld.L), effectsOf(ld.L, ld.w, ld.P, ld.sag), defaultOptions(ld.L));
     for (const c of v.checks) {
       const spec = checkSpec(c.id);
       expect([spec.clause, ...(spec.alsoClauses ?? [])]).toContain(c.clause);
@@ -135,8 +143,25 @@ describe('check registry: each entry against its check', () => {
   // a change of one input, the rest held
   const changes: Record<Exclude<CheckInput, 'web'>, (s: Section, e: Effects, k: number) => [Section, Effects]> = {
     flanges: (s, e, k) => [{ ...s, top: { b: s.top.b + 40 * k, t: s.top.t + 5 }, bot: { b: s.bot.b + 30 * k, t: s.bot.t + 10 } }, e],
-    panels: (s, e, k) => [{ ...s, stiffeners: s.stiffeners ? { ...s.stiffeners, a: s.stiffeners.a * (0.6 + 0.1 * k) } : null, endPost: s.endPost === 'rigid' ? 'non-rigid' : 'rigid' }, e],
+    // the layout of panels: spacing, end post, and load-bearing stiffeners under the forces or not
+    panels: (s, e, k) => {
+      const L = e.stations[e.stations.length - 1]!.x;
+      return [
+        {
+          ...s,
+          stiffeners: s.stiffeners ? { ...s.stiffeners, a: s.stiffeners.a * (0.6 + 0.1 * k) } : null,
+          endPost: s.endPost === 'rigid' ? 'non-rigid' : 'rigid',
+          loadStiffeners: s.loadStiffeners ? null : { bs: 150, ts: 15, xs: [L / 2] },
+        },
+        e,
+      ];
+    },
     flats: (s, e, k) => [{ ...s, stiffeners: s.stiffeners ? { ...s.stiffeners, bs: 60 + 20 * k, ts: 8 + 2 * k, sides: k % 2 === 0 ? 1 : 2 } : null }, e],
+    restraintFlats: (s, e, k) => {
+      const L = e.stations[e.stations.length - 1]!.x;
+      return [{ ...s, restraintStiffeners: s.restraintStiffeners ? (k === 0 ? null : { bs: 80 + 40 * k, ts: 8 + 3 * k, xs: [L / 4, (3 * L) / 4].slice(0, k) }) : { bs: 120, ts: 12, xs: [L / 4] } }, e];
+    },
+    loadFlats: (s, e, k) => [s.loadStiffeners ? { ...s, loadStiffeners: { ...s.loadStiffeners, bs: 60 + 50 * k, ts: 8 + 4 * k } } : s, e],
     bearing: (s, e, k) => [{ ...s, bearing: { bs: 80 + 20 * k, ts: 10 + 2 * k, e: s.bearing!.e * (0.5 + 0.2 * k) } }, e],
     loads: (s, e, k) => {
       const L = e.stations[e.stations.length - 1]!.x;
@@ -148,8 +173,8 @@ describe('check registry: each entry against its check', () => {
     test.prop([sectionArb, loadArb, fc.integer({ min: 0, max: 3 })], { numRuns: 120 })(
       `a check whose entry does not read ${input} gives the same result when only ${input} change`,
       (r, ld, k) => {
-        const o = defaultOptions(ld.L);
-        const s = sectionOf(r);
+        const o = defaultOptions(ld.L, { restraint: { kind: 'at', at: [0, ld.L / 4, ld.L] }, restraintBottom: { kind: 'at', at: [0, ld.L / 4, ld.L] } });
+        const s = sectionOf(r, ld.L);
         const e = effectsOf(ld.L, ld.w, ld.P, ld.sag);
         const [s2, e2] = change(s, e, k);
         const before = byId(checkGirder(s, e, o).checks);
@@ -166,7 +191,7 @@ describe('check registry: each entry against its check', () => {
     'a failure failsWebOnly calls web-only still fails with other flanges, bearing stiffeners and loads',
     (r, ld, k) => {
       const o = defaultOptions(ld.L);
-      const s = { ...sectionOf(r), stiffeners: r.a === null ? null : { a: r.a, bs: 160, ts: 8, sides: 2 as const } };
+      const s = { ...sectionOf(r, ld.L), stiffeners: r.a === null ? null : { a: r.a, bs: 160, ts: 8, sides: 2 as const } };
       const e = effectsOf(ld.L, ld.w, ld.P, ld.sag);
       const webOnly = checkGirder(s, e, o).checks.filter(failsWebOnly);
       if (webOnly.length === 0) return;

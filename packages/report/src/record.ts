@@ -74,6 +74,22 @@ export const FORMULAS: Readonly<Record<string, { name: string; lines: readonly s
     name: 'Intermediate transverse stiffeners: strength as a strut',
     lines: ['NEd = VEd − fyw·hw·tw / (√3·γM1·λ̄w²) ≥ 0, λ̄w of the panel with the stiffener removed (9.3.3(3))', 'NEd ≤ Nb,Rd = χ·A·fy / γM1 (EN 1993-1-1 6.47), curve c, Lcr = 0.75·hw (9.4(2))'],
   },
+  'load-bearing-stiffener': {
+    name: 'Load-bearing stiffeners under concentrated forces',
+    lines: [
+      'NEd = F + Ntf, Ntf = VEd − fyw·hw·tw / (√3·γM1·λ̄w²) ≥ 0 where the pair bounds shear panels (9.3.3(3) eq. 9.7, λ̄w of the panel without it)',
+      'NEd ≤ Nb,Rd = χ·A·fy / γM1 (EN 1993-1-1 6.47), curve c, A with 15ε·tw of web each side (9.1(2)); Lcr = 0.75·hw with both flanges held laterally there, else hw (9.4(2))',
+      'fitted end: F ≤ 2·(bs − snipe)·ts·fy / γM0; welds to the web: NEd / (4·(hw − 2·snipe)) ≤ fvw,d·a (EN 1993-1-8 4.5.3.3)',
+      'IT / Ip ≥ 5.3·fy / E (9.3); Ist ≥ Ist,min as a rigid panel boundary (9.6); bs within the flange outstand',
+    ],
+  },
+  'restraint-stiffener': {
+    name: 'Stiffeners at lateral restraints',
+    lines: [
+      'Fr = αm·NEd / 100 (EN 1993-1-1 5.3.3(4)), αm = 1, NEd = MEd / hs of the compression flange held there',
+      'Fr·hw ≤ W·fy / γM0 (the pair as a cantilever out of the web plane, W with 15ε·tw of web each side); IT / Ip ≥ 5.3·fy / E (EN 1993-1-5 9.3)',
+    ],
+  },
   'stiffener-torsion': {
     name: 'Torsional buckling of stiffeners',
     lines: ['IT / Ip ≥ 5.3·fy / E (9.3)'],

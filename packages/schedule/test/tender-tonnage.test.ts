@@ -118,6 +118,9 @@ describe('mass per girder equals the check library girderMass (consistency, regr
         endPost: fc.constantFrom('rigid' as const, 'non-rigid' as const),
         spans: fc.array(fc.integer({ min: 40, max: 300 }).map((v) => v * 100), { minLength: 1, maxLength: 3 }),
         bearing: fc.boolean(),
+        // load-bearing pairs under forces at fractions of the girder (one may fall on an intermediate stiffener), restraint pairs likewise
+        loads: fc.option(fc.array(fc.constantFrom(0.25, 1 / 3, 0.5, 0.6), { minLength: 1, maxLength: 3 })),
+        restraints: fc.option(fc.array(fc.constantFrom(0.2, 0.5, 0.75), { minLength: 1, maxLength: 2 })),
       }),
     ],
     { numRuns: 200 },
@@ -133,6 +136,9 @@ describe('mass per girder equals the check library girderMass (consistency, regr
     };
     const supports = [0];
     for (const s of r.spans) supports.push(supports[supports.length - 1]! + s);
+    const Lg = supports[supports.length - 1]!;
+    if (r.loads) section.loadStiffeners = { width: 200, thickness: 20, at: r.loads.map((f) => Math.round(f * Lg)) };
+    if (r.restraints) section.restraintStiffeners = { width: 100, thickness: 10, at: r.restraints.map((f) => Math.round(f * Lg)) };
     const s = toSection(section);
     const ref = girderMass(s, supports[supports.length - 1]!, supports, resolveBearing(s, material(s, { fySource: 'product' }).fyStiff));
     const t = tonnage([tenderGirder('X', 1, section, supports)]);

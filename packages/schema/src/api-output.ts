@@ -46,7 +46,7 @@ export const PublishedVerdictJson = z
 
 export const LimitJson = z
   .object({
-    move: z.enum(['web-thickness', 'flange-thickness', 'top-flange-thickness', 'bottom-flange-thickness', 'flange-width', 'top-flange-width', 'bottom-flange-width', 'fewer-panels', 'lighter-flats', 'one-side']).meta({ description: 'the one-step lighter change to the point' }),
+    move: z.enum(['web-thickness', 'flange-thickness', 'top-flange-thickness', 'bottom-flange-thickness', 'flange-width', 'top-flange-width', 'bottom-flange-width', 'fewer-panels', 'lighter-flats', 'one-side', 'no-load-stiffeners', 'lighter-load-flats']).meta({ description: 'the one-step lighter change to the point' }),
     change: z.string().meta({ description: 'the change in words, mm, e.g. "web thickness 10 → 8"' }),
     outcome: z.enum(['fails', 'not-lighter', 'outside-space', 'passes']).meta({
       description: 'fails: a check fails the lighter section (check, clause, utilisation); not-lighter: it passes but weighs (costs) no less overall, e.g. heavier bearing stiffeners (value); outside-space: the space does not hold it (reason); passes: it passes and is lighter, which the exact search rules out',

@@ -6,8 +6,17 @@ import type { CheckEffectsInput } from './check-input.js';
 import { LIMITS } from './limits.js';
 import { toN, toNmm } from './units.js';
 
-/** Public section JSON (mm) → internal Section. */
-export function toSection(j: SectionJson): Section {
+/** The positions (mm) of the lateral restraints of either flange given as positions (supports and continuous restraints excluded later). */
+export function restraintPositions(o: Pick<CheckOptions, 'restraint' | 'restraintBottom'>): number[] {
+  return [...new Set([...(o.restraint.kind === 'at' ? o.restraint.at : []), ...(o.restraintBottom.kind === 'at' ? o.restraintBottom.at : [])])].sort((a, b) => a - b);
+}
+
+/**
+ * Public section JSON (mm) → internal Section. `forceXs`: the positions of the concentrated
+ * forces (mm), where load-bearing stiffeners stand when the section has them without `at`;
+ * `restraintXs`: the lateral restraints' positions, where restraint stiffeners stand likewise.
+ */
+export function toSection(j: SectionJson, forceXs: readonly number[] = [], restraintXs: readonly number[] = []): Section {
   const g = j.grade ?? 'S355';
   const grade =
     typeof g === 'string'
@@ -23,6 +32,8 @@ export function toSection(j: SectionJson): Section {
     bearing: j.bearing
       ? { bs: j.bearing.width, ts: j.bearing.thickness, e: j.bearing.spacing ?? Math.max(50, Math.floor((0.1 * j.web.depth) / 10) * 10 + 10), ...(j.bearing.pairs !== undefined && j.bearing.pairs !== 1 ? { pairs: j.bearing.pairs } : {}) }
       : undefined,
+    ...(j.loadStiffeners ? { loadStiffeners: { bs: j.loadStiffeners.width, ts: j.loadStiffeners.thickness, xs: [...(j.loadStiffeners.at ?? forceXs)] } } : {}),
+    ...(j.restraintStiffeners ? { restraintStiffeners: { bs: j.restraintStiffeners.width, ts: j.restraintStiffeners.thickness, xs: [...(j.restraintStiffeners.at ?? restraintXs)] } } : {}),
     grade: grade as Section['grade'] & { web: GradeName },
   };
 }
@@ -37,6 +48,8 @@ export function fromSection(s: Section): SectionJson {
     stiffeners: s.stiffeners ? { spacing: s.stiffeners.a, width: s.stiffeners.bs, thickness: s.stiffeners.ts, sides: s.stiffeners.sides } : null,
     endPost: s.endPost,
     ...(s.bearing ? { bearing: { width: s.bearing.bs, thickness: s.bearing.ts, spacing: s.bearing.e, ...((s.bearing.pairs ?? 1) !== 1 ? { pairs: s.bearing.pairs } : {}) } } : {}),
+    ...(s.loadStiffeners ? { loadStiffeners: { width: s.loadStiffeners.bs, thickness: s.loadStiffeners.ts, at: [...s.loadStiffeners.xs] } } : {}),
+    ...(s.restraintStiffeners ? { restraintStiffeners: { width: s.restraintStiffeners.bs, thickness: s.restraintStiffeners.ts, at: [...s.restraintStiffeners.xs] } } : {}),
     grade: same ? s.grade.web : { web: s.grade.web, flanges: s.grade.top, stiffeners: s.grade.stiffener },
   };
 }
@@ -130,6 +143,8 @@ export function sectionAssumptions(j: SectionJson, field = 'section'): Assumptio
   if (j.grade === undefined) out.push({ field: `${field}.grade`, value: 'S355', note: 'every plate S355' });
   if (j.stiffeners === undefined) out.push({ field: `${field}.stiffeners`, value: 'none', note: 'no intermediate transverse stiffeners (bearing stiffeners at the supports only)' });
   if (j.bearing === undefined) out.push({ field: `${field}.bearing`, value: 'sized', note: BEARING_SIZING_NOTE });
+  if (j.restraintStiffeners && j.restraintStiffeners.at === undefined) out.push({ field: `${field}.restraintStiffeners.at`, value: 'at every lateral restraint', note: 'a stiffener pair at each lateral restraint of either flange inside the girder, carrying the restraint force (EN 1993-1-1 5.3.3(4))' });
+  if (j.loadStiffeners && j.loadStiffeners.at === undefined) out.push({ field: `${field}.loadStiffeners.at`, value: 'under every concentrated force', note: 'a load-bearing stiffener pair under each concentrated force (EN 1993-1-5 9.4), fitted to the loaded flange' });
   return out;
 }
 
@@ -140,10 +155,10 @@ export function sectionAssumptions(j: SectionJson, field = 'section'): Assumptio
  */
 export function toCheckEffects(inp: CheckEffectsInput): { section: Section; effects: Effects; options: CheckOptions; assumptions: Assumption[] } {
   const L = inp.span;
-  const section = toSection(inp.section);
   const { options, assumptions } = resolveOptions(inp.options, [0, L]);
   const stations = inp.effects.map((e) => ({ x: e.x, MEd: toNmm(e.M), VEd: toN(e.V) }));
   const forces = inp.effects.filter((e) => e.F !== undefined && e.F > 0).map((e) => ({ x: e.x, F: toN(e.F!), ss: e.ss ?? 0 }));
+  const section = toSection(inp.section, forces.map((f) => f.x), restraintPositions(options));
   const reactions =
     inp.reactions?.map((r) => ({ x: r.x, R: toN(r.R) })) ??
     [0, L].map((x) => ({ x, R: Math.max(0, ...stations.filter((s) => Math.abs(s.x - x) < 1e-6).map((s) => Math.abs(s.VEd))) }));

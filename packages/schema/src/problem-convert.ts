@@ -4,7 +4,7 @@ import { checkGirder, girderSelfWeight, type CheckOptions, type Effects, type Gi
 import { DEFAULT_COST, defaultSpace, spaceSize, stiffenerStations, type CostModel, type SearchTask, type SpaceSpec } from '@platesmith/search';
 import { designEffects } from '@platesmith/actions';
 import { z } from 'zod';
-import { assertStockThickness, BEARING_SIZING_NOTE, resolveOptions, sectionAssumptions, toSection, type Assumption } from './convert.js';
+import { assertStockThickness, BEARING_SIZING_NOTE, resolveOptions, restraintPositions, sectionAssumptions, toSection, type Assumption } from './convert.js';
 import { ProblemFields, problemShape, type ProblemJson } from './problem.js';
 import { SectionJson } from './section.js';
 import { CostJson, SpaceJson, type SpaceJson as SpaceJsonT } from './space.js';
@@ -142,8 +142,10 @@ export function checkProblemsFor(j: Omit<CheckProblemInput, 'section'>): (s: Sec
       analysis = toAnalysis(j, [...(section.stiffeners ? exactStiffenerXs(supports, section.stiffeners.a) : []), ...restraint]);
       analyses.set(a, analysis);
     }
-    const g = analysis.kind === 'envelope' ? 0 : selfWeight(section, supports);
-    return { section, effects: designEffects(analysis, g), options, analysis, g, assumptions: [...general, ...sectionAssumptions(s)] };
+    // load-bearing stiffeners without positions stand under every concentrated force (whose positions do not depend on the self-weight)
+    const withLoads = (section.loadStiffeners && s.loadStiffeners?.at === undefined) || (section.restraintStiffeners && s.restraintStiffeners?.at === undefined) ? toSection(s, analysis.forces.map((f) => f.x), restraintPositions(options)) : section;
+    const g = analysis.kind === 'envelope' ? 0 : selfWeight(withLoads, supports);
+    return { section: withLoads, effects: designEffects(analysis, g), options, analysis, g, assumptions: [...general, ...sectionAssumptions(s)] };
   };
 }
 
@@ -210,6 +212,8 @@ export function toSpace(j: SpaceJsonT): SpaceSpec {
     panels: panelsNorm,
     flats,
     sides: j.stiffenerSides === 'both' ? [1, 2] : [j.stiffenerSides],
+    loadStiffeners: [null, ...(j.loadStiffeners ?? []).map((f) => ({ b: f.width, t: f.thickness }))],
+    restraintStiffener: j.restraintStiffeners ? { b: j.restraintStiffeners.width, t: j.restraintStiffeners.thickness } : null,
     endPosts: j.endPost === 'both' ? ['rigid', 'non-rigid'] : [j.endPost],
     webGrades: grades.web,
     flangeGrades: grades.flanges,
@@ -270,7 +274,13 @@ export function toSearchTask(j: SearchInput, cap = DEFAULT_SPACE_CAP): SearchTas
   const spaceDefaults = Object.keys(SpaceJson.shape).filter((k) => (j.space as Record<string, unknown>)[k] === undefined && !['minDepth', 'maxDepth'].includes(k));
   const all = [...problemAssumptions(j), ...assumptions];
   if (spaceDefaults.length > 0) all.push({ field: 'space', value: spaceDefaults.join(', '), note: 'these fields of the space take the catalogue defaults (see the API schema)' });
+  // load-bearing stiffeners: offered only when asked for (today's girders otherwise), and only where there are concentrated forces
+  const forces = analysis.forces;
+  if (forces.length > 0 && j.space.loadStiffeners === undefined) {
+    all.push({ field: 'space.loadStiffeners', value: 'none offered', note: 'concentrated forces enter the web unstiffened (patch loading, EN 1993-1-5 6, and the web-to-flange welds); list flats in space.loadStiffeners to let the search place load-bearing stiffeners under them (EN 1993-1-5 9.4)' });
+  }
+  const task = forces.length === 0 && (space.loadStiffeners?.length ?? 1) > 1 ? { ...space, loadStiffeners: [null] } : space;
   // the search sizes bearing stiffeners as check does (sizeBearing) and reports both end-post types only when asked
   all.push({ field: 'bearing', value: 'sized', note: BEARING_SIZING_NOTE });
-  return { space, options, analysis, objective: j.objective, cost: toCost(j.cost), assumptions: all };
+  return { space: task, options, analysis, objective: j.objective, cost: toCost(j.cost), assumptions: all };
 }

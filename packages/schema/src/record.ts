@@ -238,6 +238,10 @@ function platesInWords(s: SectionJson, grades: { web: string; flanges: string; s
       ? `intermediate transverse stiffeners: flats ${st.width} mm × ${st.thickness} mm, ${st.sides === 2 ? 'both faces' : 'one face'} of the web, at ${st.spacing} mm, ${grades.stiffeners}`
       : 'no intermediate transverse stiffeners',
   );
+  const ls = s.loadStiffeners;
+  if (ls) out.push(`load-bearing stiffeners under the concentrated forces: flats ${ls.width} mm × ${ls.thickness} mm on both faces, fitted to the loaded flange, at ${ls.at && ls.at.length > 0 ? ls.at.map((x) => `${x} mm`).join(', ') : 'no position (no concentrated force)'}, ${grades.stiffeners}`);
+  const rs = s.restraintStiffeners;
+  if (rs) out.push(`stiffeners at the lateral restraints: flats ${rs.width} mm × ${rs.thickness} mm on both faces, at ${rs.at && rs.at.length > 0 ? rs.at.map((x) => `${x} mm`).join(', ') : 'no position (no lateral restraint inside the girder)'}, ${grades.stiffeners}`);
   out.push(
     `bearing stiffeners at the supports: ${(bearing.pairs ?? 1) > 1 ? `${bearing.pairs} pairs side by side over each support of ` : ''}flats ${bearing.width} mm × ${bearing.thickness} mm on both faces${s.endPost === 'rigid' ? `, and one more pair ${bearing.spacing ?? '?'} mm from each end (rigid end post)` : ' (non-rigid end post)'}`,
   );

@@ -52,6 +52,30 @@ export const Bearing = z
   })
   .meta({ description: 'bearing stiffeners at supports (double-sided); when not given, sized by the tool: one pair of stock flats, else flats or plates of the plate stock in 1 to 3 pairs' });
 
+export const LoadStiffeners = z
+  .strictObject({
+    width: mm('load-bearing stiffener outstand bs', 1000, 10),
+    thickness: mm('load-bearing stiffener thickness ts', 150, 1),
+    at: z
+      .array(z.number().refine(Number.isFinite, { message: 'load-bearing stiffener positions must be finite (mm)' }).refine((v) => v >= 0 && v <= LIMITS.lengthMm, { message: `load-bearing stiffener positions are 0 … ${LIMITS.lengthMm} mm` }))
+      .max(LIMITS.actions)
+      .optional()
+      .meta({ description: 'positions, mm from the left end; default: under every concentrated force (answers give the positions used)' }),
+  })
+  .meta({ description: 'load-bearing stiffeners under concentrated forces (EN 1993-1-5 9.4): a double-sided pair of flats, fitted to the loaded flange, at each position; they carry the force instead of the web (no patch loading there) and are panel boundaries' });
+
+export const RestraintStiffeners = z
+  .strictObject({
+    width: mm('restraint stiffener outstand bs', 1000, 10),
+    thickness: mm('restraint stiffener thickness ts', 150, 1),
+    at: z
+      .array(z.number().refine(Number.isFinite, { message: 'restraint stiffener positions must be finite (mm)' }).refine((v) => v >= 0 && v <= LIMITS.lengthMm, { message: `restraint stiffener positions are 0 … ${LIMITS.lengthMm} mm` }))
+      .max(LIMITS.restraints)
+      .optional()
+      .meta({ description: 'positions, mm from the left end; default: at every lateral restraint of options.restraint and options.bottomRestraint inside the girder' }),
+  })
+  .meta({ description: 'stiffeners where a lateral restraint (cross-frame, bracing) attaches: a double-sided pair of flats at each position, carrying the restraint force (EN 1993-1-1 5.3.3)' });
+
 export const GradeSpec = z.union(
   [Grade, z.strictObject({ web: Grade, flanges: Grade, stiffeners: Grade.optional() }).meta({ description: 'hybrid girder: web and flange grades' })],
   {
@@ -70,6 +94,8 @@ export const SectionJson = z
     stiffeners: Stiffeners.nullable().optional().meta({ description: 'intermediate transverse stiffeners; default none (null)' }),
     endPost: z.enum(['rigid', 'non-rigid']).optional().meta({ description: 'EN 1993-1-5 5.3 / 9.3.1 end-post type; default rigid' }),
     bearing: Bearing.optional(),
+    loadStiffeners: LoadStiffeners.nullable().optional().meta({ description: 'load-bearing stiffeners under concentrated forces; default none (null): forces enter the web unstiffened' }),
+    restraintStiffeners: RestraintStiffeners.nullable().optional().meta({ description: 'stiffeners at lateral restraints; default none (null)' }),
     grade: GradeSpec.optional().meta({ description: 'default S355' }),
   })
   .meta({ id: 'Section', description: 'welded I-girder section; all dimensions mm' });

@@ -36,6 +36,18 @@ export const SpaceJson = z
       .meta({ description: 'numbers of equal panels in the longest span; 0 = no intermediate stiffeners' }),
     flats: z.array(z.strictObject({ width: bounded('flat width', 'mm', Number.NEGATIVE_INFINITY, 1000), thickness: bounded('flat thickness', 'mm', Number.NEGATIVE_INFINITY, 150) })).max(100).optional().meta({ description: 'stiffener flats to try, mm (default: the catalogue stock)' }),
     stiffenerSides: z.union([z.literal(1), z.literal(2), z.literal('both')]).default(2),
+    loadStiffeners: z
+      .array(z.strictObject({ width: bounded('load-bearing stiffener flat width', 'mm', 10, 1000), thickness: bounded('load-bearing stiffener flat thickness', 'mm', 1, 150) }))
+      .max(100)
+      .optional()
+      .meta({
+        description:
+          'load-bearing stiffeners (EN 1993-1-5 9.4) the search may place under the concentrated forces: a double-sided pair of one of these flats (mm) under every force, offered beside none. Default: none offered (the forces enter the web unstiffened, patch loading EN 1993-1-5 6, as before)',
+      }),
+    restraintStiffeners: z
+      .strictObject({ width: bounded('restraint stiffener flat width', 'mm', 10, 1000), thickness: bounded('restraint stiffener flat thickness', 'mm', 1, 150) })
+      .optional()
+      .meta({ description: 'a double-sided pair of these flats (mm) on every candidate at each lateral restraint of either flange inside the girder (options.restraint, options.bottomRestraint), carrying the restraint force (EN 1993-1-1 5.3.3); default none' }),
     endPost: z.enum(['rigid', 'non-rigid', 'both']).default('both'),
     grade: z.union([GradeListJson, z.strictObject({ web: GradeListJson, flanges: GradeListJson })]).default('S355'),
     minDepth: bounded('minDepth', 'mm', 0, LIMITS.depthMm).optional().meta({ description: 'least overall depth h, mm' }),

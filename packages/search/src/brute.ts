@@ -18,8 +18,14 @@ export function bruteForce(p: SearchProblem): { front: Evaluated[]; evaluations:
   const minThroat = p.options.weldThroats[0]!;
   const feasible: Evaluated[] = [];
   let evaluations = 0;
+  // the concentrated forces' positions (load-bearing stiffeners stand under each of them), from the load model itself
+  const forceXs = p.load.effects(0).forces.map((f) => f.x);
+  // the restraint stiffener pairs the space puts on every candidate (at the options' restraint positions)
+  const f = sp.restraintStiffener;
+  const at = [...(p.options.restraint.kind === 'at' ? p.options.restraint.at : []), ...(p.options.restraintBottom.kind === 'at' ? p.options.restraintBottom.at : [])];
+  const restraint = f ? { bs: f.b, ts: f.t, xs: at } : null;
   webs.forEach((w, wi) => {
-    const parts = webParts(w, L, supports, Lmax);
+    const parts = webParts(w, L, supports, Lmax, forceXs, restraint);
     const cache = new Map<number, BearingFlat>();
     for (let ti = 0; ti < flanges.length; ti++) {
       for (let bi = 0; bi < flanges.length; bi++) {

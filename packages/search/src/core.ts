@@ -1,11 +1,11 @@
 import type { FySource } from '@platesmith/catalogue';
-import { bearingCandidates, bearingFlatArea, bearingPairCount, panelsOf, resolveBearing, type BearingCandidates, type BearingFloor, type CheckOptions, type EndPost, type GirderVerdict, type Section } from '@platesmith/checks';
+import { bearingCandidates, bearingFlatArea, bearingPairCount, loadStiffenerPositions, panelsOf, resolveBearing, restraintStiffenerPositions, type BearingCandidates, type BearingFloor, type CheckOptions, type EndPost, type GirderVerdict, type RestraintStiffeners, type Section } from '@platesmith/checks';
 import { fy, G_ACC, STEEL_KG_PER_MM3 as KG_PER_MM3 } from '@platesmith/catalogue';
 import type { LoadModel } from './load.js';
 import type { Limit, SpaceEdge } from './limits.js';
 import { buildSection, costOf, flangeMass, type CostModel, type WebParts } from './objective.js';
 
-import { flangeGroups, WebTable, type FlangeGroup, type FlangeOption, type SpaceSpec, type WebConfig } from './space.js';
+import { flangeGroups, loadOptions, WebTable, type FlangeGroup, type FlangeOption, type SpaceSpec, type WebConfig } from './space.js';
 
 /** Gravity, N per kg: the catalogue's, re-exported for the modules that took it from here. */
 export { G_ACC };
@@ -107,10 +107,24 @@ export interface Prepared {
   Lmax: number;
   supports: number[];
   fySource: FySource;
-  /** kg of intermediate stiffeners per mm of web depth for the heaviest layout in the space */
+  /** kg of intermediate and load-bearing stiffeners per mm of web depth for the heaviest layout in the space */
   stiffKgPerHw: number;
   /** per stiffener grade: the bearing stiffeners the sizing can accept (made when first asked for) */
   bearingByGrade: Map<string, BearingCandidates>;
+  /** the positions of the concentrated forces (mm; they do not depend on the self-weight) where the space offers load-bearing stiffeners, else none */
+  forceXs: number[];
+  /** the load-bearing stiffener positions a layout with them has (loadStiffenerPositions of forceXs) */
+  loadXs: number[];
+  /** the stiffener pairs every candidate has at the lateral restraints (space.restraintStiffener), or null */
+  restraintPair: RestraintStiffeners | null;
+}
+
+/** The stiffener pairs at lateral restraints a space puts on every candidate: its flat at each restraint position of either flange inside the girder. */
+export function restraintPairOf(space: SpaceSpec, options: CheckOptions): RestraintStiffeners | null {
+  const f = space.restraintStiffener;
+  if (!f) return null;
+  const at = [...(options.restraint.kind === 'at' ? options.restraint.at : []), ...(options.restraintBottom.kind === 'at' ? options.restraintBottom.at : [])];
+  return { bs: f.b, ts: f.t, xs: restraintStiffenerPositions(options.supports, at) };
 }
 
 export function prepareSearch(p: SearchProblem): Prepared {
@@ -129,14 +143,26 @@ export function prepareSearch(p: SearchProblem): Prepared {
   const L = supports[supports.length - 1]! - supports[0]!;
   let Lmax = 0;
   for (let i = 1; i < supports.length; i++) Lmax = Math.max(Lmax, supports[i]! - supports[i - 1]!);
-  // the heaviest stiffener layout of the space, per mm of web depth (see selfWeightRange)
+  // the concentrated forces' positions, where a layout may stand load-bearing stiffeners on them
+  const offersLoad = loadOptions(p.space).some((f) => f !== null);
+  const forceXs = offersLoad ? p.load.effects(0).forces.map((f) => f.x) : [];
+  const loadXs = loadStiffenerPositions(supports, forceXs);
+  // the heaviest stiffener layout of the space, per mm of web depth (see selfWeightRange): the
+  // most intermediate flats (without load-bearing pairs, which only take the place of some) and
+  // the heaviest load-bearing pairs
   let stiffKgPerHw = 0;
   for (const n of p.space.panels) {
     if (n <= 1) continue;
     const count = panelsOf(supports, Lmax / n).stiffenerXs.length;
     for (const f of p.space.flats) for (const sides of p.space.sides) stiffKgPerHw = Math.max(stiffKgPerHw, count * sides * f.b * f.t * KG_PER_MM3);
   }
-  return { p, webs, groups, flanges, groupStart, plateStarts, L, Lmax, supports, fySource, stiffKgPerHw, bearingByGrade: new Map() };
+  let loadKgPerHw = 0;
+  for (const f of loadOptions(p.space)) if (f) loadKgPerHw = Math.max(loadKgPerHw, loadXs.length * 2 * f.b * f.t * KG_PER_MM3);
+  stiffKgPerHw += loadKgPerHw;
+  // the restraint pairs, on every candidate
+  const restraintPair = restraintPairOf(p.space, p.options);
+  if (restraintPair) stiffKgPerHw += restraintPair.xs.length * 2 * restraintPair.bs * restraintPair.ts * KG_PER_MM3;
+  return { p, webs, groups, flanges, groupStart, plateStarts, L, Lmax, supports, fySource, stiffKgPerHw, bearingByGrade: new Map(), forceXs, loadXs, restraintPair };
 }
 
 /** The relative margin by which selfWeightRange widens its ends (round-off between two ways of summing the same masses). */

@@ -18,9 +18,9 @@ import { checkGirder, girderSelfWeight, type CheckId, type GirderVerdict, type S
 import { settle, type Evaluated, type Prepared } from './core.js';
 import type { SearchResult } from './search.js';
 import { buildSection, flangeMass, webParts } from './objective.js';
-import type { FlangeOption, WebConfig } from './space.js';
+import { loadOptions, type FlangeOption, type WebConfig } from './space.js';
 
-export type LimitMove = 'web-thickness' | 'flange-thickness' | 'top-flange-thickness' | 'bottom-flange-thickness' | 'flange-width' | 'top-flange-width' | 'bottom-flange-width' | 'fewer-panels' | 'lighter-flats' | 'one-side';
+export type LimitMove = 'web-thickness' | 'flange-thickness' | 'top-flange-thickness' | 'bottom-flange-thickness' | 'flange-width' | 'top-flange-width' | 'bottom-flange-width' | 'fewer-panels' | 'lighter-flats' | 'one-side' | 'no-load-stiffeners' | 'lighter-load-flats';
 
 /** What rules out one lighter neighbour of a point. */
 export interface Limit {
@@ -134,6 +134,12 @@ function neighboursOf(prep: Prepared, e: Evaluated): Neighbour[] {
     if (lighter) out.push({ move: 'lighter-flats', change: `stiffener flats ${w.flat.b}×${w.flat.t} → ${lighter.b}×${lighter.t}`, w: { ...w, flat: lighter } });
     if (w.sides === 2 && sp.sides.includes(1)) out.push({ move: 'one-side', change: 'stiffeners on both sides → one side', w: { ...w, sides: 1 } });
   }
+  if (w.load && prep.loadXs.length > 0) {
+    if (loadOptions(sp).includes(null)) out.push({ move: 'no-load-stiffeners', change: `load-bearing stiffeners ${w.load.b}×${w.load.t} → none (patch loading)`, w: { ...w, load: null } });
+    let lighter: WebConfig['load'] = null;
+    for (const f of loadOptions(sp)) if (f && f.b * f.t < w.load.b * w.load.t && !(sp.rules.stiffenerAtLeastWeb && f.t < w.tw) && (!lighter || f.b * f.t > lighter.b * lighter.t)) lighter = f;
+    if (lighter) out.push({ move: 'lighter-load-flats', change: `load-bearing stiffener flats ${w.load.b}×${w.load.t} → ${lighter.b}×${lighter.t}`, w: { ...w, load: lighter } });
+  }
   return out;
 }
 
@@ -175,7 +181,7 @@ function worstFailure(v: GirderVerdict): GirderVerdict['governing'] {
 
 /** `check`'s verdict on a candidate (its own self-weight; bearing stiffeners sized by the check) and its objective value. */
 function judge(prep: Prepared, w: WebConfig, T: FlangeOption, B: FlangeOption): { section: Section; verdict: GirderVerdict; value: number; mass: number } {
-  const parts = webParts(w, prep.L, prep.supports, prep.Lmax);
+  const parts = webParts(w, prep.L, prep.supports, prep.Lmax, prep.forceXs, prep.restraintPair);
   const section = buildSection(w, parts, T, B);
   const verdict = checkGirder(section, prep.p.load.effects(girderSelfWeight(section, prep.supports)), prep.p.options);
   const plates = parts.webMass + parts.stiffMass + (flangeMass(T, prep.L) + flangeMass(B, prep.L));

@@ -1,9 +1,9 @@
 import { STEEL_KG_PER_MM3 as KG_PER_MM3, type GradeName } from '@platesmith/catalogue';
-import { panelsOf, type Section } from '@platesmith/checks';
+import { loadStiffenerPositions, panelsOf, type RestraintStiffeners, type Section } from '@platesmith/checks';
 import type { FlangeOption, WebConfig } from './space.js';
 
 /**
- * Objectives. Mass: steel of plates, intermediate stiffeners and bearing stiffeners, the same
+ * Objectives. Mass: steel of plates, intermediate, load-bearing and bearing stiffeners, the same
  * accounting as the check library's girderMass (a test keeps them equal).
  *
  * Cost: the Farkas–Jármai fabrication cost function (Jármai K., Farkas J., "Cost calculation and
@@ -134,24 +134,52 @@ export const DEFAULT_COST: CostModel = {
 /** Per-web quantities that do not depend on the flanges, computed once per web configuration. */
 export interface WebParts {
   webMass: number;
+  /** kg of the stiffeners standing in the span: intermediate and load-bearing (girderMass's `stiffeners`) */
   stiffMass: number;
+  /** intermediate stiffener flats */
   stiffCount: number;
   /** stiffener spacing a, mm, or null */
   a: number | null;
+  /** load-bearing stiffeners: their kg (within stiffMass), flats (two per position) and positions (loadStiffenerPositions), none without */
+  loadMass: number;
+  loadCount: number;
+  loadXs: readonly number[];
+  /** stiffener pairs at lateral restraints (the space's one choice, positions as restraintStiffenerPositions keeps them), their kg (within stiffMass) and flats; none without */
+  restraint: RestraintStiffeners | null;
+  restraintMass: number;
+  restraintCount: number;
 }
 
-export function webParts(w: WebConfig, L: number, supports: readonly number[], Lmax: number): WebParts {
-  const count = w.panels === 0 || !w.flat ? 0 : panelsOf(supports, Lmax / w.panels).stiffenerXs.length;
-  return webPartsWith(w, L, count, Lmax);
+/**
+ * The web configuration's parts; `forceXs`: the positions of the concentrated forces (mm), where
+ * a configuration with load-bearing stiffeners has a pair each (as loadStiffenerPositions keeps them).
+ */
+export function webParts(w: WebConfig, L: number, supports: readonly number[], Lmax: number, forceXs: readonly number[] = [], restraint: RestraintStiffeners | null = null): WebParts {
+  const loadXs = w.load ? loadStiffenerPositions(supports, forceXs) : [];
+  const count = w.panels === 0 || !w.flat ? 0 : panelsOf(supports, Lmax / w.panels, loadXs).stiffenerXs.length;
+  return webPartsWith(w, L, count, Lmax, loadXs, restraint && { ...restraint, xs: loadStiffenerPositions(supports, restraint.xs) });
 }
 
-/** webParts with the number of intermediate stiffener positions already known (the same on every web of a space). */
-export function webPartsWith(w: WebConfig, L: number, count: number, Lmax: number): WebParts {
+/**
+ * webParts with the number of intermediate stiffener positions already known (the same on every
+ * web of a space with the same load-bearing choice: with one, an intermediate stiffener that falls
+ * on a load-bearing pair is not counted) and the load-bearing positions.
+ */
+export function webPartsWith(w: WebConfig, L: number, count: number, Lmax: number, loadXs: readonly number[] = [], restraint: RestraintStiffeners | null = null): WebParts {
   const webMass = w.hw * w.tw * L * KG_PER_MM3;
-  if (w.panels === 0 || !w.flat) return { webMass, stiffMass: 0, stiffCount: 0, a: null };
+  const xs = w.load ? loadXs : [];
+  const loadMass = w.load ? xs.length * 2 * w.load.b * w.load.t * w.hw * KG_PER_MM3 : 0;
+  const loadCount = 2 * xs.length;
+  // restraint pairs (positions kept as restraintStiffenerPositions keeps them)
+  const restraintMass = restraint ? restraint.xs.length * 2 * restraint.bs * restraint.ts * w.hw * KG_PER_MM3 : 0;
+  const restraintCount = restraint ? 2 * restraint.xs.length : 0;
+  const rest = { loadMass, loadCount, loadXs: xs, restraint, restraintMass, restraintCount };
+  // summed as girderMass sums them: the intermediate flats, the load-bearing pairs, the restraint pairs
+  if (w.panels === 0 || !w.flat) return { webMass, stiffMass: 0 + loadMass + restraintMass, stiffCount: 0, a: null, ...rest };
   const a = Lmax / w.panels;
   const n = count;
-  return { webMass, stiffMass: n * w.sides * w.flat.b * w.flat.t * w.hw * KG_PER_MM3, stiffCount: n * w.sides, a };
+  const intermediate = n * w.sides * w.flat.b * w.flat.t * w.hw * KG_PER_MM3;
+  return { webMass, stiffMass: intermediate + loadMass + restraintMass, stiffCount: n * w.sides, a, ...rest };
 }
 
 export function buildSection(w: WebConfig, parts: WebParts, top: FlangeOption, bot: FlangeOption): Section {
@@ -162,6 +190,8 @@ export function buildSection(w: WebConfig, parts: WebParts, top: FlangeOption, b
     bot: { b: bot.b, t: bot.t },
     stiffeners: w.flat && parts.a !== null ? { a: parts.a, bs: w.flat.b, ts: w.flat.t, sides: w.sides } : null,
     endPost: w.endPost,
+    ...(w.load ? { loadStiffeners: { bs: w.load.b, ts: w.load.t, xs: [...parts.loadXs] } } : {}),
+    ...(parts.restraint ? { restraintStiffeners: { ...parts.restraint, xs: [...parts.restraint.xs] } } : {}),
     grade: { web: w.grade, top: top.grade, bot: bot.grade, stiffener: w.grade },
   };
 }
@@ -187,21 +217,25 @@ export function costOf(
 ): { cost: number; material: number; fabrication: number; minutes: number } {
   const rate = (g: GradeName, t: number) => cm.km * cm.gradeFactor[g] * (t > cm.thickAbove ? cm.thickFactor : 1);
   const tStiff = w.flat?.t ?? w.tw;
+  // the load-bearing flats at their own thickness's rate (none: no term)
+  const loadMaterial = w.load ? parts.loadMass * rate(w.grade, w.load.t) : 0;
   const material =
     parts.webMass * rate(w.grade, w.tw) +
     flangeMass(top, L) * rate(top.grade, top.t) +
     flangeMass(bot, L) * rate(bot.grade, bot.t) +
-    parts.stiffMass * rate(w.grade, tStiff) +
+    (parts.stiffMass - parts.loadMass - parts.restraintMass) * rate(w.grade, tStiff) +
+    loadMaterial +
+    (parts.restraint ? parts.restraintMass * rate(w.grade, parts.restraint.ts) : 0) +
     // bearing stiffeners at the rate of their own thickness (cut from thick plate they may cost more per kg)
     bearingKg * rate(w.grade, bearingTs);
   const mass = parts.webMass + parts.stiffMass + bearingKg + flangeMass(top, L) + flangeMass(bot, L);
-  const kappa = MIN_PARTS + parts.stiffCount + bearingFlats;
+  const kappa = MIN_PARTS + parts.stiffCount + parts.loadCount + parts.restraintCount + bearingFlats;
   const T1 = assemblyMinutes(cm, kappa, mass);
-  const flats = parts.stiffCount + bearingFlats;
+  const flats = parts.stiffCount + parts.loadCount + parts.restraintCount + bearingFlats;
   const T2 = flangeWeldMinutes(cm, aw, L) + C2[cm.stiffenerWeld] * cm.stiffenerThroat ** 2 * flats * 2 * w.hw;
   const T3 = T3_OVER_T2 * T2;
   const stiffB = w.flat?.b ?? 0;
-  const As = platesSurface(w, top, bot, L) + parts.stiffCount * 2 * stiffB * w.hw + bearingFlats * 2 * bearingBs * w.hw;
+  const As = platesSurface(w, top, bot, L) + parts.stiffCount * 2 * stiffB * w.hw + parts.loadCount * 2 * (w.load?.b ?? 0) * w.hw + parts.restraintCount * 2 * (parts.restraint?.bs ?? 0) * w.hw + bearingFlats * 2 * bearingBs * w.hw;
   const Tsp = surfacePrepMinutes(cm, As);
   const Tp = paintingMinutes(cm, As);
   const minutes = T1 + T2 + T3 + Tsp + Tp;

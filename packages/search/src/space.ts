@@ -17,6 +17,18 @@ export interface SpaceSpec {
   panels: number[];
   flats: FlatBar[];
   sides: (1 | 2)[];
+  /**
+   * load-bearing stiffeners under the concentrated forces (EN 1993-1-5 9.4): the choices, each a
+   * double-sided pair of this flat under every force, or null (none: the forces enter the web
+   * unstiffened). Absent: [null], today's girders.
+   */
+  loadStiffeners?: (FlatBar | null)[] | undefined;
+  /**
+   * a pair of these flats on every candidate at each lateral restraint inside the girder (the
+   * options' restraint positions of either flange), carrying the restraint force (EN 1993-1-1
+   * 5.3.3): one choice for the space, not a layout choice. Absent or null: none.
+   */
+  restraintStiffener?: FlatBar | null | undefined;
   endPosts: EndPost[];
   webGrades: GradeName[];
   flangeGrades: GradeName[];
@@ -48,6 +60,8 @@ export interface WebConfig {
   flat: FlatBar | null;
   sides: 1 | 2;
   endPost: EndPost;
+  /** load-bearing stiffener flats under every concentrated force (a pair each), or null (absent: none) */
+  load?: FlatBar | null | undefined;
 }
 
 /** One flange option: grade, thickness, width, and the fy that goes with the thickness. */
@@ -71,6 +85,7 @@ export function defaultSpace(): SpaceSpec {
     panels: [0, ...range(2, 16, 1)],
     flats: [...FLAT_BARS],
     sides: [2],
+    loadStiffeners: [null],
     endPosts: ['rigid', 'non-rigid'],
     webGrades: ['S355'],
     flangeGrades: ['S355'],
@@ -87,16 +102,17 @@ export function webConfigs(sp: SpaceSpec, fySource: FySource): WebConfig[] {
       for (const tw of sp.tw) {
         const fyw = fy(grade, tw, fySource, 'space.webThickness');
         for (const endPost of sp.endPosts)
-          for (const panels of sp.panels) {
-            if (panels === 0) {
-              out.push({ hw, tw, grade, fyw, panels: 0, flat: null, sides: 2, endPost });
-              continue;
+          for (const load of loadChoices(sp, tw))
+            for (const panels of sp.panels) {
+              if (panels === 0) {
+                out.push({ hw, tw, grade, fyw, panels: 0, flat: null, sides: 2, endPost, load });
+                continue;
+              }
+              for (const flat of sp.flats) {
+                if (sp.rules.stiffenerAtLeastWeb && flat.t < tw) continue;
+                for (const sides of sp.sides) out.push({ hw, tw, grade, fyw, panels, flat, sides, endPost, load });
+              }
             }
-            for (const flat of sp.flats) {
-              if (sp.rules.stiffenerAtLeastWeb && flat.t < tw) continue;
-              for (const sides of sp.sides) out.push({ hw, tw, grade, fyw, panels, flat, sides, endPost });
-            }
-          }
       }
   return out;
 }
@@ -105,7 +121,7 @@ export function webConfigs(sp: SpaceSpec, fySource: FySource): WebConfig[] {
  * The web configurations of a space as webConfigs lists them — the same objects' values at the
  * same indices — without building them all: a space's default stock gives ~10^6 of them (tens of
  * MB per worker), of which a search reads a few thousand. Each web plate (grade, hw, tw) lists
- * the same layout pattern (end post × panels × flats × sides, the flats filtered by the web
+ * the same layout pattern (end post × load-bearing stiffeners × panels × flats × sides, the flats filtered by the web
  * thickness only under stiffenerAtLeastWeb); `at(i)` finds the plate by bisection and makes the
  * configuration.
  */
@@ -122,16 +138,17 @@ export class WebTable {
       if (!hit) {
         hit = [];
         for (const endPost of sp.endPosts)
-          for (const panels of sp.panels) {
-            if (panels === 0) {
-              hit.push({ panels: 0, flat: null, sides: 2, endPost });
-              continue;
+          for (const load of loadChoices(sp, tw))
+            for (const panels of sp.panels) {
+              if (panels === 0) {
+                hit.push({ panels: 0, flat: null, sides: 2, endPost, load });
+                continue;
+              }
+              for (const flat of sp.flats) {
+                if (sp.rules.stiffenerAtLeastWeb && flat.t < tw) continue;
+                for (const sides of sp.sides) hit.push({ panels, flat, sides, endPost, load });
+              }
             }
-            for (const flat of sp.flats) {
-              if (sp.rules.stiffenerAtLeastWeb && flat.t < tw) continue;
-              for (const sides of sp.sides) hit.push({ panels, flat, sides, endPost });
-            }
-          }
         patterns.set(key, hit);
       }
       return hit;
@@ -158,7 +175,7 @@ export class WebTable {
     const p = this.plates[lo];
     const l = p?.pattern[i - s[lo]!];
     if (!p || !l || i < 0) throw new RangeError(`web configuration ${i} is outside the space (0 … ${this.length - 1})`);
-    return { hw: p.hw, tw: p.tw, grade: p.grade, fyw: p.fyw, panels: l.panels, flat: l.flat, sides: l.sides, endPost: l.endPost };
+    return { hw: p.hw, tw: p.tw, grade: p.grade, fyw: p.fyw, panels: l.panels, flat: l.flat, sides: l.sides, endPost: l.endPost, load: l.load };
   }
 }
 
@@ -179,6 +196,17 @@ interface Layout {
   flat: FlatBar | null;
   sides: 1 | 2;
   endPost: EndPost;
+  load: FlatBar | null;
+}
+
+/** The space's load-bearing stiffener choices ([null] when it does not list them). */
+export function loadOptions(sp: SpaceSpec): (FlatBar | null)[] {
+  return sp.loadStiffeners ?? [null];
+}
+
+/** The load-bearing stiffener choices on a web of thickness tw (flats filtered as the intermediate ones under stiffenerAtLeastWeb; none is always a choice where listed). */
+export function loadChoices(sp: SpaceSpec, tw: number): (FlatBar | null)[] {
+  return loadOptions(sp).filter((f) => f === null || !(sp.rules.stiffenerAtLeastWeb && f.t < tw));
 }
 
 /**
@@ -197,7 +225,7 @@ export function webPlateCounts(sp: SpaceSpec, fySource: FySource): number[] {
             if (panels === 0) per += 1;
             else per += sp.flats.filter((f) => !(sp.rules.stiffenerAtLeastWeb && f.t < tw)).length * sp.sides.length;
           }
-        out.push(per);
+        out.push(per * loadChoices(sp, tw).length);
       }
   return out;
 }
@@ -227,7 +255,7 @@ export function flangeGroups(sp: SpaceSpec, fySource: FySource): FlangeGroup[] {
 /** Number of candidates in the space before rules and bounds (the figure a user is shown). */
 export function spaceSize(sp: SpaceSpec): number {
   const stiffLayouts = sp.panels.reduce((n, p) => n + (p === 0 ? 1 : sp.flats.length * sp.sides.length), 0);
-  const webs = sp.webGrades.length * sp.hw.length * sp.tw.length * sp.endPosts.length * stiffLayouts;
+  const webs = sp.webGrades.length * sp.hw.length * sp.tw.length * sp.endPosts.length * loadOptions(sp).length * stiffLayouts;
   const flanges = sp.flangeGrades.length * sp.tf.length * sp.bf.length;
   return webs * (sp.symmetric ? flanges : flanges * flanges);
 }
@@ -240,6 +268,7 @@ export function assertSpace(sp: SpaceSpec): void {
     ['space.flangeThickness', sp.tf],
     ['space.panels', sp.panels],
     ['space.endPost', sp.endPosts],
+    ['space.loadStiffeners', loadOptions(sp)],
     ['space.grade', sp.webGrades],
     ['space.flangeGrade', sp.flangeGrades],
   ];

@@ -54,6 +54,14 @@ function neighbour(sp: SpaceSpec, s: Section, move: Limit['move'], Lmax: number)
     }
     case 'one-side':
       return s.stiffeners && s.stiffeners.sides === 2 ? { ...bare, stiffeners: { ...s.stiffeners, sides: 1 } } : null;
+    case 'no-load-stiffeners':
+      return s.loadStiffeners ? { ...bare, loadStiffeners: null } : null;
+    case 'lighter-load-flats': {
+      const ls = s.loadStiffeners;
+      if (!ls) return null;
+      const f = (sp.loadStiffeners ?? []).filter((x): x is NonNullable<typeof x> => x !== null && x.b * x.t < ls.bs * ls.ts).sort((x, y) => y.b * y.t - x.b * x.t)[0];
+      return f ? { ...bare, loadStiffeners: { ...ls, bs: f.b, ts: f.t } } : null;
+    }
   }
 }
 

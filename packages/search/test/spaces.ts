@@ -6,7 +6,9 @@ import type { FabricationRules, SpaceSpec } from '../src/index.js';
  * The one builder of the search's property tests' spaces: small plate lists, and around them every
  * setting of SpaceSpec that changes which candidates exist or which bounds the search may use —
  * the fabrication rules (tf ≤ k·tw, bf/tf limits, flats at least as thick as the web), hybrid
- * girders (web and flange grades drawn apart, S460 flanges on an S275 web among them), and the
+ * girders (web and flange grades drawn apart, S460 flanges on an S275 web among them),
+ * load-bearing stiffeners under the concentrated forces (none, offered, or the only choice),
+ * stiffener pairs at the lateral restraints, and the
  * least and greatest overall depth. The rule values are drawn where they bite on these lists
  * (common practice, no source, for the kind of values engineers set).
  */
@@ -20,6 +22,10 @@ export interface SpaceDraw {
   flats: (typeof FLAT_BARS)[number][];
   sides: (1 | 2)[];
   endPosts: ('rigid' | 'non-rigid')[];
+  /** load-bearing stiffener choices under the concentrated forces (null: none) */
+  loadStiffeners: ((typeof FLAT_BARS)[number] | null)[];
+  /** stiffener pairs at the lateral restraints on every candidate (null: none) */
+  restraintStiffener: (typeof FLAT_BARS)[number] | null;
   webGrades: GradeName[];
   flangeGrades: GradeName[];
   minDepth: number;
@@ -50,6 +56,10 @@ export interface PlateLists {
   flangeGradeCount?: number;
   /** the rules' arbitrary (rulesArb unless given) */
   rules?: fc.Arbitrary<FabricationRules>;
+  /** the load-bearing stiffener choices (loadArb unless given) */
+  loadStiffeners?: readonly ((typeof FLAT_BARS)[number] | null)[];
+  /** the restraint stiffener pair (drawn unless given; null: none) */
+  restraintStiffener?: (typeof FLAT_BARS)[number] | null;
 }
 
 /** The lists of the general exactness tests. */
@@ -71,7 +81,18 @@ export const rulesArb: fc.Arbitrary<FabricationRules> = fc.record({
   stiffenerAtLeastWeb: fc.constantFrom(undefined, false, true),
 });
 
-/** A space over `lists`, with rules, grades and depth limits drawn as well. */
+/**
+ * Load-bearing stiffeners under the concentrated forces: mostly none (today's girders), else
+ * offered beside none, or the only choice; the flats from narrow (fail torsion or strut under a
+ * large force) to wide (may not fit a narrow flange's outstand).
+ */
+export const loadArb: fc.Arbitrary<((typeof FLAT_BARS)[number] | null)[]> = fc.oneof(
+  { weight: 3, arbitrary: fc.constant([null] as ((typeof FLAT_BARS)[number] | null)[]) },
+  { weight: 2, arbitrary: fc.subarray([...FLAT_BARS].filter((_, i) => i % 2 === 1), { minLength: 1, maxLength: 2 }).map((fs) => [null, ...fs]) },
+  { weight: 1, arbitrary: fc.constantFrom(...FLAT_BARS).map((f): ((typeof FLAT_BARS)[number] | null)[] => [f]) },
+);
+
+/** A space over `lists`, with rules, grades, load-bearing stiffener choices and depth limits drawn as well. */
 export function spaceArb(lists: PlateLists): fc.Arbitrary<SpaceDraw> {
   const max = lists.max ?? 3;
   const [bfMin, bfMax] = lists.bfCount ?? [1, max];
@@ -85,6 +106,9 @@ export function spaceArb(lists: PlateLists): fc.Arbitrary<SpaceDraw> {
     flats: lists.flats ? fc.constant([...lists.flats]) : fc.subarray([...FLAT_BARS].slice(0, 6), { minLength: 1, maxLength: lists.flatCount ?? 2 }),
     sides: lists.sides ? fc.constant([...lists.sides]) : fc.subarray([1, 2] as (1 | 2)[], { minLength: 1 }),
     endPosts: lists.endPosts ? fc.constant([...lists.endPosts]) : fc.subarray(['rigid', 'non-rigid'] as ('rigid' | 'non-rigid')[], { minLength: 1 }),
+    loadStiffeners: lists.loadStiffeners ? fc.constant([...lists.loadStiffeners]) : loadArb,
+    // a pair at each lateral restraint on one draw in three (a flat that passes its torsion, and one that may not)
+    restraintStiffener: lists.restraintStiffener !== undefined ? fc.constant(lists.restraintStiffener) : fc.constantFrom(null, null, null, null, FLAT_BARS[1]!, FLAT_BARS[6]!),
     // web and flange grades drawn apart: a hybrid girder when they differ (S460 flanges on an S275 web among them)
     webGrades: fc.subarray(['S275', 'S355'] as GradeName[], { minLength: 1, maxLength: lists.webGradeCount ?? 2 }),
     flangeGrades: fc.subarray(['S275', 'S355', 'S460'] as GradeName[], { minLength: 1, maxLength: lists.flangeGradeCount ?? 2 }),
@@ -107,6 +131,8 @@ export function spaceOf(d: SpaceDraw): SpaceSpec {
     flats: [...d.flats],
     sides: [...d.sides],
     endPosts: [...d.endPosts],
+    loadStiffeners: [...d.loadStiffeners],
+    restraintStiffener: d.restraintStiffener,
     webGrades: [...d.webGrades],
     flangeGrades: [...d.flangeGrades],
     minDepth: d.minDepth,

@@ -13,6 +13,8 @@ const KEY_VALUES: Record<string, string[]> = {
   'patch-bending': [],
   'stiffener-stiffness': ['Ist', 'IstMin'],
   'stiffener-strength': ['NEd', 'NbRd'],
+  'load-bearing-stiffener': ['part', 'F', 'NEd', 'NbRd', 'Lcr'],
+  'restraint-stiffener': ['part', 'Fr', 'M', 'MRd'],
   'stiffener-torsion': ['ItOverIp', 'limit'],
   'end-post': ['Ast', 'AstMin'],
   'bearing-stiffener': ['R', 'NbRd'],

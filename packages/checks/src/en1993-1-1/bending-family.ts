@@ -3,11 +3,12 @@ import type { CheckContext, CheckResult, CheckValue, Effects } from '../types.js
 import { governs, notApplicable, verdict } from '../result.js';
 import { bendingCheck, bendingForSign, envelopeAt, pickM, sideName, signsOf, type SignBending } from './bending.js';
 import { flangeInducedCheck } from '../en1993-1-5/flange-induced.js';
-import { patchBendingInteraction, patchForForce, patchLoadingCheck } from '../en1993-1-5/patch-loading.js';
+import { ALL_FORCES_STIFFENED, patchBendingInteraction, patchForForce, patchLoadingCheck, unstiffenedForces } from '../en1993-1-5/patch-loading.js';
 import { ltbCheck, pickSag as pickSagAt } from './ltb.js';
 import { deflectionCheck } from '../sls/deflection.js';
 import { BENDING_IDS, type BendingCheckId } from '../registry.js';
 import { weldCheck } from '../en1993-1-8/weld.js';
+import { restraintStiffenerCheck } from './restraint-stiffener.js';
 
 /** The bending family's checks, each computed on first call; shared intermediates computed once. */
 export function bendingThunks(ctx: CheckContext, e: Effects): Record<BendingCheckId, () => CheckResult> {
@@ -41,6 +42,7 @@ export function bendingThunks(ctx: CheckContext, e: Effects): Record<BendingChec
     'patch-bending': () => patchBendingCheck(ctx, e, bendingFor),
     'lateral-torsional-buckling': () => ltbCheck(ctx, e, per(), bendingFor),
     deflection: () => deflectionCheck(ctx, e),
+    'restraint-stiffener': () => restraintStiffenerCheck(ctx, e),
     'web-flange-weld': () => weldCheck(ctx, e),
   };
 }
@@ -93,8 +95,10 @@ export function classificationCheck(per: ReadonlyMap<FlangeSide, SignBending>): 
 export function patchBendingCheck(ctx: CheckContext, e: Effects, bendingFor: (side: FlangeSide) => SignBending): CheckResult {
   const clause = 'EN 1993-1-5 7.2';
   if (e.forces.length === 0) return notApplicable('patch-bending', clause, 'no concentrated forces enter through a flange without a stiffener');
+  const forces = unstiffenedForces(ctx, e);
+  if (forces.length === 0) return notApplicable('patch-bending', clause, ALL_FORCES_STIFFENED);
   let best: { u: number; at: number; values: Record<string, CheckValue> } | null = null;
-  for (const f of e.forces) {
+  for (const f of forces) {
     const r = patchForForce(ctx, f.x, f.ss);
     const MEd = envelopeAt(e.stations, f.x, pickSagAt).value;
     // 7.2(1) is for a force on the compression flange: the top flange, under sagging

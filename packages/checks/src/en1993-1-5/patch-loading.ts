@@ -1,5 +1,6 @@
 import type { CheckContext, CheckResult, CheckValue, Effects } from '../types.js';
 import { governs, notApplicable, verdict } from '../result.js';
+import { stiffenedAt } from './stiffeners.js';
 
 /**
  * Resistance to transverse forces, EN 1993-1-5:2006 (+AC:2009) section 6, eqs. 6.1–6.13.
@@ -116,16 +117,27 @@ export function patchForForce(ctx: CheckContext, x: number, ss: number): PatchRe
   });
 }
 
+/** The reason patch loading (6, 7.2) does not apply when every force stands on a load-bearing stiffener. */
+export const ALL_FORCES_STIFFENED = 'every concentrated force stands on a load-bearing stiffener: checked under load-bearing-stiffener (EN 1993-1-5 9.4)';
+
+/** The concentrated forces that enter the web unstiffened (none stands on a load-bearing stiffener). */
+export function unstiffenedForces(ctx: CheckContext, e: Effects): Effects['forces'] {
+  return ctx.loadXs.length === 0 ? e.forces : e.forces.filter((f) => !stiffenedAt(ctx, f.x));
+}
+
 /**
  * 'patch-loading': each concentrated force F (N) entering through the top flange with no stiffener
  * under it, load type (a) with a the length of the panel containing it (the span when the web is
- * unstiffened). utilisation η2 = F/FRd (EN 1993-1-5 6.6), the worst force governs.
+ * unstiffened). utilisation η2 = F/FRd (EN 1993-1-5 6.6), the worst force governs. A force on a
+ * load-bearing stiffener is not patch loading (load-bearing-stiffener, 9.4).
  */
 export function patchLoadingCheck(ctx: CheckContext, e: Effects): CheckResult {
   const clause = 'EN 1993-1-5 6';
   if (e.forces.length === 0) return notApplicable('patch-loading', clause, 'no concentrated forces enter through a flange without a stiffener');
+  const forces = unstiffenedForces(ctx, e);
+  if (forces.length === 0) return notApplicable('patch-loading', clause, ALL_FORCES_STIFFENED);
   let best: { u: number; at: number; values: Record<string, CheckValue> } | null = null;
-  for (const f of e.forces) {
+  for (const f of forces) {
     const r = patchForForce(ctx, f.x, f.ss);
     const u = Math.abs(f.F) / r.FRd;
     if (governs(u, best?.u)) {

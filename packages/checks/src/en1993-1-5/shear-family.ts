@@ -8,10 +8,11 @@ import { panelMomentForVbf, panelShear, stationShear, stationsIn, type PanelShea
 import { shearArea, vplRd } from './shear-plastic.js';
 import { flatTorsion, siteSection, siteStrength, stiffenerIstMin, stiffenerSites } from './stiffeners.js';
 import { PANEL_EDGE_MM } from '../tolerances.js';
+import { loadStiffenerCheck } from './load-stiffener.js';
 
 /**
  * The EN 1993-1-5 shear family: one result per id, in this order: 'shear', 'shear-buckling',
- * 'bending-shear', 'stiffener-stiffness', 'stiffener-strength', 'stiffener-torsion', 'end-post',
+ * 'bending-shear', 'stiffener-stiffness', 'stiffener-strength', 'load-bearing-stiffener', 'stiffener-torsion', 'end-post',
  * 'bearing-stiffener'. Each is the worst station / panel / stiffener; `at` its x (mm).
  */
 export function shearChecks(ctx: CheckContext, e: Effects): CheckResult[] {
@@ -29,6 +30,7 @@ export function shearThunks(ctx: CheckContext, e: Effects): Record<ShearCheckId,
     'bending-shear': () => bendingShearCheck(ctx, ps(), e.stations),
     'stiffener-stiffness': () => stiffenerStiffnessCheck(ctx),
     'stiffener-strength': () => stiffenerStrengthCheck(ctx, e.stations),
+    'load-bearing-stiffener': () => loadStiffenerCheck(ctx, e),
     'stiffener-torsion': () => stiffenerTorsionCheck(ctx),
     'end-post': () => endPostCheck(ctx),
     'bearing-stiffener': () => bearingStiffenerCheck(ctx, e),

@@ -128,3 +128,9 @@ export function siteStrength(ctx: CheckContext, site: StiffenerSite, stations: r
   }
   return { VEd, NEd, lambdaWRemoved: lw, A: sec.A, I: sec.I, ...strut, eN, utilisation: u };
 }
+
+/** Whether a concentrated force at x stands on a load-bearing stiffener of the section (then it is not patch loading and not through the web-to-flange welds, but EN 1993-1-5 9.4). */
+export function stiffenedAt(ctx: CheckContext, x: number): boolean {
+  for (const y of ctx.loadXs) if (Math.abs(y - x) < SAME_POSITION_MM) return true;
+  return false;
+}

@@ -3,6 +3,7 @@ import type { GradeName } from '@platesmith/catalogue';
 import type { CheckContext, CheckResult, CheckValue, Effects } from '../types.js';
 import { verdict } from '../result.js';
 import { pickM, pickV, envelopeAt } from '../en1993-1-1/bending.js';
+import { stiffenedAt } from '../en1993-1-5/stiffeners.js';
 
 /**
  * Web-to-flange fillet welds, EN 1993-1-8:2005 4.5.3.3 (simplified method). Units: mm, N, MPa, N/mm.
@@ -48,7 +49,9 @@ function weaker(g1: GradeName, fu1: number, g2: GradeName, fu2: number): { fu: n
  * 'web-flange-weld': two fillet welds at each flange carry v = VEd Sf/Iy (largest |VEd| of the
  * stations); at each concentrated force on the top flange, the top welds also carry F/ℓy
  * (ℓy from EN 1993-1-5 6.5 for that force) as a direct transverse load, added vectorially to the
- * coexisting shear flow (largest |VEd| of the stations bracketing the force). fu and βw are those
+ * coexisting shear flow (largest |VEd| of the stations bracketing the force); a force on a
+ * load-bearing stiffener (fitted to the flange) goes into the stiffener, not through these welds
+ * (checked under load-bearing-stiffener). fu and βw are those
  * of the weaker part joined (lower fu). The smallest throat of the options that passes is reported.
  */
 export function weldCheck(ctx: CheckContext, e: Effects): CheckResult {
@@ -69,6 +72,7 @@ export function weldCheck(ctx: CheckContext, e: Effects): CheckResult {
     { flange: 'bottom', FwEd: weldForcePerLength(shearFlow(Vmax, SfBot, g.Iy), 0), fvwd: fBot, at: xV, vEd: shearFlow(Vmax, SfBot, g.Iy), q: 0 },
   ];
   for (const f of e.forces) {
+    if (ctx.loadXs.length > 0 && stiffenedAt(ctx, f.x)) continue;
     // the weld right under the bearing: the force spread over ss + 5 tf (EN 1993-1-8 6.2.6.2(1) by
     // analogy, 1:2.5 through the flange; common practice) — not over the yield-line length ℓy
     const lw = f.ss + 5 * s.top.t;

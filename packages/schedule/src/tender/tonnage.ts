@@ -1,5 +1,5 @@
 import { DomainError, STEEL_KG_PER_MM3, type GradeName } from '@platesmith/catalogue';
-import { bearingPairCount, material, resolveBearing } from '@platesmith/checks';
+import { bearingPairCount, loadStiffenerPositions, material, panelsOf, resolveBearing, restraintStiffenerPositions } from '@platesmith/checks';
 import { toSection, type SectionJson } from '@platesmith/schema';
 
 /**
@@ -21,6 +21,10 @@ export interface TenderGirder {
   bearingFlats: number;
   /** bearing flat size, mm; default `section.bearing`, else the check library's default size */
   bearing?: { width: number; thickness: number };
+  /** load-bearing stiffener pairs per girder (section.loadStiffeners, double-sided), - */
+  loadPairs?: number;
+  /** stiffener pairs at lateral restraints per girder (section.restraintStiffeners, double-sided), - */
+  restraintPairs?: number;
 }
 
 export type PlatePart = 'web' | 'top flange' | 'bottom flange' | 'flange' | 'stiffener' | 'bearing stiffener';
@@ -123,16 +127,22 @@ export function tenderGirder(mark: string, quantity: number, section: SectionJso
   const L = supports[supports.length - 1]! - supports[0]!;
   let positions = 0;
   const a = section.stiffeners?.spacing ?? null;
+  // load-bearing pairs at the section's positions (published sections give them), as girderMass counts them
+  const loadXs = section.loadStiffeners ? loadStiffenerPositions(supports, section.loadStiffeners.at ?? []) : [];
   if (a !== null && a > 0) {
     // the same rule as the check library's panelsOf: stiffeners at s0 + k·a short of the next support by more than 1 mm
-    for (let i = 0; i + 1 < supports.length; i++) {
-      const s0 = supports[i]!;
-      const s1 = supports[i + 1]!;
-      for (let k = 1; s0 + k * a < s1 - 1; k++) positions++;
-    }
+    // (and none within 1 mm of a load-bearing pair)
+    if (loadXs.length > 0) positions = panelsOf(supports, a, loadXs).stiffenerXs.length;
+    else
+      for (let i = 0; i + 1 < supports.length; i++) {
+        const s0 = supports[i]!;
+        const s1 = supports[i + 1]!;
+        for (let k = 1; s0 + k * a < s1 - 1; k++) positions++;
+      }
   }
   const pairs = bearingPairCount(section.endPost ?? 'rigid', supports.length, section.bearing?.pairs ?? 1);
-  return { mark, quantity, length: L, section, stiffenerPositions: positions, bearingFlats: 2 * pairs };
+  const restraintPairs = section.restraintStiffeners ? restraintStiffenerPositions(supports, section.restraintStiffeners.at ?? []).length : 0;
+  return { mark, quantity, length: L, section, stiffenerPositions: positions, bearingFlats: 2 * pairs, loadPairs: loadXs.length, restraintPairs };
 }
 
 interface Piece {
@@ -158,13 +168,18 @@ function piecesOf(g: TenderGirder): { pieces: Piece[]; perGirder: MarkTonnage['p
     { kind: 'plate', grade: gr.flanges, t: s.bottomFlange.thickness, b: s.bottomFlange.width, L: g.length, n: 1, part: 'bottom flange' },
   ];
   if (st && g.stiffenerPositions > 0) pieces.push({ kind: 'flat', grade: gr.stiffeners, t: st.thickness, b: st.width, L: hw, n: g.stiffenerPositions * sides, part: 'stiffener' });
+  const ls = s.loadStiffeners;
+  if (ls && (g.loadPairs ?? 0) > 0) pieces.push({ kind: 'flat', grade: gr.stiffeners, t: ls.thickness, b: ls.width, L: hw, n: 2 * g.loadPairs!, part: 'stiffener' });
+  const rs = s.restraintStiffeners;
+  if (rs && (g.restraintPairs ?? 0) > 0) pieces.push({ kind: 'flat', grade: gr.stiffeners, t: rs.thickness, b: rs.width, L: hw, n: 2 * g.restraintPairs!, part: 'stiffener' });
   if (g.bearingFlats > 0) pieces.push({ kind: 'flat', grade: gr.stiffeners, t: bearing.thickness, b: bearing.width, L: hw, n: g.bearingFlats, part: 'bearing stiffener' });
   const m = (p: Piece | undefined) => (p ? p.n * pieceMass(p.t, p.b, p.L) : 0);
   const perGirder = {
     web: m(pieces[0]),
     topFlange: m(pieces[1]),
     bottomFlange: m(pieces[2]),
-    stiffeners: m(pieces.find((p) => p.part === 'stiffener')),
+    // intermediate, load-bearing and restraint flats (girderMass's `stiffeners`)
+    stiffeners: pieces.filter((p) => p.part === 'stiffener').reduce((sum, p) => sum + m(p), 0),
     bearing: m(pieces.find((p) => p.part === 'bearing stiffener')),
     total: 0,
   };

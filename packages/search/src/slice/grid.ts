@@ -135,7 +135,7 @@ function takeUpRow(s: SliceState, c: RunNode, g: Grid): void {
     g.out[GRID_OUT.FIB]! += nb;
     return;
   }
-  if (s.forces.length > 0) {
+  if (s.forces.length > 0 && !s.loadable) {
     const need = rowPatchNeed(s, c.plate, ti);
     if (need < 0) {
       // no count passes 6.4 (−1), or none that does leaves room for the 7.2 floor (−2)

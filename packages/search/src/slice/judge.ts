@@ -121,12 +121,13 @@ export function judgeLayouts(s: SliceState, nd: LayoutsNode): void {
       pruned.webOnly++;
       continue;
     }
-    if (!panelOk(s, ps, w.panels)) {
+    // with load-bearing stiffeners no force is patch loading (6, 7.2)
+    if (!w.load && !panelOk(s, ps, w.panels)) {
       pruned.patchLoading++;
       continue;
     }
-    // panels and end post (the panel-only checks read nothing else of the layout, and the loads)
-    const panelKey = 2 * w.panels + (w.endPost === 'rigid' ? 1 : 0);
+    // panels, load-bearing stiffeners or not, and end post (the panel-only checks read nothing else of the layout, and the loads)
+    const panelKey = 4 * w.panels + (w.load ? 2 : 0) + (w.endPost === 'rigid' ? 1 : 0);
     const parts = partOf(s, plate, j);
     const section = buildSection(w, parts, T, B);
     // the layout's own self-weight, as `check` adds it: its verdict reads nothing else

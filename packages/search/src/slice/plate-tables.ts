@@ -15,7 +15,9 @@ export function partOf(s: SliceState, plate: Plate, j: number): WebParts {
   let hit = plate.parts[j];
   if (!hit) {
     const w = s.webs.at(plate.layouts[j]!);
-    hit = webPartsWith(w, s.L, s.stiffCount.get(w.panels) ?? 0, s.Lmax);
+    hit = w.load
+      ? webPartsWith(w, s.L, s.stiffCountLoaded.get(w.panels) ?? 0, s.Lmax, s.prep.loadXs, s.prep.restraintPair)
+      : webPartsWith(w, s.L, s.stiffCount.get(w.panels) ?? 0, s.Lmax, [], s.prep.restraintPair);
     plate.parts[j] = hit;
   }
   return hit;
@@ -96,7 +98,11 @@ export function melRdOf(s: SliceState, ps: Plates): number {
   return ps.MelRd;
 }
 
-/** Whether a panel count passes the patch-loading bounds on these plates: 6.4 and the 7.2 floor (from the plate's tables). */
+/**
+ * Whether a panel count passes the patch-loading bounds on these plates: 6.4 and the 7.2 floor
+ * (from the plate's tables), for a layout without load-bearing stiffeners (with them every force
+ * stands on a pair: no patch loading, so the caller does not ask).
+ */
 export function panelOk(s: SliceState, ps: Plates, np: number): boolean {
   if (s.forces.length === 0) return true;
   // the plate's tables hold the per-flange work; only Mel,Rd is the pair's own (kept on it)

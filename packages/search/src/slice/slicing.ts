@@ -4,7 +4,7 @@
  * past the bounds that read the plate and the groups alone, pushed on the heap at its first bound.
  */
 import { iyOfPlates, maxCompressionFlangeAreaFIB, minFlangeForceForBending, minIyForDeflection, webShearCapacityBound, type EndPost } from '@platesmith/checks';
-import { flangeMass } from '../objective.js';
+import { flangeMass, SUM_ORDER_MARGIN } from '../objective.js';
 import { lastAtOrBelow, type FlangeOption, type WebConfig } from '../space.js';
 import { floorOf } from './cost-floor.js';
 import { bearingAreaFloor, bearingFlatCount } from './plate-tables.js';
@@ -79,11 +79,12 @@ export function pairsOf(s: SliceState, gt: number, gb: number): Pairs {
 }
 
 /**
- * Per end post the least intermediate-stiffener kg per mm of web depth over layouts first … first+nL−1
- * (count × sides × b × t, as webPartsWith computes the kg before × hw × density), and their panel
+ * Per end post the least stiffener kg per mm of web depth over layouts first … first+nL−1
+ * (count × sides × b × t, as webPartsWith computes the kg before × hw × density, plus the
+ * load-bearing pairs of a layout with them), and their panel
  * counts, most first. Whole plates with the same flat filter list the same layouts: once per pattern.
  */
-function patternOf(s: SliceState, first: number, nL: number, tw: number): { rigid: number; nonRigid: number; panelCounts: number[] } {
+export function patternOf(s: SliceState, first: number, nL: number, tw: number): { rigid: number; nonRigid: number; panelCounts: number[] } {
   const { plateStarts, webs } = s;
   const whole = first === plateStarts[lastAtOrBelow(plateStarts, first)] && nL === plateLength(plateStarts, first);
   const key = whole ? `${nL}|${s.sp.rules.stiffenerAtLeastWeb ? tw : ''}` : '';
@@ -94,7 +95,9 @@ function patternOf(s: SliceState, first: number, nL: number, tw: number): { rigi
     const counts = new Set<number>();
     for (let wi = first; wi < first + nL; wi++) {
       const lw = webs.at(wi);
-      const m = lw.panels === 0 || !lw.flat ? 0 : (s.stiffCount.get(lw.panels) ?? 0) * lw.sides * lw.flat.b * lw.flat.t;
+      let m = lw.panels === 0 || !lw.flat ? 0 : ((lw.load ? s.stiffCountLoaded : s.stiffCount).get(lw.panels) ?? 0) * lw.sides * lw.flat.b * lw.flat.t;
+      // load-bearing pairs (webPartsWith adds their kg apart: lowered by the sum-order margin)
+      if (lw.load) m = (m + s.prep.loadXs.length * 2 * lw.load.b * lw.load.t) * (1 - SUM_ORDER_MARGIN);
       if (lw.endPost === 'rigid') rigid = Math.min(rigid, m);
       else nonRigid = Math.min(nonRigid, m);
       counts.add(lw.panels);

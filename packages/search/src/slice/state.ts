@@ -27,7 +27,7 @@ import { G_ACC, type BearingFlat, type Evaluated, type CandidateKey, type Prepar
 import type { DemandBound } from '../load.js';
 import { ltbSetBound, type LtbSetBound, type Segments } from '../ltb-bound.js';
 import { C2, flangeMass, type CostModel, type WebParts } from '../objective.js';
-import type { FlangeGroup, FlangeOption, SpaceSpec, WebConfig, WebTable } from '../space.js';
+import { loadOptions, type FlangeGroup, type FlangeOption, type SpaceSpec, type WebConfig, type WebTable } from '../space.js';
 import { Heap } from './heap.js';
 import type { SlicePart } from './slicing.js';
 
@@ -263,6 +263,10 @@ export interface SliceState {
 
   // per number of panels (the same on every web)
   stiffCount: Map<number, number>;
+  /** the same with load-bearing stiffeners under the forces (an intermediate stiffener on one of them is not counted) */
+  stiffCountLoaded: Map<number, number>;
+  /** the space offers load-bearing stiffeners and there are concentrated forces: patch loading (6, 7.2) bounds a layout without them only, never a whole set of plates */
+  loadable: boolean;
   panelsByCount: Map<number, { x0: number; x1: number; a: number }[]>;
   panelSlots: Map<number, number>;
   slotOf: Int32Array;
@@ -334,6 +338,7 @@ export function createSliceState(
   for (const f of flanges) lightestFlange = Math.min(lightestFlange, flangeMass(f, L));
 
   const stiffCount = new Map<number, number>();
+  const stiffCountLoaded = new Map<number, number>();
   const panelsByCount = new Map<number, { x0: number; x1: number; a: number }[]>();
   const panelSlots = new Map<number, number>();
   for (const n of new Set(sp.panels)) panelSlots.set(n, panelSlots.size);
@@ -344,6 +349,7 @@ export function createSliceState(
     const r = panelsOf(supports, n > 0 ? Lmax / n : null);
     stiffCount.set(n, n > 0 ? r.stiffenerXs.length : 0);
     panelsByCount.set(n, r.panels);
+    stiffCountLoaded.set(n, n > 0 ? panelsOf(supports, Lmax / n, prep.loadXs).stiffenerXs.length : 0);
   }
 
   // demand bounds valid for every candidate of the slice: self-weight from the lightest web plate
@@ -404,6 +410,8 @@ export function createSliceState(
     lightestOption: flanges.reduce((a, b) => (b.A < a.A ? b : a)),
     heaviestOption: flanges.reduce((a, b) => (b.A > a.A ? b : a)),
     stiffCount,
+    stiffCountLoaded,
+    loadable: forces.length > 0 && prep.loadXs.length > 0 && loadOptions(sp).some((f) => f !== null),
     panelsByCount,
     panelSlots,
     slotOf,
@@ -439,7 +447,12 @@ function maxMassPerLength(prep: Prepared): number {
   const flat = sp.flats.reduce((m, f) => Math.max(m, f.b * f.t), 0);
   const minA = Math.min(...sp.panels.filter((n) => n > 0).map((n) => prep.Lmax / n), Infinity);
   const stiffPerMm = minA === Infinity ? 0 : (2 * flat * hw) / minA;
+  // load-bearing pairs: one under each force
+  const loadFlat = loadOptions(sp).reduce((m, f) => Math.max(m, f ? f.b * f.t : 0), 0);
+  const loadPerMm = (prep.loadXs.length * 2 * loadFlat * hw) / prep.L;
+  const rp = prep.restraintPair;
+  const restraintPerMm = rp ? (rp.xs.length * 2 * rp.bs * rp.ts * hw) / prep.L : 0;
   // bearing stiffeners: at most 2 pairs per end, one per inner support, flats no larger than the flange outstand × 100 mm
   const bearing = ((bearingPairCount('rigid', prep.supports.length, BEARING_MAX_PAIRS) * 2 * Math.max(flat, (Math.max(...sp.bf) / 2) * 150) * hw) / prep.L) * 1.5;
-  return KG_PER_MM3 * (hw * tw + 2 * Af + stiffPerMm + bearing);
+  return KG_PER_MM3 * (hw * tw + 2 * Af + stiffPerMm + loadPerMm + restraintPerMm + bearing);
 }

@@ -113,8 +113,10 @@ const LIMIT_SHORT: Record<NonNullable<PublishedPoint['limitedBy']>[number]['move
   'fewer-panels': 'panels−',
   'lighter-flats': 'flats−',
   'one-side': '1 side',
+  'no-load-stiffeners': 'no load st.',
+  'lighter-load-flats': 'load flats−',
 };
-const LIMIT_LEGEND = 'tw− thinner web, tf− thinner flanges, bf− narrower flanges, panels− fewer panels, flats− lighter flats, 1 side: stiffeners on one side';
+const LIMIT_LEGEND = 'tw− thinner web, tf− thinner flanges, bf− narrower flanges, panels− fewer panels, flats− lighter flats, 1 side: stiffeners on one side, no load st.: no load-bearing stiffeners, load flats− lighter load-bearing flats';
 
 /** A point's limitedBy in a table cell: the lighter changes the space holds, and what rules each out. */
 export function limitsText(limits: PublishedPoint['limitedBy'], objective: PublishedSearch['objective']): string {
