@@ -1,9 +1,8 @@
-import { randomUUID } from 'node:crypto';
 import { DomainError, isDomainError } from '@platesmith/catalogue';
 import { finishSchedule, type MarkResult, type ScheduleJson, type ScheduleProgress, type ScheduleResult, type ScheduleRunResult } from '@platesmith/schedule';
 import { ApiError } from '../errors.js';
 import { FairGate } from './fair.js';
-import { TERMINAL, type JobPatch, type JobRecord, type JobStore, type JobSummary } from './store.js';
+import { newScheduleJob, TERMINAL, type JobPatch, type JobStore, type JobSummary } from './store.js';
 
 export type JobEvent = { type: 'progress' | 'done'; job: JobSummary };
 
@@ -186,22 +185,7 @@ export class JobManager {
     await this.#ready;
     if (this.#stopping) throw new ApiError('SHUTTING_DOWN', 'the service is shutting down', { retryAfter: 5 });
     if (this.#active.size >= this.#o.maxActive) throw new ApiError('JOBS_SATURATED', `${this.#active.size} schedule jobs are queued or running (the limit is ${this.#o.maxActive})`, { retryAfter: 5 });
-    const job: JobRecord = {
-      id: randomUUID(),
-      kind: 'schedule',
-      owner,
-      status: 'queued',
-      name: input.name ?? null,
-      marks: input.girders.length,
-      createdAt: new Date(this.#now()).toISOString(),
-      startedAt: null,
-      finishedAt: null,
-      progress: null,
-      input,
-      result: null,
-      error: null,
-      resumed: 0,
-    };
+    const job = newScheduleJob(input, owner, this.#now());
     const stored = await this.#store.insert(job, owner !== null ? this.#o.quota : undefined);
     if (!stored) throw new ApiError('JOB_QUOTA_EXCEEDED', `this key has ${this.#o.quota} schedule jobs queued or running (its quota); wait for one to finish or cancel one`, { retryAfter: 30, extra: { quota: this.#o.quota } });
     const { input: _i, result: _r, ...summary } = job;

@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import type { MarkResult, ScheduleJson, ScheduleProgress, ScheduleRunResult } from '@platesmith/schedule';
 
 export type JobState = 'queued' | 'running' | 'done' | 'failed' | 'cancelled';
@@ -156,4 +157,24 @@ export class MemoryJobStore implements JobStore {
     this.#jobs.clear();
     this.#marks.clear();
   }
+}
+
+/** A new schedule job as both backends store it at submission: queued, nothing done yet. */
+export function newScheduleJob(input: ScheduleJson, owner: string | null, nowMs: number): JobRecord {
+  return {
+    id: randomUUID(),
+    kind: 'schedule',
+    owner,
+    status: 'queued',
+    name: input.name ?? null,
+    marks: input.girders.length,
+    createdAt: new Date(nowMs).toISOString(),
+    startedAt: null,
+    finishedAt: null,
+    progress: null,
+    input,
+    result: null,
+    error: null,
+    resumed: 0,
+  };
 }

@@ -1,10 +1,9 @@
-import { randomUUID } from 'node:crypto';
 import type { ScheduleJson } from '@platesmith/schedule';
 import { FlowProducer, Queue } from 'bullmq';
 import { ApiError } from '../errors.js';
 import type { JobEvent, Jobs } from '../jobs/jobs.js';
 import { JOB_DEFAULTS } from '../jobs/manager.js';
-import type { JobRecord, JobSummary } from '../jobs/store.js';
+import { newScheduleJob, type JobSummary } from '../jobs/store.js';
 import { EventListener, EventPublisher } from './events.js';
 import type { Redis } from 'ioredis';
 import { channels, client, closeWithin, DEFAULT_PREFIX, FINISH_QUEUE, marksQueue, type QueueConfig } from './names.js';
@@ -80,22 +79,7 @@ export class QueueJobs implements Jobs {
     if (this.#stopping) throw new ApiError('SHUTTING_DOWN', 'the service is shutting down', { retryAfter: 5 });
     const active = await this.store.activeCount();
     if (active >= this.#o.maxActive) throw new ApiError('JOBS_SATURATED', `${active} schedule jobs are queued or running (the limit is ${this.#o.maxActive})`, { retryAfter: 5 });
-    const job: JobRecord = {
-      id: randomUUID(),
-      kind: 'schedule',
-      owner,
-      status: 'queued',
-      name: input.name ?? null,
-      marks: input.girders.length,
-      createdAt: new Date(this.#now()).toISOString(),
-      startedAt: null,
-      finishedAt: null,
-      progress: null,
-      input,
-      result: null,
-      error: null,
-      resumed: 0,
-    };
+    const job = newScheduleJob(input, owner, this.#now());
     const stored = await this.store.insert(job, owner !== null ? this.#o.quota : undefined);
     if (!stored) throw new ApiError('JOB_QUOTA_EXCEEDED', `this key has ${this.#o.quota} schedule jobs queued or running (its quota); wait for one to finish or cancel one`, { retryAfter: 30, extra: { quota: this.#o.quota } });
     const queueName = marksQueue(owner);
