@@ -387,6 +387,33 @@ describe('11. smaller', () => {
     expect(r.headers.get('content-type')).toMatch(/^application\/problem\+json/);
     expect(r.body).toMatchObject({ code: 'URI_TOO_LONG' });
   });
+  test('requests refused with POOL_SATURATED pay nothing first: the admission answers before the analysis would (issue 16 item 3)', async () => {
+    const { FIXTURE_WORKER, gate } = await import('../../services/app/test/fixtures/worker.js');
+    const g = gate();
+    const one = await start({ threads: 1, maxActiveSearches: 1, workerFile: FIXTURE_WORKER, routes: (app) => app.post('/_test/gate', async () => app.engine.run({ kind: 'gate', gate: g.buffer })) });
+    try {
+      // a legal body whose analysis is over the derived-work cap: analysed first, it would answer
+      // 422 ANALYSIS_TOO_LARGE after counting its work; admitted first, the saturated pool answers 503
+      const huge = {
+        spans: Array.from({ length: 20 }, () => 10000),
+        gridDivisions: 400,
+        actions: [{ kind: 'permanent', load: 'udl', value: 10 }, ...Array.from({ length: 40 }, (_, i) => ({ kind: 'variable', load: 'udl', value: 5 + i, category: 'B' }))],
+      };
+      const idle = await one.post('/v1/effects', huge);
+      expect(idle.status).toBe(422);
+      expect(idle.body).toMatchObject({ code: 'ANALYSIS_TOO_LARGE' });
+      const held = one.post('/_test/gate', {});
+      await g.entered;
+      const r = await one.post('/v1/effects', huge);
+      expect(r.status).toBe(503);
+      expect(r.body).toMatchObject({ code: 'POOL_SATURATED' });
+      expect(r.headers.get('retry-after')).not.toBeNull();
+      g.open();
+      await held;
+    } finally {
+      await one.close();
+    }
+  });
   test('a saturated 503 is logged once, at warn, without a stack', async () => {
     const { FIXTURE_WORKER, gate } = await import('../../services/app/test/fixtures/worker.js');
     const g = gate();
