@@ -277,7 +277,13 @@ export function ltbSetBound(o: CheckOptions): LtbSetBound | undefined {
     let sure = flangeOutstand(flange, sec.tw, fyF, throat).c / flange.t > 14 * epsilon(fyF) * (1 + 1e-9);
     // the check's web is Class 1 when the plastic neutral axis leaves none of it in compression
     const webCompressed = top ? p.zPlastic < zw1 - 1e-9 * sec.hw : p.zPlastic > zw0 + 1e-9 * sec.hw;
-    if (!sure && webCompressed && (top ? zc < zw1 : zc > zw0)) {
+    // the check takes the web as Class 1 or 2 wherever it meets Table 5.2's Class 2 limit with the
+    // plastic distribution (α, as wyFyBound reads it): only a web surely beyond that limit is
+    // classified by its Class 3 limit (without this, a web in Class 2 by α but past the Class 3
+    // limit by ψ was taken as Class 4: a mono-symmetric 1200 × 6 web under a 450 × 25 top flange)
+    const alpha = Math.min(1, top ? (zw1 - p.zPlastic) / sec.hw : (p.zPlastic - zw0) / sec.hw);
+    const beyondClass2 = alpha > 1e-9 && sec.hw / sec.tw > webClass2Limit(epsilon(m.fyw), alpha * (1 - 1e-9)) * (1 + 1e-9);
+    if (!sure && webCompressed && beyondClass2 && (top ? zc < zw1 : zc > zw0)) {
       // Table 5.2 Class 3 limit of the web at ψ from the gross section (as classifySection), the
       // largest within a hair of ψ (the limit falls with ψ above −1, rises as ψ falls below, and
       // jumps at −1 from 123.5ε to 124ε)
