@@ -239,7 +239,14 @@ describe('3b. /health reflects a wedged loop', () => {
       for (let i = 0; i < 50 && (await w.get('/health')).status !== 200; i++) await new Promise((r) => setTimeout(r, 100));
       expect((await w.get('/health')).status).toBe(200);
       expect((await w.post('/_test/hold', {})).status).toBe(200);
-      const h = await w.get('/health');
+      // the guard reads the loop's delay on its own timer: the first request after the hold can be
+      // read before that timer has run (seen on a quiet host), so ask a few times, 25 ms apart, well
+      // inside the 2 s the loop was held; the guard must report the wedge within them
+      let h = await w.get('/health');
+      for (let i = 0; i < 20 && h.status === 200; i++) {
+        await new Promise((r) => setTimeout(r, 25));
+        h = await w.get('/health');
+      }
       expect(h.status).toBe(503);
       expect(h.headers.get('retry-after')).toBe('5');
       expect(h.body).toMatchObject({ code: 'OVERLOADED' });
